@@ -1,0 +1,39 @@
+"use client";
+
+import { ActionForm } from "@/components/forms/action-form";
+import { SubmitButton } from "@/components/forms/submit-button";
+import type { Role } from "@/db/schema";
+
+import { changeMemberRole, removeMember } from "../actions";
+import { RoleSelect } from "./role-select";
+
+export type MemberRowProps = { membershipId: string; name: string; email: string; role: Role; isSelf: boolean };
+
+export function MemberRow({ membershipId, name, email, role, isSelf }: MemberRowProps) {
+  return (
+    <tr className="border-t border-rule align-top">
+      <td className="py-2 pr-3">
+        <span className="font-medium">{name}</span>
+        {isSelf ? <span className="ml-1 text-xs text-ink-soft">(you)</span> : null}
+      </td>
+      <td className="py-2 pr-3 text-ink-soft">{email}</td>
+      <td className="py-2 pr-3">
+        <ActionForm action={changeMemberRole} label={`Role of ${name}`} className="flex flex-wrap items-center gap-2">
+          <input type="hidden" name="membershipId" value={membershipId} />
+          <RoleSelect id={`role-${membershipId}`} defaultValue={role} label={`Role of ${name}`} />
+          <SubmitButton tone="quiet" pendingLabel="Saving…">
+            Save role
+          </SubmitButton>
+        </ActionForm>
+      </td>
+      <td className="py-2">
+        <ActionForm action={removeMember} label={`Remove ${name}`} className="flex flex-col gap-1">
+          <input type="hidden" name="membershipId" value={membershipId} />
+          <SubmitButton tone="danger" pendingLabel="Removing…" aria-label={`Remove ${name}`}>
+            Remove
+          </SubmitButton>
+        </ActionForm>
+      </td>
+    </tr>
+  );
+}

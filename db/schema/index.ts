@@ -1,0 +1,3 @@
+export * from "./organizations";
+export * from "./users";
+export * from "./tokens";

@@ -1,0 +1,35 @@
+// Seeds the invented demo scenario, only into an empty database. Prints the demo sign-ins.
+import { sql } from "drizzle-orm";
+
+import { closeDb, getDb } from "./client";
+import { memberships, organizations, projects, users } from "./schema";
+import { demoOrganizations, demoProject, demoUsers } from "./seed-data";
+import { hashPassword } from "@/lib/server/auth/passwords";
+import { createId } from "@/lib/server/ids";
+
+const db = getDb();
+const [{ count }] = (await db.select({ count: sql<number>`count(*)::int` }).from(organizations)) as [{ count: number }];
+
+if (count > 0) {
+  console.log("[sagline] database already has data; demo seed skipped");
+} else {
+  const hashed = await Promise.all(demoUsers.map((u) => hashPassword(u.password)));
+  await db.transaction(async (tx) => {
+    await tx.insert(organizations).values([demoOrganizations.engineering, demoOrganizations.fabricator]);
+    await tx.insert(projects).values({ ...demoProject, organizationId: demoOrganizations.engineering.id, partnerOrganizationId: demoOrganizations.fabricator.id });
+    for (const [index, user] of demoUsers.entries()) {
+      const userId = `usr_demo${user.role}`;
+      await tx.insert(users).values({ id: userId, email: user.email, name: user.name, passwordHash: hashed[index]! });
+      await tx.insert(memberships).values({ id: createId("mem"), userId, organizationId: demoOrganizations.engineering.id, role: user.role });
+    }
+    // The administrator also runs the fabricator's account, so switching organizations can be tried.
+    await tx.insert(memberships).values({ id: createId("mem"), userId: "usr_demoadmin", organizationId: demoOrganizations.fabricator.id, role: "admin" });
+  });
+  console.log("[sagline] demo data seeded");
+}
+
+if (process.argv.includes("--print")) {
+  console.log("\nDemo sign-ins (invented people; change or remove them before real use):");
+  for (const u of demoUsers) console.log(`  ${u.role.padEnd(10)} ${u.email.padEnd(38)} ${u.password}`);
+}
+await closeDb();

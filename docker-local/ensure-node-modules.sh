@@ -1,0 +1,11 @@
+#!/usr/bin/env bash
+# Installs npm dependencies from the lockfile when they are missing or stale. Idempotent.
+source "$(dirname "$0")/lib.sh"
+cd "$ROOT"
+stamp="node_modules/.sagline-lock-hash"
+hash="$(sha256sum package-lock.json | cut -d' ' -f1)"
+if [ ! -f "$stamp" ] || [ "$(cat "$stamp")" != "$hash" ]; then
+  log "installing npm dependencies (npm ci)"
+  npm ci --no-audit --no-fund --loglevel=error
+  echo "$hash" > "$stamp"
+fi

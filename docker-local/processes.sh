@@ -1,0 +1,51 @@
+# Starting and stopping Sagline's own processes by pid file. Sourced by start.sh, stop.sh, test.sh.
+
+# start_process NAME RUN_DIR LOG COMMAND...: starts in the background unless already running.
+start_process() {
+  local name="$1" run_dir="$2" logfile="$3"
+  shift 3
+  mkdir -p "$run_dir"
+  if pid_alive "$run_dir/$name.pid"; then return 0; fi
+  # setsid gives each process its own group, so stop can end it with its children.
+  setsid nohup "$@" >"$logfile" 2>&1 < /dev/null &
+  echo $! > "$run_dir/$name.pid"
+}
+
+stop_process() {
+  local name="$1" run_dir="$2" pidfile="$2/$1.pid"
+  if pid_alive "$pidfile"; then
+    local pid
+    pid="$(cat "$pidfile")"
+    kill -TERM -- "-$pid" 2>/dev/null || kill -TERM "$pid" 2>/dev/null || true
+    for _ in $(seq 1 100); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
+    kill -KILL -- "-$pid" 2>/dev/null || true
+  fi
+  rm -f "$pidfile"
+}
+
+wait_for_url() {
+  local url="$1" seconds="${2:-60}"
+  for _ in $(seq 1 $((seconds * 5))); do
+    if curl -fsS -o /dev/null "$url" 2>/dev/null; then return 0; fi
+    sleep 0.2
+  done
+  return 1
+}
+
+# Builds the web app only when its sources changed since the last build into DIST.
+build_web_if_needed() {
+  local dist="$1" stamp="$1/.sagline-source-hash" hash
+  hash="$(cd "$ROOT" && { git ls-files -co --exclude-standard -- app components lib db next.config.mjs package-lock.json postcss.config.mjs tsconfig.json 2>/dev/null || true; } | sort | xargs -r sha1sum 2>/dev/null | sha1sum | cut -d' ' -f1)"
+  if [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$hash" ]; then return 0; fi
+  log "building the web app (next build)"
+  (cd "$ROOT" && SAGLINE_DIST_DIR="$dist" NEXT_TELEMETRY_DISABLED=1 npx next build >"$LOCAL_DIR/build.log" 2>&1) || { tail -40 "$LOCAL_DIR/build.log"; exit 1; }
+  echo "$hash" > "$stamp"
+}
+
+# Secrets generated once per checkout and kept in the ignored folder.
+ensure_secret() {
+  local file="$LOCAL_DIR/$1.secret"
+  mkdir -p "$LOCAL_DIR"
+  [ -s "$file" ] || (umask 077 && head -c 48 /dev/urandom | base64 | tr -d '\n/+=' > "$file")
+  cat "$file"
+}

@@ -1,0 +1,46 @@
+#!/usr/bin/env bash
+# npm start: installs what is missing, starts PostgreSQL, Redis, the web app, the workers and the
+# local fakes, applies migrations and seeds the demo into an empty database. Idempotent: a second
+# run reuses everything.
+source "$(dirname "$0")/lib.sh"
+source "$(dirname "$0")/processes.sh"
+cd "$ROOT"
+bash docker-local/ensure-packages.sh
+bash docker-local/ensure-node-modules.sh
+bash docker-local/postgres.sh start sagline
+bash docker-local/redis.sh start
+
+RUN="$LOCAL_DIR/run"
+mkdir -p "$RUN" "$LOCAL_DIR/logs"
+export NODE_ENV=production
+export DATABASE_URL="postgres://sagline:${SAGLINE_DB_PASSWORD:-sagline-local}@127.0.0.1:$PG_PORT/sagline"
+export REDIS_URL="redis://127.0.0.1:$REDIS_PORT/0"
+export REDIS_PREFIX="sagline"
+export APP_URL="${APP_URL:-http://127.0.0.1:$APP_PORT}"
+export NEXTAUTH_URL="$APP_URL"
+export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-$(ensure_secret nextauth)}"
+export SMTP_HOST=127.0.0.1 SMTP_PORT MAIL_UI_PORT
+export SAGLINE_FAKES="${SAGLINE_FAKES:-1}"
+export MAIL_UI_URL="http://127.0.0.1:$MAIL_UI_PORT/"
+export MAIL_DIR="$LOCAL_DIR/mail"
+export NEXT_TELEMETRY_DISABLED=1
+
+npx tsx db/migrate.ts
+npx tsx db/seed.ts > "$LOCAL_DIR/seed.log"
+grep -v '^$' "$LOCAL_DIR/seed.log" | head -1
+build_web_if_needed .next
+
+if [ "$SAGLINE_FAKES" = "1" ]; then
+  start_process smtp-fake "$RUN" "$LOCAL_DIR/logs/smtp-fake.log" npx tsx docker-local/fakes/smtp-fake.ts
+fi
+for script in workers/index.ts; do
+  [ -f "$script" ] && start_process worker "$RUN" "$LOCAL_DIR/logs/worker.log" npx tsx "$script"
+done
+start_process web "$RUN" "$LOCAL_DIR/logs/web.log" npx next start -H 127.0.0.1 -p "$APP_PORT"
+
+wait_for_url "$APP_URL/api/health" 60 || { log "the web app did not become healthy; see $LOCAL_DIR/logs/web.log"; tail -20 "$LOCAL_DIR/logs/web.log"; exit 1; }
+echo
+log "Sagline is running at $APP_URL"
+[ "$SAGLINE_FAKES" = "1" ] && log "captured e-mail (local SMTP fake): $MAIL_UI_URL"
+npx tsx db/seed.ts --print | sed -n '/Demo sign-ins/,$p'
+log "logs in $LOCAL_DIR/logs; stop everything with: npm run stop"

@@ -1,0 +1,180 @@
+/**
+ * The engine's internal model: every quantity already converted to one system.
+ *
+ * Internal units (never mixed): length mm, force N, distributed load N/mm, moment N*mm,
+ * modulus and stress MPa (N/mm^2), second moment mm^4, area mm^2, density kg/m^3,
+ * frequency Hz, rotation rad. Intake (lib/engine/intake) converts public schedules into this
+ * model once; the solver and the checks read nothing else.
+ *
+ * Sign convention: x runs from the member's left end; loads and deflections are positive
+ * downward (gravity); an applied moment is positive clockwise with x to the right.
+ */
+
+/** Standard gravity, m/s^2 (NIST SP 330, the defined value of g_n). */
+export const STANDARD_GRAVITY_M_PER_S2 = 9.80665;
+
+export type MemberCategory =
+  | "floor_beam"
+  | "roof_beam"
+  | "lintel"
+  | "purlin_girt"
+  | "wall_stud"
+  | "cantilever"
+  | "other";
+
+export type SupportKind = "pinned" | "roller" | "fixed" | "free" | "spring";
+
+/** A support at a node (the ends of each span). `spring` carries a vertical stiffness. */
+export interface Support {
+  kind: SupportKind;
+  /** Vertical spring stiffness, N/mm; only for kind "spring". */
+  springNPerMm?: number;
+}
+
+/** Stiffness and mass of one span (segment between two nodes). */
+export interface SpanSegment {
+  lengthMm: number;
+  eMpa: number;
+  iMm4: number;
+  /** Cross-section area, for self-weight and frequency mass. */
+  areaMm2?: number;
+  /** Shear area (k*A) and shear modulus, only when shear deformation is requested. */
+  shearAreaMm2?: number;
+  gMpa?: number;
+  /** Material density, for self-weight. */
+  densityKgPerM3?: number;
+}
+
+/** Loads are positioned along the whole member, in mm from its left end. */
+export type Load =
+  | { kind: "uniform"; loadCase: string; wNPerMm: number; startMm?: number; endMm?: number }
+  | {
+      kind: "linear";
+      loadCase: string;
+      startMm: number;
+      endMm: number;
+      wStartNPerMm: number;
+      wEndNPerMm: number;
+    }
+  | { kind: "point"; loadCase: string; atMm: number; pN: number }
+  | { kind: "moment"; loadCase: string; atMm: number; mNmm: number };
+
+/**
+ * One serviceability combination. Deflection of the combination =
+ * sum over cases of factors[case] * deflection(case)
+ *   + creepFactor * sum over cases of sustainedFactors[case] * deflection(case).
+ * creepFactor is the member material's when `creep` is "material" (k_def, K_cr - 1, lambda),
+ * a fixed number otherwise, and 0 when absent.
+ */
+export interface Combination {
+  id: string;
+  label: string;
+  factors: Record<string, number>;
+  sustainedFactors?: Record<string, number>;
+  creep?: "material" | number;
+  /** Allowed deflection = effective span / limitRatio, capped by capMm when given. */
+  limitRatio: number;
+  capMm?: number;
+}
+
+export interface LimitProfile {
+  id: string;
+  label: string;
+  /** The published source the preset follows, e.g. "IBC 2021 Table 1604.3". */
+  source: string;
+  combinations: Combination[];
+  /** A cantilever is judged on this multiple of its length (IBC 2021 Table 1604.3 note: 2). */
+  cantileverSpanMultiplier: number;
+  /** Optional minimum first natural frequency; mass from the named load cases' factors. */
+  frequency?: { minHz: number; massFactors: Record<string, number> };
+}
+
+export interface Member {
+  mark: string;
+  category: MemberCategory;
+  quantity: number;
+  /** spans.length + 1 supports, one per node, left to right. */
+  supports: Support[];
+  spans: SpanSegment[];
+  loads: Load[];
+  /** Add self-weight from each span's area and density to this load case (usually "dead"). */
+  selfWeightCase?: string;
+  /** Creep factor of the material for combinations whose creep is "material". */
+  materialCreepFactor?: number;
+  includeShearDeformation?: boolean;
+  /** Where the member came from, for messages and catalogue re-sizing. */
+  sectionName?: string;
+  materialName?: string;
+}
+
+/** A catalogue entry: a named section with its properties, for the lightest-section search. */
+export interface CatalogueSection {
+  name: string;
+  iMm4: number;
+  areaMm2: number;
+  /** Mass per metre, kg/m; the search orders by it ("lightest"). */
+  massKgPerM: number;
+  shearAreaMm2?: number;
+}
+
+/** An input problem: a path like `members[12].spans[1].length` and a reason. */
+export interface InputIssue {
+  path: string;
+  message: string;
+}
+
+export interface CheckResult {
+  combinationId: string;
+  spanIndex: number;
+  /** "cantilever" for a span with one free end; its effective span is multiplied. */
+  spanKind: "span" | "cantilever";
+  spanMm: number;
+  effectiveSpanMm: number;
+  /** Largest absolute deflection within the span, mm (signed: + downward). */
+  deflectionMm: number;
+  /** Position of that deflection, mm from the member's left end. */
+  atMm: number;
+  allowedMm: number;
+  utilization: number;
+  /** allowed / actual; Infinity is never returned: a zero deflection gives null. */
+  factorOfSafety: number | null;
+  pass: boolean;
+}
+
+export interface RotationResult {
+  combinationId: string;
+  nodeIndex: number;
+  atMm: number;
+  rotationRad: number;
+}
+
+export interface FrequencyResult {
+  hz: number;
+  minHz: number;
+  pass: boolean;
+  method: "exact" | "rayleigh";
+}
+
+export interface ShapeSample {
+  xMm: number;
+  /** Deflection per combination id, mm, + downward. */
+  deflectionMm: Record<string, number>;
+}
+
+export interface MemberResult {
+  mark: string;
+  category: MemberCategory;
+  checks: CheckResult[];
+  governing: CheckResult | null;
+  rotations: RotationResult[];
+  frequency: FrequencyResult | null;
+  pass: boolean;
+  /** Only for a failing member. */
+  suggestion: { minIMm4: number; sectionName: string | null } | null;
+  shape: ShapeSample[];
+  /**
+   * Optional plain-language remarks from the engine, e.g. why a failing member has no
+   * suggestion (added by the solver/checks work; optional, so older results stay valid).
+   */
+  notes?: string[];
+}

@@ -1,0 +1,44 @@
+import type { Permission } from "./permissions";
+
+/**
+ * Who may reach what: every page, cookie-session route and server action, in one table.
+ * "public" needs nothing; "signed-in" needs a session and an organization; otherwise a permission
+ * of the active membership's role. tests/integration/auth/access-matrix.test.ts fails when a page,
+ * route or action exists without an entry here.
+ */
+export type Access = "public" | "signed-in" | Permission;
+
+export const pageAccess = {
+  "/": "public",
+  "/sign-in": "public",
+  "/forgot-password": "public",
+  "/reset-password/[token]": "public",
+  "/invitations/[token]": "public",
+  "/schedules": "organization:read",
+  "/review": "review:read",
+  "/integrations": "integrations:manage",
+  "/settings": "settings:read",
+  "/people": "people:manage",
+} as const satisfies Record<string, Access>;
+
+/** Route handlers that use the cookie session or none (API-key routes live in their own table). */
+export const routeAccess = {
+  "GET /api/health": "public",
+  "GET /api/auth/[...nextauth]": "public",
+  "POST /api/auth/[...nextauth]": "public",
+} as const satisfies Record<string, Access>;
+
+/** Server actions, keyed `area/actionName` as exported from app/.../<area>/actions.ts. */
+export const actionAccess = {
+  "(auth)/requestPasswordReset": "public",
+  "(auth)/resetPassword": "public",
+  "(auth)/acceptInvitation": "public",
+  "(dashboard)/switchOrganization": "signed-in",
+  "people/inviteMember": "people:manage",
+  "people/changeMemberRole": "people:manage",
+  "people/removeMember": "people:manage",
+  "people/revokeInvitation": "people:manage",
+} as const satisfies Record<string, Access>;
+
+export type PagePath = keyof typeof pageAccess;
+export type ActionKey = keyof typeof actionAccess;

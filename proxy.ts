@@ -1,0 +1,30 @@
+import { NextResponse, type NextRequest } from "next/server";
+
+import { isSameOrigin } from "@/lib/server/auth/origin";
+import { badOriginProblem, problemResponse, PROBLEM_BASE } from "@/lib/server/http/problem";
+
+/** Forms and actions carry a few kilobytes; Next's own limit would answer 500, this answers 413. */
+const MAX_FORM_BODY_BYTES = 1_000_000;
+
+// Cookie-authenticated writes from a foreign, "null" or missing Origin, or with an oversized
+// body, are refused here with a clear problem, before Next's own server-action checks (which
+// would answer 500). Every action and route still checks for itself: this is not the only layer.
+// API-key routes carry no cookies and apply their own limits.
+export function proxy(request: NextRequest) {
+  const safe = ["GET", "HEAD", "OPTIONS"].includes(request.method);
+  if (safe || request.nextUrl.pathname.startsWith("/api/v1/")) return NextResponse.next();
+  const instance = request.nextUrl.pathname;
+  if (!isSameOrigin(request.headers)) return badOriginProblem(instance);
+  if (Number(request.headers.get("content-length") ?? "0") > MAX_FORM_BODY_BYTES) {
+    return problemResponse({
+      type: PROBLEM_BASE + "too-large",
+      title: "Request too large",
+      status: 413,
+      detail: `Forms accept at most ${MAX_FORM_BODY_BYTES} bytes.`,
+      instance,
+    });
+  }
+  return NextResponse.next();
+}
+
+export const config = { matcher: "/((?!_next/static|_next/image|favicon.ico).*)" };

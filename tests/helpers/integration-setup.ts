@@ -1,0 +1,7 @@
+import { afterAll } from "vitest";
+
+import { closeDb } from "@/db/client";
+
+afterAll(async () => {
+  await closeDb();
+});

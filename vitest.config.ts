@@ -1,0 +1,34 @@
+import { fileURLToPath } from "node:url";
+import { defineConfig } from "vitest/config";
+
+// Projects keep fast pure tests apart from the ones that need the running services.
+export default defineConfig({
+  resolve: { alias: { "@": fileURLToPath(new URL("./", import.meta.url)) } },
+  test: {
+    projects: [
+      { extends: true, test: { name: "unit", include: ["tests/unit/**/*.test.ts"] } },
+      {
+        extends: true,
+        test: {
+          name: "integration",
+          include: ["tests/integration/**/*.test.ts", "tests/contract/**/*.test.ts"],
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          fileParallelism: false,
+          setupFiles: ["tests/helpers/integration-setup.ts"],
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: "e2e",
+          include: ["tests/e2e/**/*.spec.ts"],
+          setupFiles: ["tests/helpers/integration-setup.ts"],
+          testTimeout: 120_000,
+          hookTimeout: 180_000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
