@@ -10,26 +10,30 @@ bash docker-local/ensure-node-modules.sh
 redis_was_up=0; pg_was_up=0
 redis-cli -h 127.0.0.1 -p "$REDIS_PORT" ping >/dev/null 2>&1 && redis_was_up=1
 [ -f "$LOCAL_DIR/postgres/data/postmaster.pid" ] && pg_was_up=1
-bash docker-local/postgres.sh start sagline_test
+TEST_DB="${SAGLINE_TEST_DB:-sagline_test}"
+TEST_REDIS_DB="${SAGLINE_TEST_REDIS_DB:-1}"
+bash docker-local/postgres.sh start "$TEST_DB"
 bash docker-local/redis.sh start
 
-RUN="$LOCAL_DIR/run-test"
+RUN="$LOCAL_DIR/run-test-$TEST_DB"
 mkdir -p "$RUN" "$LOCAL_DIR/logs"
 TEST_APP_PORT="${SAGLINE_TEST_APP_PORT:-3793}"
 export SMTP_PORT="${SAGLINE_TEST_SMTP_PORT:-2593}"
 export MAIL_UI_PORT="${SAGLINE_TEST_MAIL_UI_PORT:-3794}"
 export PARTNER_PORT="${SAGLINE_TEST_PARTNER_PORT:-3795}"
 export NODE_ENV=production
-export DATABASE_URL="postgres://sagline:${SAGLINE_DB_PASSWORD:-sagline-local}@127.0.0.1:$PG_PORT/sagline_test"
-export REDIS_URL="redis://127.0.0.1:$REDIS_PORT/1"
+export DATABASE_URL="postgres://sagline:${SAGLINE_DB_PASSWORD:-sagline-local}@127.0.0.1:$PG_PORT/$TEST_DB"
+export REDIS_URL="redis://127.0.0.1:$REDIS_PORT/$TEST_REDIS_DB"
 export REDIS_PREFIX="sagline-test"
 export APP_URL="http://127.0.0.1:$TEST_APP_PORT"
 export NEXTAUTH_URL="$APP_URL"
 export NEXTAUTH_SECRET="$(ensure_secret nextauth-test)"
 export SMTP_HOST=127.0.0.1 SAGLINE_FAKES=1
 export MAIL_UI_URL="http://127.0.0.1:$MAIL_UI_PORT/"
-export MAIL_DIR="$LOCAL_DIR/mail-test"
-export SAGLINE_DIST_DIR=.next-test
+export MAIL_DIR="$LOCAL_DIR/mail-$TEST_DB"
+export SAGLINE_DIST_DIR="${SAGLINE_DIST_DIR:-.next-test}"
+# A spare port for tests that start a second web process of their own.
+export SAGLINE_TEST_SPARE_PORT="${SAGLINE_TEST_SPARE_PORT:-3799}"
 export SIGN_IN_MAX_FAILURES=5
 export NEXT_TELEMETRY_DISABLED=1
 
@@ -42,7 +46,7 @@ trap cleanup EXIT
 
 # A clean slate every run: the test database and Redis database are the tests' own.
 PGOPTIONS="--client-min-messages=warning" psql -X -q -v ON_ERROR_STOP=1 "$DATABASE_URL" -c "drop schema if exists public cascade; drop schema if exists drizzle cascade; create schema public;"
-redis-cli -h 127.0.0.1 -p "$REDIS_PORT" -n 1 flushdb >/dev/null
+redis-cli -h 127.0.0.1 -p "$REDIS_PORT" -n "$TEST_REDIS_DB" flushdb >/dev/null
 rm -rf "$MAIL_DIR"
 
 log "lint and types"
@@ -52,18 +56,18 @@ npx tsc --noEmit -p .
 npx tsx db/migrate.ts
 npx tsx db/seed.ts >/dev/null
 build_web_if_needed "$SAGLINE_DIST_DIR"
-start_process smtp-fake "$RUN" "$LOCAL_DIR/logs/test-smtp-fake.log" npx tsx docker-local/fakes/smtp-fake.ts
+start_process smtp-fake "$RUN" "$LOCAL_DIR/logs/$TEST_DB-smtp-fake.log" npx tsx docker-local/fakes/smtp-fake.ts
 for script in workers/index.ts; do
-  [ -f "$script" ] && start_process worker "$RUN" "$LOCAL_DIR/logs/test-worker.log" npx tsx "$script"
+  [ -f "$script" ] && start_process worker "$RUN" "$LOCAL_DIR/logs/$TEST_DB-worker.log" npx tsx "$script"
 done
-start_process web "$RUN" "$LOCAL_DIR/logs/test-web.log" npx next start -H 127.0.0.1 -p "$TEST_APP_PORT"
-wait_for_url "$APP_URL/api/health" 60 || { tail -30 "$LOCAL_DIR/logs/test-web.log"; exit 1; }
+start_process web "$RUN" "$LOCAL_DIR/logs/$TEST_DB-web.log" npx next start -H 127.0.0.1 -p "$TEST_APP_PORT"
+wait_for_url "$APP_URL/api/health" 60 || { tail -30 "$LOCAL_DIR/logs/$TEST_DB-web.log"; exit 1; }
 wait_for_url "$MAIL_UI_URL" 30
 
 log "running every suite"
 set +e
-npx vitest run --reporter=default --reporter=json --outputFile.json="$LOCAL_DIR/test-results.json" "$@"
+npx vitest run --reporter=default --reporter=json --outputFile.json="$LOCAL_DIR/test-results-$TEST_DB.json" "$@"
 status=$?
 set -e
-node docker-local/summarise-tests.mjs "$LOCAL_DIR/test-results.json" || status=1
+node docker-local/summarise-tests.mjs "$LOCAL_DIR/test-results-$TEST_DB.json" || status=1
 exit $status

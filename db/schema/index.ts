@@ -1,3 +1,5 @@
 export * from "./organizations";
 export * from "./users";
 export * from "./tokens";
+export * from "./schedules";
+export * from "./outbox";

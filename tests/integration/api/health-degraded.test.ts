@@ -3,7 +3,7 @@ import { spawn, type ChildProcess } from "node:child_process";
 
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
-const port = 3799;
+const port = Number(process.env.SAGLINE_TEST_SPARE_PORT ?? 3799);
 let server: ChildProcess;
 
 async function waitForServer(url: string): Promise<void> {

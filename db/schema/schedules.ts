@@ -1,0 +1,145 @@
+import { sql } from "drizzle-orm";
+import { bigint, boolean, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
+
+import { organizations, projects } from "./organizations";
+import { users } from "./users";
+
+export const scheduleStatuses = ["received", "queued", "checking", "completed", "failed"] as const;
+export type ScheduleStatus = (typeof scheduleStatuses)[number];
+
+export const schedules = pgTable(
+  "schedules",
+  {
+    id: text().primaryKey(),
+    organizationId: text()
+      .notNull()
+      .references(() => organizations.id, { onDelete: "cascade" }),
+    projectId: text().references(() => projects.id, { onDelete: "set null" }),
+    name: text().notNull(),
+    reference: text(),
+    status: text({ enum: scheduleStatuses }).notNull().default("received"),
+    failureReason: text(),
+    /** "api-json", "api-csv", "upload" */
+    source: text().notNull(),
+    submittedByUserId: text().references(() => users.id, { onDelete: "set null" }),
+    /** The API key that submitted it, when one did (api_keys.id). */
+    apiKeyId: text(),
+    /** A registered webhook endpoint of the organization to report to (webhook_endpoints.id). */
+    callbackEndpointId: text(),
+    /** The resolved limit profile every member is checked against. */
+    profile: jsonb().notNull(),
+    memberCount: integer().notNull(),
+    chunkCount: integer().notNull(),
+    chunksDone: integer().notNull().default(0),
+    checkedCount: integer().notNull().default(0),
+    passCount: integer().notNull().default(0),
+    failCount: integer().notNull().default(0),
+    errorCount: integer().notNull().default(0),
+    queuedAt: timestamp({ withTimezone: true }),
+    completedAt: timestamp({ withTimezone: true }),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index("schedules_organization_id_created_at_idx").on(t.organizationId, t.createdAt, t.id),
+    index("schedules_status_idx").on(t.status).where(sql`${t.status} not in ('completed', 'failed')`),
+  ],
+);
+
+/** One row per submitted member: the public-format input and the engine's normalised model. */
+export const scheduleMembers = pgTable(
+  "schedule_members",
+  {
+    scheduleId: text()
+      .notNull()
+      .references(() => schedules.id, { onDelete: "cascade" }),
+    memberIndex: integer().notNull(),
+    mark: text().notNull(),
+    category: text().notNull(),
+    input: jsonb().notNull(),
+    model: jsonb().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.scheduleId, t.memberIndex] }), uniqueIndex("schedule_members_schedule_id_mark_idx").on(t.scheduleId, t.mark)],
+);
+
+/** A member's overall result: written once per member (the primary key is the guard). */
+export const memberOutcomes = pgTable(
+  "member_outcomes",
+  {
+    scheduleId: text()
+      .notNull()
+      .references(() => schedules.id, { onDelete: "cascade" }),
+    memberIndex: integer().notNull(),
+    mark: text().notNull(),
+    category: text().notNull(),
+    pass: boolean().notNull(),
+    governingCheck: text(),
+    utilization: doublePrecision(),
+    factorOfSafety: doublePrecision(),
+    /** Engine output beyond the checks: rotations, frequency, suggestion, sampled shape, errors. */
+    detail: jsonb().notNull(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    primaryKey({ columns: [t.scheduleId, t.memberIndex] }),
+    index("member_outcomes_schedule_id_pass_idx").on(t.scheduleId, t.pass, t.memberIndex),
+  ],
+);
+
+/** One row per member, combination and span: exactly one result per member and check. */
+export const memberChecks = pgTable(
+  "member_checks",
+  {
+    scheduleId: text()
+      .notNull()
+      .references(() => schedules.id, { onDelete: "cascade" }),
+    memberIndex: integer().notNull(),
+    checkKey: text().notNull(),
+    combinationId: text().notNull(),
+    spanIndex: integer().notNull(),
+    spanKind: text().notNull(),
+    deflectionMm: doublePrecision().notNull(),
+    atMm: doublePrecision().notNull(),
+    allowedMm: doublePrecision().notNull(),
+    utilization: doublePrecision().notNull(),
+    factorOfSafety: doublePrecision(),
+    pass: boolean().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.scheduleId, t.memberIndex, t.checkKey] })],
+);
+
+/** Work units of a schedule; done flips once, so progress never double counts a retried chunk. */
+export const scheduleChunks = pgTable(
+  "schedule_chunks",
+  {
+    scheduleId: text()
+      .notNull()
+      .references(() => schedules.id, { onDelete: "cascade" }),
+    chunkIndex: integer().notNull(),
+    firstMember: integer().notNull(),
+    memberCount: integer().notNull(),
+    doneAt: timestamp({ withTimezone: true }),
+    attempts: integer().notNull().default(0),
+  },
+  (t) => [primaryKey({ columns: [t.scheduleId, t.chunkIndex] })],
+);
+
+/** IETF Idempotency-Key draft: scoped to the organization, expiring, replaying the first answer. */
+export const idempotencyKeys = pgTable(
+  "idempotency_keys",
+  {
+    id: bigint({ mode: "number" }).primaryKey().generatedAlwaysAsIdentity(),
+    organizationId: text()
+      .notNull()
+      .references(() => organizations.id, { onDelete: "cascade" }),
+    key: text().notNull(),
+    requestHash: text().notNull(),
+    state: text({ enum: ["in_flight", "completed"] }).notNull(),
+    responseStatus: integer(),
+    responseBody: jsonb(),
+    expiresAt: timestamp({ withTimezone: true }).notNull(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("idempotency_keys_organization_id_key_idx").on(t.organizationId, t.key)],
+);

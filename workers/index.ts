@@ -1,0 +1,41 @@
+// Worker process entry: starts one BullMQ worker per job definition, with the concurrency its
+// environment variable sets, and closes them all gracefully on SIGTERM (in-flight jobs finish).
+import { Worker } from "bullmq";
+
+import { closeDb } from "@/db/client";
+import { getEnv } from "@/lib/env";
+
+import { createWorkerConnection } from "./connection";
+import { runJob } from "./define-job";
+import { closeQueues } from "./queues";
+import { jobDefinitions } from "./registry";
+import { startPeriodicTasks } from "./periodic";
+
+const env = getEnv();
+const workers = jobDefinitions.map((definition) => {
+  const concurrency = Number(process.env[definition.concurrency.env] ?? definition.concurrency.default);
+  const worker = new Worker(definition.queue, (job) => runJob(definition, job), {
+    connection: createWorkerConnection(),
+    prefix: env.REDIS_PREFIX,
+    concurrency,
+  });
+  worker.on("failed", (job, error) => console.error(`[worker] ${definition.queue} job ${job?.id} failed: ${error.message}`));
+  worker.on("error", (error) => console.error(`[worker] ${definition.queue}: ${error.message}`));
+  console.log(`[worker] ${definition.queue} started, concurrency ${concurrency}`);
+  return worker;
+});
+const stopPeriodic = startPeriodicTasks();
+
+let stopping = false;
+async function shutdown(signal: string) {
+  if (stopping) return;
+  stopping = true;
+  console.log(`[worker] ${signal}: finishing in-flight jobs`);
+  stopPeriodic();
+  await Promise.all(workers.map((w) => w.close()));
+  await closeQueues();
+  await closeDb();
+  process.exit(0);
+}
+process.on("SIGTERM", () => void shutdown("SIGTERM"));
+process.on("SIGINT", () => void shutdown("SIGINT"));
