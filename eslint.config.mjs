@@ -9,7 +9,7 @@ const engineForbidden = {
 };
 
 export default tseslint.config(
-  { ignores: ["node_modules/**", ".next/**", ".local/**", "drizzle/**", "next-env.d.ts"] },
+  { ignores: ["node_modules/**", ".next*/**", ".local/**", "drizzle/**", "next-env.d.ts"] },
   ...tseslint.configs.recommended,
   {
     rules: {

@@ -27,5 +27,7 @@ export function proxy(request: NextRequest) {
   return NextResponse.next();
 }
 
-// API-key routes stay out of the proxy entirely: it would also cap their bodies at 10 MB.
-export const config = { matcher: "/((?!_next/static|_next/image|favicon.ico|api/v1/).*)" };
+// API-key routes stay out of the proxy entirely: it would also cap their bodies at 10 MB. So does
+// the dashboard's CSV upload (up to 64 MB): Next would cut its body at the proxy's 10 MB copy. Its
+// handler refuses foreign origins itself (withSessionRoute) and reads at most 64 MB (readBodyBytes).
+export const config = { matcher: "/((?!_next/static|_next/image|favicon.ico|api/v1/|api/schedules/upload).*)" };

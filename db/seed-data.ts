@@ -19,3 +19,14 @@ export const demoUsers: { role: Role; name: string; email: string; password: str
   { role: "submitter", name: "Dara Quillfeather", email: "dara.quillfeather@corrow.example", password: "submitter-demo-Sagline-1" },
   { role: "viewer", name: "Olu Marchetti", email: "olu.marchetti@brackenridge.example", password: "viewer-demo-Sagline-1" },
 ];
+
+/**
+ * A fixed, documented API key for trying the API after `npm start` (README, "API keys"). It is
+ * public knowledge: revoke it in Integrations > API keys before any real use.
+ */
+export const demoApiKey = {
+  id: "key_demoengineering",
+  name: "Demo key (documented in the README; revoke before real use)",
+  secret: "sgl_DemoBrackenridgeTryTheSaglineApi18kU9l",
+  scopes: ["schedules:write", "results:read"] as const,
+};

@@ -2,10 +2,12 @@
 import { sql } from "drizzle-orm";
 
 import { closeDb, getDb } from "./client";
-import { memberships, organizations, projects, users } from "./schema";
-import { demoOrganizations, demoProject, demoUsers } from "./seed-data";
+import { apiKeys, memberships, organizations, projects, users } from "./schema";
+import { demoApiKey, demoOrganizations, demoProject, demoUsers } from "./seed-data";
+import { displayPrefixOf, hashApiKey } from "@/lib/server/api-keys/key-format";
 import { hashPassword } from "@/lib/server/auth/passwords";
 import { createId } from "@/lib/server/ids";
+import { seedDemoEndpoint } from "@/lib/server/webhooks/seed-demo-endpoint";
 
 const db = getDb();
 const [{ count }] = (await db.select({ count: sql<number>`count(*)::int` }).from(organizations)) as [{ count: number }];
@@ -24,12 +26,24 @@ if (count > 0) {
     }
     // The administrator also runs the fabricator's account, so switching organizations can be tried.
     await tx.insert(memberships).values({ id: createId("mem"), userId: "usr_demoadmin", organizationId: demoOrganizations.fabricator.id, role: "admin" });
+    await tx.insert(apiKeys).values({
+      id: demoApiKey.id,
+      organizationId: demoOrganizations.engineering.id,
+      name: demoApiKey.name,
+      displayPrefix: displayPrefixOf(demoApiKey.secret),
+      secretHash: hashApiKey(demoApiKey.secret),
+      scopes: [...demoApiKey.scopes],
+      createdByUserId: "usr_demointegrator",
+    });
   });
   console.log("[sagline] demo data seeded");
 }
 
+await seedDemoEndpoint(db, demoOrganizations.engineering.id);
+
 if (process.argv.includes("--print")) {
   console.log("\nDemo sign-ins (invented people; change or remove them before real use):");
   for (const u of demoUsers) console.log(`  ${u.role.padEnd(10)} ${u.email.padEnd(38)} ${u.password}`);
+  console.log(`\nDemo API key (${demoOrganizations.engineering.name}; ${demoApiKey.scopes.join(", ")}):\n  ${demoApiKey.secret}`);
 }
 await closeDb();

@@ -4,7 +4,11 @@ source "$(dirname "$0")/lib.sh"
 need=()
 [ -x "$PG_BIN/initdb" ] || need+=(postgresql)
 command -v redis-server >/dev/null || need+=(redis-server)
-if [ "${SAGLINE_NEED_BROWSER:-0}" = "1" ]; then command -v chromium >/dev/null || need+=(chromium); fi
+# The test suite also drives a real browser and a real spreadsheet program (CSV exports).
+if [ "${SAGLINE_NEED_BROWSER:-0}" = "1" ]; then
+  command -v chromium >/dev/null || need+=(chromium)
+  command -v soffice >/dev/null || need+=(libreoffice-calc-nogui)
+fi
 if [ "${#need[@]}" -gt 0 ]; then
   if [ "$(id -u)" != "0" ]; then echo "missing packages: ${need[*]} (run as root or install them)" >&2; exit 1; fi
   log "installing Debian packages: ${need[*]}"

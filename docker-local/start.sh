@@ -24,6 +24,8 @@ export SAGLINE_FAKES="${SAGLINE_FAKES:-1}"
 export MAIL_UI_URL="http://127.0.0.1:$MAIL_UI_PORT/"
 export MAIL_DIR="$LOCAL_DIR/mail"
 export NEXT_TELEMETRY_DISABLED=1
+# Webhooks may reach the local fake partner receiver on loopback (the SSRF guard refuses loopback otherwise).
+if [ "$SAGLINE_FAKES" = "1" ]; then export WEBHOOK_ALLOWLIST="${WEBHOOK_ALLOWLIST:-127.0.0.1:$PARTNER_PORT}"; fi
 
 npx tsx db/migrate.ts
 npx tsx db/seed.ts > "$LOCAL_DIR/seed.log"
@@ -32,6 +34,7 @@ build_web_if_needed .next
 
 if [ "$SAGLINE_FAKES" = "1" ]; then
   start_process smtp-fake "$RUN" "$LOCAL_DIR/logs/smtp-fake.log" npx tsx docker-local/fakes/smtp-fake.ts
+  start_process partner-fake "$RUN" "$LOCAL_DIR/logs/partner-fake.log" npx tsx docker-local/fakes/partner-fake.ts
 fi
 for script in workers/index.ts; do
   [ -f "$script" ] && start_process worker "$RUN" "$LOCAL_DIR/logs/worker.log" npx tsx "$script"
@@ -42,5 +45,6 @@ wait_for_url "$APP_URL/api/health" 60 || { log "the web app did not become healt
 echo
 log "Sagline is running at $APP_URL"
 [ "$SAGLINE_FAKES" = "1" ] && log "captured e-mail (local SMTP fake): $MAIL_UI_URL"
+[ "$SAGLINE_FAKES" = "1" ] && log "webhooks received by the fake partner: http://127.0.0.1:$PARTNER_PORT/"
 npx tsx db/seed.ts --print | sed -n '/Demo sign-ins/,$p'
 log "logs in $LOCAL_DIR/logs; stop everything with: npm run stop"

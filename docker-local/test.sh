@@ -36,6 +36,10 @@ export SAGLINE_DIST_DIR="${SAGLINE_DIST_DIR:-.next-test}"
 export SAGLINE_TEST_SPARE_PORT="${SAGLINE_TEST_SPARE_PORT:-3799}"
 export SIGN_IN_MAX_FAILURES=5
 export NEXT_TELEMETRY_DISABLED=1
+# Webhooks: the fake partner on loopback is allowed past the SSRF guard; retries run 5000x faster.
+export WEBHOOK_ALLOWLIST="127.0.0.1:$PARTNER_PORT"
+export WEBHOOK_RETRY_SCALE="${WEBHOOK_RETRY_SCALE:-0.0002}"
+export WEBHOOK_TIMEOUT_MS="${WEBHOOK_TIMEOUT_MS:-3000}"
 
 cleanup() {
   for name in web worker smtp-fake partner-fake; do stop_process "$name" "$RUN"; done
@@ -57,12 +61,14 @@ npx tsx db/migrate.ts
 npx tsx db/seed.ts >/dev/null
 build_web_if_needed "$SAGLINE_DIST_DIR"
 start_process smtp-fake "$RUN" "$LOCAL_DIR/logs/$TEST_DB-smtp-fake.log" npx tsx docker-local/fakes/smtp-fake.ts
+start_process partner-fake "$RUN" "$LOCAL_DIR/logs/$TEST_DB-partner-fake.log" npx tsx docker-local/fakes/partner-fake.ts
 for script in workers/index.ts; do
   [ -f "$script" ] && start_process worker "$RUN" "$LOCAL_DIR/logs/$TEST_DB-worker.log" npx tsx "$script"
 done
 start_process web "$RUN" "$LOCAL_DIR/logs/$TEST_DB-web.log" npx next start -H 127.0.0.1 -p "$TEST_APP_PORT"
 wait_for_url "$APP_URL/api/health" 60 || { tail -30 "$LOCAL_DIR/logs/$TEST_DB-web.log"; exit 1; }
 wait_for_url "$MAIL_UI_URL" 30
+wait_for_url "http://127.0.0.1:$PARTNER_PORT/" 30
 
 log "running every suite"
 set +e

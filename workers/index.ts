@@ -18,6 +18,10 @@ const workers = jobDefinitions.map((definition) => {
     connection: createWorkerConnection(),
     prefix: env.REDIS_PREFIX,
     concurrency,
+    // A killed worker's job is retried once its lock lapses; shorter in drills and tests.
+    lockDuration: Number(process.env.WORKER_LOCK_MS ?? 30_000),
+    stalledInterval: Number(process.env.WORKER_STALLED_CHECK_MS ?? 30_000),
+    maxStalledCount: Number(process.env.WORKER_MAX_STALLED ?? 3),
   });
   worker.on("failed", (job, error) => console.error(`[worker] ${definition.queue} job ${job?.id} failed: ${error.message}`));
   worker.on("error", (error) => console.error(`[worker] ${definition.queue}: ${error.message}`));

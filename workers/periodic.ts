@@ -1,10 +1,15 @@
+import { reconcileSchedules } from "@/lib/server/schedules/reconcile-schedules";
+import { dispatchOutboxUntilEmpty, reconcileDeliveries } from "@/lib/server/webhooks/dispatch-outbox";
+
 /**
  * Periodic tasks of a worker process (reconciliation, outbox dispatch), each a function that is
  * safe to run concurrently in several processes. Returns a stop function.
  */
 export type PeriodicTask = { name: string; everyMs: number; run: () => Promise<void> };
 
-export const periodicTasks: PeriodicTask[] = [];
+export const periodicTasks: PeriodicTask[] = [
+  { name: "reconcile-schedules", everyMs: Number(process.env.RECONCILE_EVERY_MS ?? 10_000), run: async () => void (await reconcileSchedules()) },
+];
 
 export function startPeriodicTasks(): () => void {
   const timers = periodicTasks.map((task) => {
@@ -22,3 +27,9 @@ export function startPeriodicTasks(): () => void {
   });
   return () => timers.forEach(clearInterval);
 }
+
+// Webhooks: fan the outbox out every second; re-queue overdue delivery attempts (Redis lost them).
+periodicTasks.push(
+  { name: "dispatch-outbox", everyMs: Number(process.env.OUTBOX_DISPATCH_EVERY_MS ?? 1_000), run: async () => void (await dispatchOutboxUntilEmpty()) },
+  { name: "reconcile-deliveries", everyMs: Number(process.env.DELIVERY_RECONCILE_EVERY_MS ?? 15_000), run: async () => void (await reconcileDeliveries()) },
+);

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { bigint, boolean, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
+import { bigint, boolean, doublePrecision, index, integer, json, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
 
 import { organizations, projects } from "./organizations";
 import { users } from "./users";
@@ -28,6 +28,8 @@ export const schedules = pgTable(
     callbackEndpointId: text(),
     /** The resolved limit profile every member is checked against. */
     profile: jsonb().notNull(),
+    /** The schedule-level part of the submitted document (format, units, limits); workers re-read members with it. */
+    header: jsonb().notNull(),
     memberCount: integer().notNull(),
     chunkCount: integer().notNull(),
     chunksDone: integer().notNull().default(0),
@@ -46,7 +48,7 @@ export const schedules = pgTable(
   ],
 );
 
-/** One row per submitted member: the public-format input and the engine's normalised model. */
+/** One row per submitted member, as submitted (public format); workers convert a chunk at a time. */
 export const scheduleMembers = pgTable(
   "schedule_members",
   {
@@ -56,19 +58,21 @@ export const scheduleMembers = pgTable(
     memberIndex: integer().notNull(),
     mark: text().notNull(),
     category: text().notNull(),
-    input: jsonb().notNull(),
-    model: jsonb().notNull(),
+    /** json, not jsonb: stored and returned as submitted, never queried inside, and cheaper to COPY. */
+    input: json().notNull(),
   },
   (t) => [primaryKey({ columns: [t.scheduleId, t.memberIndex] }), uniqueIndex("schedule_members_schedule_id_mark_idx").on(t.scheduleId, t.mark)],
 );
 
-/** A member's overall result: written once per member (the primary key is the guard). */
+/**
+ * A member's overall result: written once per member (the primary key is the guard). Result tables
+ * carry no foreign key: a per-row key check would cost more than the COPY that writes them; rows
+ * are written only by checkChunk for a schedule it has locked, and deleted with it.
+ */
 export const memberOutcomes = pgTable(
   "member_outcomes",
   {
-    scheduleId: text()
-      .notNull()
-      .references(() => schedules.id, { onDelete: "cascade" }),
+    scheduleId: text().notNull(),
     memberIndex: integer().notNull(),
     mark: text().notNull(),
     category: text().notNull(),
@@ -76,8 +80,8 @@ export const memberOutcomes = pgTable(
     governingCheck: text(),
     utilization: doublePrecision(),
     factorOfSafety: doublePrecision(),
-    /** Engine output beyond the checks: rotations, frequency, suggestion, sampled shape, errors. */
-    detail: jsonb().notNull(),
+    /** Engine output beyond the checks: rotations, frequency, suggestion, or the error. Stored as json (written often, never queried inside). */
+    detail: json().notNull(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
@@ -90,9 +94,7 @@ export const memberOutcomes = pgTable(
 export const memberChecks = pgTable(
   "member_checks",
   {
-    scheduleId: text()
-      .notNull()
-      .references(() => schedules.id, { onDelete: "cascade" }),
+    scheduleId: text().notNull(),
     memberIndex: integer().notNull(),
     checkKey: text().notNull(),
     combinationId: text().notNull(),

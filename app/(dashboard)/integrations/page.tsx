@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 
 import { requirePage } from "@/lib/server/auth/guards";
 
@@ -11,7 +12,25 @@ export default async function IntegrationsPage() {
   return (
     <>
       <PageHeader title="Integrations" lead="API keys for partner systems and the webhook endpoints that receive results." />
-      <p className="rounded border border-dashed border-rule bg-sheet p-6 text-ink-soft">No API keys or webhook endpoints yet.</p>
+      <ul className="grid gap-3 sm:grid-cols-2">
+        <li className="rounded border border-rule bg-sheet p-4">
+          <Link href="/integrations/keys" className="font-semibold text-action underline">
+            API keys
+          </Link>
+          <p className="mt-1 text-ink-soft">Create, list and revoke the keys partner systems call the API with.</p>
+        </li>
+        <li className="rounded border border-rule bg-sheet p-4">
+          <Link href="/integrations/webhooks" className="font-semibold text-action underline">
+            Webhooks
+          </Link>
+          <p className="mt-1 text-ink-soft">Endpoints that receive signed results when a schedule completes.</p>
+        </li>
+      </ul>
+      <p className="mt-4 text-ink-soft">
+        <Link href="/api-docs" className="text-action underline">
+          API documentation
+        </Link>
+      </p>
     </>
   );
 }

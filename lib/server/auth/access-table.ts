@@ -19,6 +19,13 @@ export const pageAccess = {
   "/integrations": "integrations:manage",
   "/settings": "settings:read",
   "/people": "people:manage",
+  "/integrations/keys": "integrations:manage",
+  "/api-docs": "public",
+  "/schedules/new": "schedules:submit",
+  "/schedules/[scheduleId]": "organization:read",
+  "/schedules/[scheduleId]/members/[mark]": "organization:read",
+  "/integrations/webhooks": "integrations:manage",
+  "/integrations/webhooks/deliveries": "integrations:manage",
 } as const satisfies Record<string, Access>;
 
 /** Route handlers that use the cookie session or none (API-key routes live in their own table). */
@@ -26,6 +33,10 @@ export const routeAccess = {
   "GET /api/health": "public",
   "GET /api/auth/[...nextauth]": "public",
   "POST /api/auth/[...nextauth]": "public",
+  "POST /api/schedules/upload": "schedules:submit",
+  "GET /api/schedules/[scheduleId]/progress": "organization:read",
+  "GET /api/templates/schedule.csv": "public",
+  "GET /schedules/[scheduleId]/results.csv": "organization:read",
 } as const satisfies Record<string, Access>;
 
 /** Server actions, keyed `area/actionName` as exported from app/.../<area>/actions.ts. */
@@ -38,6 +49,17 @@ export const actionAccess = {
   "people/changeMemberRole": "people:manage",
   "people/removeMember": "people:manage",
   "people/revokeInvitation": "people:manage",
+  "keys/createApiKey": "integrations:manage",
+  "keys/revokeApiKey": "integrations:manage",
+  "webhooks/createEndpoint": "integrations:manage",
+  "webhooks/updateEndpoint": "integrations:manage",
+  "webhooks/setEndpointEnabled": "integrations:manage",
+  "webhooks/deleteEndpoint": "integrations:manage",
+  "webhooks/revealSecret": "integrations:manage",
+  "webhooks/rotateSecret": "integrations:manage",
+  "webhooks/sendTestEvent": "integrations:manage",
+  "webhooks/resendDelivery": "integrations:manage",
+  "webhooks/resendFailedSince": "integrations:manage",
 } as const satisfies Record<string, Access>;
 
 export type PagePath = keyof typeof pageAccess;

@@ -69,7 +69,7 @@ export async function runAction<S extends z.ZodType, T = undefined>(
   } catch (error) {
     if (error instanceof DomainError) {
       const fieldErrors = error.errors.length
-        ? Object.fromEntries(error.errors.map((e) => [e.pointer, e.message]))
+        ? Object.fromEntries(error.errors.map((e) => [e.pointer ?? e.column ?? "form", e.message]))
         : undefined;
       return failure(error.code, error.message, fieldErrors);
     }

@@ -12,6 +12,7 @@ export interface ProblemBody {
   instance?: string;
   errors?: FieldError[];
   requestId?: string;
+  [extension: string]: unknown;
 }
 
 export function problemResponse(body: ProblemBody, headers: Record<string, string> = {}): Response {
@@ -35,6 +36,7 @@ export function toProblem(error: unknown, instance?: string): Response {
         detail: error.message,
         ...(instance ? { instance } : {}),
         ...(error.errors.length ? { errors: error.errors } : {}),
+        ...error.extensions,
       },
       headers,
     );

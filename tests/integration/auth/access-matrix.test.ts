@@ -87,7 +87,8 @@ describe("every role against every page, route and action", () => {
         } else if (path === "/") {
           expect(response.status, label).toBeLessThan(400);
         } else {
-          expect(response.status, label).toBe(200);
+          // A page with an id segment answers 404 for the made-up id once access is granted.
+          expect(/\[[^\]]+\]/.test(path) ? [200, 404] : [200], label).toContain(response.status);
         }
       }
     });

@@ -1,0 +1,63 @@
+import type { EndpointView } from "@/lib/server/webhooks/endpoints";
+
+import { deleteEndpoint, rotateSecret, sendTestEvent, setEndpointEnabled } from "../actions";
+import { EndpointButton } from "./endpoint-button";
+import { EndpointForm } from "./endpoint-form";
+import { RevealSecret } from "./reveal-secret";
+
+const disabledText = {
+  manual: "disabled by hand",
+  gone: "disabled: the receiver answered 410 Gone",
+  failing: "disabled after sustained failure",
+} as const;
+
+function formatUtc(date: Date): string {
+  return `${date.toISOString().slice(0, 16).replace("T", " ")} UTC`;
+}
+
+export type EndpointCardProps = { endpoint: EndpointView };
+
+export function EndpointCard({ endpoint }: EndpointCardProps) {
+  const status = endpoint.enabled ? "enabled" : disabledText[endpoint.disabledReason ?? "manual"];
+  return (
+    <li className="rounded border border-rule bg-sheet p-4" aria-label={`Endpoint ${endpoint.url}`}>
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <p className="break-all font-medium">{endpoint.url}</p>
+        <span className={endpoint.enabled ? "text-xs text-pass" : "text-xs text-fail"} data-testid="endpoint-status">
+          {status}
+          {endpoint.disabledAt && !endpoint.enabled ? ` · ${formatUtc(endpoint.disabledAt)}` : ""}
+        </span>
+      </div>
+      {endpoint.description ? <p className="text-sm text-ink-soft">{endpoint.description}</p> : null}
+      <p className="mt-1 text-xs text-ink-soft">
+        <code>{endpoint.id}</code> · {endpoint.eventTypes.join(", ")}
+        {endpoint.rotationEndsAt ? ` · rotating: both secrets sign until ${formatUtc(endpoint.rotationEndsAt)}` : ""}
+      </p>
+      <div className="mt-3 flex flex-wrap items-start gap-2">
+        <EndpointButton action={sendTestEvent} label={`Send a test event to ${endpoint.url}`} fields={{ endpointId: endpoint.id }} tone="primary">
+          Send test event
+        </EndpointButton>
+        <EndpointButton
+          action={setEndpointEnabled}
+          label={`${endpoint.enabled ? "Disable" : "Enable"} ${endpoint.url}`}
+          fields={{ endpointId: endpoint.id, enabled: endpoint.enabled ? "false" : "true" }}
+        >
+          {endpoint.enabled ? "Disable" : "Enable"}
+        </EndpointButton>
+        <EndpointButton action={rotateSecret} label={`Rotate the secret of ${endpoint.url}`} fields={{ endpointId: endpoint.id }}>
+          Rotate secret
+        </EndpointButton>
+        <EndpointButton action={deleteEndpoint} label={`Delete ${endpoint.url}`} fields={{ endpointId: endpoint.id }} tone="danger">
+          Delete
+        </EndpointButton>
+        <RevealSecret endpointId={endpoint.id} url={endpoint.url} />
+      </div>
+      <details className="mt-3">
+        <summary className="cursor-pointer text-sm text-action">Edit</summary>
+        <div className="mt-2">
+          <EndpointForm endpoint={endpoint} />
+        </div>
+      </details>
+    </li>
+  );
+}

@@ -1,0 +1,31 @@
+"use client";
+
+import { ActionForm } from "@/components/forms/action-form";
+import { FormField } from "@/components/forms/form-field";
+import { SubmitButton } from "@/components/forms/submit-button";
+
+import { resendFailedSince } from "../actions";
+
+export type ResendFailedFormProps = { endpoints: { id: string; url: string }[]; defaultSince: string };
+
+export function ResendFailedForm({ endpoints, defaultSince }: ResendFailedFormProps) {
+  return (
+    <ActionForm action={resendFailedSince} label="Resend failed deliveries" className="flex flex-wrap items-end gap-3 rounded border border-rule bg-sheet p-3">
+      <FormField label="Failed since (UTC)" name="since" type="datetime-local" defaultValue={defaultSince} />
+      <label className="block">
+        <span className="mb-1 block text-xs font-medium uppercase tracking-wide text-ink-soft">Endpoint</span>
+        <select name="endpointId" defaultValue="" className="rounded border border-rule bg-sheet px-2 py-1.5 text-sm">
+          <option value="">All endpoints</option>
+          {endpoints.map((e) => (
+            <option key={e.id} value={e.id}>
+              {e.url}
+            </option>
+          ))}
+        </select>
+      </label>
+      <SubmitButton tone="quiet" pendingLabel="Resending…">
+        Resend failed
+      </SubmitButton>
+    </ActionForm>
+  );
+}

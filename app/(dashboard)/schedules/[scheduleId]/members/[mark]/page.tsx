@@ -1,0 +1,133 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+
+import { SafetyCaution } from "@/components/ui/safety-caution";
+import { getMemberResult, getSchedule } from "@/db/queries/schedules";
+import { requirePage } from "@/lib/server/auth/guards";
+import { computeMemberShape } from "@/lib/server/schedules/member-shape";
+
+import { PageHeader } from "../../../../_components/page-header";
+import { categoryLabels, formatCheckKey, formatRatio } from "../../../_components/format";
+import { MemberChecksTable, type MemberCheck } from "../../../_components/member-checks-table";
+import { MemberFrequency, MemberSuggestion, type MemberDetail } from "../../../_components/member-findings";
+import { MemberInputs } from "../../../_components/member-inputs";
+import { MemberRotations } from "../../../_components/member-rotations";
+import { OutcomeLabel } from "../../../_components/outcome-label";
+import { ShapeDiagram } from "../../../_components/shape-diagram";
+
+export const metadata: Metadata = { title: "Member" };
+
+type MemberPageProps = { params: Promise<{ scheduleId: string; mark: string }> };
+
+
+// Next passes the segment percent-encoded; a malformed escape is simply a mark that does not exist.
+function decodeMark(segment: string): string | null {
+  try {
+    return decodeURIComponent(segment);
+  } catch {
+    return null;
+  }
+}
+
+export default async function MemberPage({ params }: MemberPageProps) {
+  const { scheduleId, mark: markSegment } = await params;
+  const context = await requirePage("/schedules/[scheduleId]/members/[mark]", `/schedules/${encodeURIComponent(scheduleId)}/members/${markSegment}`);
+  const schedule = await getSchedule(context.active!.organizationId, scheduleId);
+  const mark = decodeMark(markSegment);
+  if (!schedule || mark === null) notFound();
+  const found = await getMemberResult(schedule.id, mark);
+  if (!found) notFound();
+
+  const { member } = found;
+  const detail = (member.detail ?? null) as MemberDetail | null;
+  const status = detail === null ? "pending" : detail.error ? "error" : member.pass ? "pass" : "fail";
+  const checks: MemberCheck[] = found.checks.map((c) => ({
+    checkKey: c.check_key,
+    combinationId: c.combination_id,
+    spanIndex: c.span_index,
+    spanKind: c.span_kind,
+    deflectionMm: c.deflection_mm,
+    atMm: c.at_mm,
+    allowedMm: c.allowed_mm,
+    utilization: c.utilization,
+    factorOfSafety: c.factor_of_safety,
+    pass: c.pass,
+  }));
+  const nodesMm = [...new Set((detail?.rotations ?? []).map((r) => r.atMm))];
+  // The sampled shape is not stored; the engine re-checks this one member to draw it.
+  const shape = detail && !detail.error ? computeMemberShape(member.header as Record<string, unknown>, member.input) : [];
+
+  return (
+    <>
+      <p className="mb-2 text-xs [overflow-wrap:anywhere]">
+        <Link href="/schedules" className="text-action underline">
+          Schedules
+        </Link>
+        {" / "}
+        <Link href={`/schedules/${schedule.id}`} className="text-action underline">
+          {schedule.name}
+        </Link>
+      </p>
+      {/* Marks and names may be long unbroken strings: let them wrap anywhere rather than widen the page. */}
+      <div className="[&_h1]:[overflow-wrap:anywhere] [&_p]:[overflow-wrap:anywhere]">
+        <PageHeader title={`Member ${member.mark}`} lead={`${categoryLabels[member.category] ?? member.category} · checked against ${schedule.profile.label}`}>
+          <span className="text-base">
+            <OutcomeLabel status={status} />
+          </span>
+        </PageHeader>
+      </div>
+      <SafetyCaution />
+
+      <div className="mt-6 grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+        <div className="min-w-0 space-y-6">
+          {detail?.error ? (
+            <section aria-labelledby="error-heading" className="rounded border border-caution/40 bg-caution-bg p-3 text-caution">
+              <h2 id="error-heading" className="font-semibold">
+                This member could not be checked
+              </h2>
+              <p className="mt-1 [overflow-wrap:anywhere]">{detail.error}</p>
+            </section>
+          ) : null}
+          {detail === null ? <p className="text-ink-soft">The workers have not checked this member yet.</p> : null}
+
+          <section aria-labelledby="checks-heading">
+            <h2 id="checks-heading" className="mb-2 font-semibold">
+              Checks
+            </h2>
+            <p className="mb-2 text-ink-soft">
+              Governing: {formatCheckKey(member.governing_check ?? null)} · utilization {formatRatio(member.utilization ?? null)} · factor of safety{" "}
+              {formatRatio(member.factor_of_safety ?? null)}
+            </p>
+            <MemberChecksTable checks={checks} governingKey={member.governing_check ?? null} />
+          </section>
+
+          <section aria-labelledby="shape-heading">
+            <h2 id="shape-heading" className="mb-2 font-semibold">
+              Deflected shape
+            </h2>
+            <ShapeDiagram shape={shape} nodesMm={nodesMm} />
+          </section>
+
+          <section aria-labelledby="rotations-heading">
+            <h2 id="rotations-heading" className="mb-2 font-semibold">
+              Rotations at the nodes
+            </h2>
+            <MemberRotations rotations={detail?.rotations ?? []} />
+          </section>
+        </div>
+
+        <aside className="min-w-0 space-y-6">
+          <MemberSuggestion status={status} suggestion={detail?.suggestion ?? null} />
+          <MemberFrequency frequency={detail?.frequency ?? null} />
+          <section aria-labelledby="inputs-heading" className="rounded border border-rule bg-sheet p-4">
+            <h2 id="inputs-heading" className="mb-2 font-semibold">
+              Inputs as submitted
+            </h2>
+            <MemberInputs input={(member.input ?? {}) as Record<string, unknown>} />
+          </section>
+        </aside>
+      </div>
+    </>
+  );
+}

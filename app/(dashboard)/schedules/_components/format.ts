@@ -1,0 +1,64 @@
+/** Display formatting for the schedules screens: never prints NaN or Infinity. */
+
+export function formatNumber(value: number | null | undefined, digits = 2): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return "—";
+  return value.toLocaleString("en-GB", { minimumFractionDigits: digits, maximumFractionDigits: digits });
+}
+
+/** A ratio (utilization, factor of safety): two decimals, or two significant figures below 0.1. */
+export function formatRatio(value: number | null | undefined): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return "—";
+  if (value !== 0 && Math.abs(value) < 0.1) return Number(value.toPrecision(2)).toLocaleString("en-GB", { maximumSignificantDigits: 2 });
+  return formatNumber(value, 2);
+}
+
+/** Millimetres with a precision that suits deflections from hundredths to metres. */
+export function formatMm(value: number | null | undefined): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return "—";
+  const digits = Math.abs(value) >= 100 ? 0 : Math.abs(value) >= 10 ? 1 : 2;
+  return formatNumber(value, digits);
+}
+
+/** Second moment of area in mm^4 as mantissa and power of ten (1.234 × 10^7), or null when unusable. */
+export function splitPowerOfTen(value: number | null | undefined): { mantissa: string; exponent: number } | null {
+  if (value === null || value === undefined || !Number.isFinite(value) || value <= 0) return null;
+  const exponent = Math.floor(Math.log10(value));
+  return { mantissa: (value / 10 ** exponent).toFixed(3), exponent };
+}
+
+/** Check keys are `combination@spanIndex` (lib/server/schedules/check-chunk.ts); spans count from 1 for people. */
+export function formatCheckKey(key: string | null): string {
+  if (!key) return "—";
+  const at = key.lastIndexOf("@");
+  if (at < 0) return key;
+  const span = Number(key.slice(at + 1));
+  return Number.isInteger(span) ? `${key.slice(0, at)}, span ${span + 1}` : key;
+}
+
+export function formatDateTime(date: Date | null): string {
+  if (!date) return "—";
+  return `${date.toISOString().slice(0, 16).replace("T", " ")} UTC`;
+}
+
+export function formatPercent(fraction: number): string {
+  if (!Number.isFinite(fraction)) return "0%";
+  return `${Math.floor(Math.min(1, Math.max(0, fraction)) * 100)}%`;
+}
+
+export const scheduleStatusLabels: Record<string, string> = {
+  received: "Received",
+  queued: "Queued",
+  checking: "Checking",
+  completed: "Completed",
+  failed: "Failed",
+};
+
+export const categoryLabels: Record<string, string> = {
+  floor_beam: "Floor beam",
+  roof_beam: "Roof beam",
+  lintel: "Lintel",
+  purlin_girt: "Purlin or girt",
+  wall_stud: "Wall stud",
+  cantilever: "Cantilever",
+  other: "Other",
+};

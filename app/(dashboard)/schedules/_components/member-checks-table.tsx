@@ -1,0 +1,62 @@
+import { formatMm, formatNumber, formatRatio } from "./format";
+import { OutcomeLabel } from "./outcome-label";
+
+export type MemberCheck = {
+  checkKey: string;
+  combinationId: string;
+  spanIndex: number;
+  spanKind: string;
+  deflectionMm: number;
+  atMm: number;
+  allowedMm: number;
+  utilization: number;
+  factorOfSafety: number | null;
+  pass: boolean;
+};
+
+export type MemberChecksTableProps = { checks: MemberCheck[]; governingKey: string | null };
+
+export function MemberChecksTable({ checks, governingKey }: MemberChecksTableProps) {
+  if (checks.length === 0) return <p className="text-ink-soft">No checks were recorded for this member.</p>;
+  return (
+    <div className="overflow-x-auto rounded border border-rule bg-sheet">
+      <table className="w-full min-w-[44rem] border-collapse text-left">
+        <caption className="sr-only">Every deflection check of this member</caption>
+        <thead className="text-xs uppercase tracking-wide text-ink-soft">
+          <tr className="border-b border-rule">
+            <th scope="col" className="px-3 py-2 font-medium">Combination</th>
+            <th scope="col" className="px-3 py-2 font-medium">Span</th>
+            <th scope="col" className="px-3 py-2 text-right font-medium">Deflection (mm)</th>
+            <th scope="col" className="px-3 py-2 text-right font-medium">At x (m)</th>
+            <th scope="col" className="px-3 py-2 text-right font-medium">Allowed (mm)</th>
+            <th scope="col" className="px-3 py-2 text-right font-medium">Utilization</th>
+            <th scope="col" className="px-3 py-2 text-right font-medium">Factor of safety</th>
+            <th scope="col" className="px-3 py-2 font-medium">Result</th>
+          </tr>
+        </thead>
+        <tbody>
+          {checks.map((c) => (
+            <tr key={c.checkKey} className={`border-t border-rule ${c.pass ? "" : "bg-red-50 [&>*:first-child]:border-l-4 [&>*:first-child]:border-l-fail"}`}>
+              <th scope="row" className="px-3 py-1.5 font-medium [overflow-wrap:anywhere]">
+                {c.combinationId}
+                {c.checkKey === governingKey ? <span className="block text-xs font-normal text-ink-soft">governing</span> : null}
+              </th>
+              <td className="px-3 py-1.5">
+                {c.spanIndex + 1}
+                {c.spanKind === "cantilever" ? <span className="text-ink-soft"> · cantilever</span> : null}
+              </td>
+              <td className="px-3 py-1.5 text-right">{formatMm(c.deflectionMm)}</td>
+              <td className="px-3 py-1.5 text-right">{formatNumber(c.atMm / 1000, 3)}</td>
+              <td className="px-3 py-1.5 text-right">{formatMm(c.allowedMm)}</td>
+              <td className={`px-3 py-1.5 text-right ${c.pass ? "" : "font-semibold"}`}>{formatRatio(c.utilization)}</td>
+              <td className="px-3 py-1.5 text-right">{formatRatio(c.factorOfSafety)}</td>
+              <td className="px-3 py-1.5">
+                <OutcomeLabel status={c.pass ? "pass" : "fail"} />
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,70 @@
+import { formatNumber, splitPowerOfTen } from "./format";
+import { OutcomeLabel } from "./outcome-label";
+
+/** The engine's stored extras for one member (lib/server/schedules/check-chunk.ts). */
+export type MemberDetail = {
+  rotations: { combinationId: string; nodeIndex: number; atMm: number; rotationRad: number }[];
+  frequency: { hz: number; minHz: number; pass: boolean; method: string } | null;
+  suggestion: { minIMm4: number; sectionName: string | null } | null;
+  error: string | null;
+};
+
+function PowerOfTen({ value }: { value: number }) {
+  const split = splitPowerOfTen(value);
+  if (!split) return <>—</>;
+  return (
+    <>
+{split.mantissa} × 10<sup>{split.exponent}</sup>
+    </>
+  );
+}
+
+export type MemberSuggestionProps = { status: "pass" | "fail" | "error" | "pending"; suggestion: MemberDetail["suggestion"] };
+
+export function MemberSuggestion({ status, suggestion }: MemberSuggestionProps) {
+  return (
+    <section aria-labelledby="suggestion-heading" className="rounded border border-rule bg-sheet p-4">
+      <h2 id="suggestion-heading" className="mb-2 font-semibold">
+        Suggestion
+      </h2>
+      {status === "pass" ? (
+        <p>Every check passes; no stiffer section is needed.</p>
+      ) : suggestion ? (
+        <dl className="space-y-2">
+          <div>
+            <dt className="text-xs font-medium uppercase tracking-wide text-ink-soft">Minimum second moment of area</dt>
+            <dd>
+              <PowerOfTen value={suggestion.minIMm4} /> mm<sup>4</sup> <span className="text-ink-soft">(the same in every span)</span>
+            </dd>
+          </div>
+          <div>
+            <dt className="text-xs font-medium uppercase tracking-wide text-ink-soft">Lightest catalogue section that passes</dt>
+            <dd className="[overflow-wrap:anywhere]">{suggestion.sectionName ?? "None found (no catalogue was supplied, or no section in it passes)."}</dd>
+          </div>
+        </dl>
+      ) : (
+        <p className="text-ink-soft">No suggestion is available for this member.</p>
+      )}
+    </section>
+  );
+}
+
+export type MemberFrequencyProps = { frequency: MemberDetail["frequency"] };
+
+export function MemberFrequency({ frequency }: MemberFrequencyProps) {
+  return (
+    <section aria-labelledby="frequency-heading" className="rounded border border-rule bg-sheet p-4">
+      <h2 id="frequency-heading" className="mb-2 font-semibold">
+        First natural frequency
+      </h2>
+      {frequency ? (
+        <p>
+          {formatNumber(frequency.hz)} Hz against a minimum of {formatNumber(frequency.minHz)} Hz ({frequency.method === "exact" ? "exact solution" : "Rayleigh estimate"}){" "}
+          <OutcomeLabel status={frequency.pass ? "pass" : "fail"} />
+        </p>
+      ) : (
+        <p className="text-ink-soft">The limit profile does not ask for a frequency check.</p>
+      )}
+    </section>
+  );
+}

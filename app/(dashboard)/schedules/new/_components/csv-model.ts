@@ -1,0 +1,236 @@
+/**
+ * The upload page's CSV work, in the browser: read the file strictly as UTF-8, split it with
+ * papaparse using the delimiter the person chose, map their headers onto Sagline's columns, check
+ * every row with the same row mapper the server uses, and write the mapped CSV to send.
+ */
+import Papa from "papaparse";
+
+import { parseSchedule } from "@/lib/engine/intake";
+import { getPreset, listProfileLoadCases } from "@/lib/engine/presets";
+import { QUANTITY_KIND_LABELS, SYSTEM_DEFAULT_UNITS, type QuantityKind, type UnitSystem } from "@/lib/engine/units";
+import { createCsvRowMapper, mapIssueToCsvRow, stripBom, type CsvRowError, type CsvRowPlace, type PublicMember } from "@/lib/schedule-csv";
+import { FIXED_COLUMNS, LOAD_COLUMNS, getColumnRole, splitHeader } from "@/lib/schedule-csv/columns";
+
+export type DelimiterName = "comma" | "semicolon" | "tab";
+export const DELIMITERS: Record<DelimiterName, { char: "," | ";" | "\t"; label: string }> = {
+  comma: { char: ",", label: "Comma ( , )" },
+  semicolon: { char: ";", label: "Semicolon ( ; )" },
+  tab: { char: "\t", label: "Tab" },
+};
+
+export interface CsvRecord {
+  fields: string[];
+  /** Spreadsheet row: header 1, first member 2. */
+  row: number;
+  /** Physical line the record starts on. */
+  line: number;
+}
+
+export type ParsedCsv = { ok: true; header: CsvRecord; records: CsvRecord[] } | { ok: false; errors: CsvRowError[] };
+
+/** Decodes the file's bytes; anything but UTF-8 is refused (never silently replaced with "?"). */
+export function decodeCsvBytes(bytes: ArrayBuffer): { ok: true; text: string } | { ok: false; message: string } {
+  try {
+    return { ok: true, text: stripBom(new TextDecoder("utf-8", { fatal: true }).decode(bytes)) };
+  } catch {
+    return { ok: false, message: "The file is not UTF-8 text. Save it as CSV UTF-8 from your spreadsheet program and choose it again." };
+  }
+}
+
+/** A suggestion only: the delimiter seen most often on the first line. The person decides. */
+export function suggestDelimiter(text: string): DelimiterName | null {
+  const firstLine = text.split(/\r\n|\n|\r/, 1)[0] ?? "";
+  const counts = (Object.keys(DELIMITERS) as DelimiterName[]).map((name) => ({ name, count: firstLine.split(DELIMITERS[name].char).length - 1 }));
+  const best = counts.sort((a, b) => b.count - a.count)[0];
+  return best && best.count > 0 ? best.name : null;
+}
+
+/**
+ * Splits the text into records with their row and starting line. Line ends are made uniform first
+ * (CRLF and a lone CR become LF, quoted ones too), because papaparse takes one line-end style per
+ * file while the server's tokenizer takes all three; each counts as one line either way.
+ */
+export function parseCsvText(text: string, delimiter: DelimiterName): ParsedCsv {
+  const uniform = stripBom(text).replace(/\r\n?/g, "\n");
+  const records: CsvRecord[] = [];
+  const errors: CsvRowError[] = [];
+  let start = 0;
+  let line = 1;
+  Papa.parse<string[]>(uniform, {
+    delimiter: DELIMITERS[delimiter].char,
+    newline: "\n",
+    skipEmptyLines: false,
+    step: (result) => {
+      const row = records.length + 1;
+      for (const e of result.errors) {
+        if (e.code === "MissingQuotes") errors.push({ row, line, column: "", code: "unterminated_quote", message: "a quoted field is not closed" });
+      }
+      records.push({ fields: result.data, row, line });
+      const end = result.meta.cursor;
+      for (let i = start; i < end; i++) if (uniform.charCodeAt(i) === 10) line++;
+      start = end;
+    },
+  });
+  // A final line break does not start another record.
+  const last = records.at(-1);
+  if (last && last.fields.length === 1 && last.fields[0] === "" && uniform.endsWith("\n")) records.pop();
+  if (errors.length > 0) return { ok: false, errors };
+  const [header, ...rest] = records;
+  if (!header || header.fields.every((f) => f.trim() === "")) return { ok: false, errors: [{ row: 1, line: 1, column: "", code: "empty_file", message: "the file has no header row" }] };
+  return { ok: true, header, records: rest };
+}
+
+export interface HeaderInfo {
+  index: number;
+  original: string;
+  /** The Sagline column the header already names, or null when the person must choose. */
+  knownName: string | null;
+  /** Unit written in the header's brackets. */
+  headerUnit: string | null;
+}
+
+export function describeHeaders(fields: readonly string[]): HeaderInfo[] {
+  return fields.map((original, index) => {
+    const parts = splitHeader(original);
+    const knownName = parts && parts.name !== "" && getColumnRole(parts.name) ? parts.name : null;
+    return { index, original, knownName, headerUnit: parts?.unit ?? null };
+  });
+}
+
+/** The quantity kind a Sagline column holds, or null for text, list and yes/no columns. */
+export function getColumnKind(name: string): QuantityKind | null {
+  return getColumnRole(name)?.spec.quantity ?? null;
+}
+
+const MAX_OFFERED_SPANS = 12;
+
+/** Column names offered for an unknown header: fixed columns, spans, and loads for the preset's cases. */
+export function listTargetColumns(presetId: string | null): { group: string; names: string[] }[] {
+  const preset = presetId ? getPreset(presetId) : null;
+  const cases = [...new Set(["dead", ...(preset ? listProfileLoadCases(preset) : ["live"])])];
+  return [
+    { group: "Member", names: Object.keys(FIXED_COLUMNS) },
+    { group: "Spans", names: Array.from({ length: MAX_OFFERED_SPANS }, (_, i) => `span_${i + 1}`) },
+    ...cases.map((c) => ({ group: `Loads, case ${c}`, names: Object.keys(LOAD_COLUMNS).map((load) => `${c}_${load}`) })),
+  ];
+}
+
+export const IGNORE = "__ignore__";
+
+export interface MappingChoices {
+  /** Per header index: a Sagline column name, IGNORE, or "" (not chosen yet). */
+  targets: Record<number, string>;
+  /** Per header index: a unit for a quantity column whose header has none ("" = the schedule's default). */
+  units: Record<number, string>;
+  system: UnitSystem | null;
+}
+
+export interface MappedHeader {
+  header: string[];
+  /** Original column index of each mapped column. */
+  keep: number[];
+  /** Mapped header text -> the person's own header, to name their column in messages. */
+  originOf: Record<string, string>;
+  problems: CsvRowError[];
+}
+
+/** Writes the header Sagline reads: `name [unit]` for each kept column, in the original order. */
+export function buildMappedHeader(headers: HeaderInfo[], choices: MappingChoices): MappedHeader {
+  const header: string[] = [];
+  const keep: number[] = [];
+  const originOf: Record<string, string> = {};
+  const problems: CsvRowError[] = [];
+  for (const h of headers) {
+    const target = h.knownName ?? choices.targets[h.index] ?? "";
+    if (target === IGNORE) continue;
+    if (target === "") {
+      problems.push({ row: 1, line: 1, column: h.original, code: "unmapped_column", message: `choose the Sagline column "${h.original}" holds, or Ignore` });
+      continue;
+    }
+    const kind = getColumnKind(target);
+    const unit = h.headerUnit ?? (kind ? choices.units[h.index] || null : null);
+    if (kind && !unit && !choices.system) {
+      problems.push({ row: 1, line: 1, column: h.original, code: "missing_unit", message: `choose a ${QUANTITY_KIND_LABELS[kind]} unit for "${h.original}", or a unit system` });
+    }
+    const text = unit ? `${target} [${unit}]` : target;
+    header.push(text);
+    keep.push(h.index);
+    originOf[text] = h.original;
+  }
+  return { header, keep, originOf, problems };
+}
+
+export function describeDefaultUnit(kind: QuantityKind, system: UnitSystem | null): string {
+  return system ? `${system} default (${SYSTEM_DEFAULT_UNITS[system][kind]})` : "choose a unit";
+}
+
+export interface ValidationInput {
+  parsed: Extract<ParsedCsv, { ok: true }>;
+  mapped: MappedHeader;
+  system: UnitSystem | null;
+  presetId: string;
+  name: string;
+  reference: string;
+}
+
+export type ValidationResult = { ok: true; memberCount: number } | { ok: false; errors: CsvRowError[] };
+
+/**
+ * Every row through the server's row mapper, then the whole schedule through intake (the same
+ * first checks the server makes); every problem is listed with row, line and column.
+ */
+export function validateSchedule({ parsed, mapped, system, presetId, name, reference }: ValidationInput): ValidationResult {
+  const only = parsed.header.fields.length === 1 ? (parsed.header.fields[0] ?? "") : "";
+  const other = (Object.keys(DELIMITERS) as DelimiterName[]).find((d) => only.includes(DELIMITERS[d].char));
+  if (other) {
+    const message = `the header is a single column containing ${other === "tab" ? "tabs" : `"${DELIMITERS[other].char}"`}: choose ${DELIMITERS[other].label.toLowerCase()} as the delimiter`;
+    return { ok: false, errors: [{ row: 1, line: 1, column: "", code: "wrong_delimiter", message }] };
+  }
+  if (mapped.problems.length > 0) return { ok: false, errors: mapped.problems };
+  const width = parsed.header.fields.length;
+  const units = system ? { system } : {};
+  const created = createCsvRowMapper(mapped.header, { units });
+  if (!created.ok) return { ok: false, errors: created.errors.map((e) => ({ ...e, line: parsed.header.line })) };
+  const errors: CsvRowError[] = [];
+  const members: PublicMember[] = [];
+  const places: CsvRowPlace[] = [];
+  for (const record of parsed.records) {
+    if (record.fields.every((f) => f.trim() === "")) continue;
+    // Counted on the file as written: dropping ignored columns must not hide a short row.
+    if (record.fields.length !== width) {
+      errors.push({ row: record.row, line: record.line, column: "", code: "field_count", message: `the row has ${record.fields.length} fields but the header has ${width}` });
+      continue;
+    }
+    const where = { row: record.row, line: record.line };
+    const result = created.mapper.mapRow(mapped.keep.map((i) => record.fields[i] ?? ""), where);
+    if (!result.ok) errors.push(...result.errors);
+    else if (result.member) {
+      members.push(result.member);
+      places.push(result.sources ? { ...where, sources: result.sources } : where);
+    }
+  }
+  if (errors.length > 0) return { ok: false, errors };
+  if (members.length === 0) return { ok: false, errors: [{ row: 2, column: "", code: "no_rows", message: "the file has no member rows" }] };
+  const doc = { format: "sagline.schedule/v1", name, ...(reference ? { reference } : {}), units, limits: { preset: presetId }, members };
+  const intake = parseSchedule(doc);
+  if (!intake.ok) return { ok: false, errors: intake.issues.map((issue) => mapIssueToCsvRow(issue, places)) };
+  return { ok: true, memberCount: members.length };
+}
+
+/**
+ * The server numbers the rows of the CSV it was sent; rows are kept one for one, so a row number
+ * is the person's, but lines are taken from their file (dropped columns may have held line breaks).
+ */
+export function relineErrors<E extends { row?: number; line?: number }>(errors: E[], parsed: Extract<ParsedCsv, { ok: true }>): E[] {
+  const lineOfRow = new Map<number, number>([[1, parsed.header.line], ...parsed.records.map((r): [number, number] => [r.row, r.line])]);
+  return errors.map((e) => {
+    const line = e.row === undefined ? undefined : lineOfRow.get(e.row);
+    return line === undefined ? e : { ...e, line };
+  });
+}
+
+/** The CSV that is sent: the mapped header and the kept columns, in the chosen delimiter. */
+export function writeMappedCsv(parsed: Extract<ParsedCsv, { ok: true }>, mapped: MappedHeader, delimiter: DelimiterName): string {
+  const rows = [mapped.header, ...parsed.records.map((r) => (r.fields.length === 1 && r.fields[0] === "" ? [""] : mapped.keep.map((i) => r.fields[i] ?? "")))];
+  return Papa.unparse(rows, { delimiter: DELIMITERS[delimiter].char, newline: "\r\n", quotes: false, escapeFormulae: false }) + "\r\n";
+}

@@ -1,0 +1,120 @@
+import { getSql } from "@/db/client";
+
+export interface ScheduleRow {
+  id: string;
+  name: string;
+  reference: string | null;
+  status: string;
+  failureReason: string | null;
+  source: string;
+  profile: { id: string; label: string; source: string };
+  memberCount: number;
+  checkedCount: number;
+  passCount: number;
+  failCount: number;
+  errorCount: number;
+  createdAt: Date;
+  completedAt: Date | null;
+}
+
+const scheduleColumns = `id, name, reference, status, failure_reason, source, profile, member_count, checked_count, pass_count, fail_count,
+  error_count, created_at, completed_at`;
+
+function toScheduleRow(r: Record<string, unknown>): ScheduleRow {
+  const profile = r.profile as { id: string; label: string; source: string };
+  return {
+    id: r.id as string,
+    name: r.name as string,
+    reference: (r.reference as string | null) ?? null,
+    status: r.status as string,
+    failureReason: (r.failure_reason as string | null) ?? null,
+    source: r.source as string,
+    profile: { id: profile.id, label: profile.label, source: profile.source },
+    memberCount: r.member_count as number,
+    checkedCount: r.checked_count as number,
+    passCount: r.pass_count as number,
+    failCount: r.fail_count as number,
+    errorCount: r.error_count as number,
+    // unsafe() queries may hand timestamps back as text; normalise to Date either way.
+    createdAt: new Date(r.created_at as string | Date),
+    completedAt: r.completed_at ? new Date(r.completed_at as string | Date) : null,
+  };
+}
+
+/** Another organization's schedule reads exactly like a missing one: null. */
+export async function getSchedule(organizationId: string, scheduleId: string): Promise<ScheduleRow | null> {
+  const [row] = await getSql().unsafe(`select ${scheduleColumns} from schedules where organization_id = $1 and id = $2`, [organizationId, scheduleId]);
+  return row ? toScheduleRow(row) : null;
+}
+
+/** Newest first, keyset-paginated on (created_at, id). */
+export async function listSchedules(organizationId: string, options: { limit: number; after?: { createdAt: string; id: string } }) {
+  const sql = getSql();
+  const rows = options.after
+    ? await sql.unsafe(
+        `select ${scheduleColumns} from schedules where organization_id = $1 and (created_at, id) < ($2::timestamptz, $3) order by created_at desc, id desc limit $4`,
+        [organizationId, options.after.createdAt, options.after.id, options.limit + 1],
+      )
+    : await sql.unsafe(`select ${scheduleColumns} from schedules where organization_id = $1 order by created_at desc, id desc limit $2`, [organizationId, options.limit + 1]);
+  const page = rows.slice(0, options.limit).map(toScheduleRow);
+  return { rows: page, hasMore: rows.length > options.limit };
+}
+
+export type ResultStatus = "pass" | "fail" | "error";
+
+export interface ResultRow {
+  memberIndex: number;
+  mark: string;
+  category: string;
+  status: ResultStatus;
+  governingCheck: string | null;
+  utilization: number | null;
+  factorOfSafety: number | null;
+}
+
+/** Members in schedule order, keyset-paginated on member_index, filtered by outcome and category. */
+export async function listResults(
+  scheduleId: string,
+  options: { limit: number; afterIndex?: number; status?: ResultStatus; category?: string },
+): Promise<{ rows: ResultRow[]; hasMore: boolean }> {
+  const sql = getSql();
+  const statusFilter =
+    options.status === "pass"
+      ? sql`and pass`
+      : options.status === "fail"
+        ? sql`and not pass and detail->>'error' is null`
+        : options.status === "error"
+          ? sql`and detail->>'error' is not null`
+          : sql``;
+  const rows = await sql`
+    select member_index, mark, category, pass, governing_check, utilization, factor_of_safety, detail->>'error' as error
+    from member_outcomes
+    where schedule_id = ${scheduleId} and member_index > ${options.afterIndex ?? -1}
+      ${statusFilter} ${options.category ? sql`and category = ${options.category}` : sql``}
+    order by member_index
+    limit ${options.limit + 1}`;
+  const page = rows.slice(0, options.limit).map((r) => ({
+    memberIndex: r.member_index as number,
+    mark: r.mark as string,
+    category: r.category as string,
+    status: (r.error ? "error" : r.pass ? "pass" : "fail") as ResultStatus,
+    governingCheck: (r.governing_check as string | null) ?? null,
+    utilization: (r.utilization as number | null) ?? null,
+    factorOfSafety: (r.factor_of_safety as number | null) ?? null,
+  }));
+  return { rows: page, hasMore: rows.length > options.limit };
+}
+
+export async function getMemberResult(scheduleId: string, mark: string) {
+  const sql = getSql();
+  const [member] = await sql`
+    select m.member_index, m.mark, m.category, m.input, s.header, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.detail
+    from schedule_members m join schedules s on s.id = m.schedule_id
+      left join member_outcomes o on o.schedule_id = m.schedule_id and o.member_index = m.member_index
+    where m.schedule_id = ${scheduleId} and m.mark = ${mark}`;
+  if (!member) return null;
+  const checks = await sql`
+    select check_key, combination_id, span_index, span_kind, deflection_mm, at_mm, allowed_mm, utilization, factor_of_safety, pass
+    from member_checks where schedule_id = ${scheduleId} and member_index = ${member.member_index} order by check_key`;
+  return { member, checks };
+}

@@ -1,0 +1,40 @@
+#!/usr/bin/env bash
+# npm run bench:pipeline: the same bootstrap as npm test on its own database and ports, then the
+# pipeline benchmark (tests/bench/pipeline.bench.ts). Stops only what it started.
+source "$(dirname "$0")/lib.sh"
+source "$(dirname "$0")/processes.sh"
+cd "$ROOT"
+bash docker-local/ensure-packages.sh
+bash docker-local/ensure-node-modules.sh
+bash docker-local/postgres.sh start sagline_bench
+bash docker-local/redis.sh start
+
+RUN="$LOCAL_DIR/run-bench"
+mkdir -p "$RUN" "$LOCAL_DIR/logs"
+BENCH_APP_PORT="${SAGLINE_BENCH_APP_PORT:-3796}"
+export NODE_ENV=production
+export DATABASE_URL="postgres://sagline:${SAGLINE_DB_PASSWORD:-sagline-local}@127.0.0.1:$PG_PORT/sagline_bench"
+export REDIS_URL="redis://127.0.0.1:$REDIS_PORT/7"
+export REDIS_PREFIX="sagline-bench"
+export APP_URL="http://127.0.0.1:$BENCH_APP_PORT"
+export NEXTAUTH_URL="$APP_URL"
+export NEXTAUTH_SECRET="$(ensure_secret nextauth-bench)"
+export SAGLINE_FAKES=0 SMTP_HOST=127.0.0.1 SMTP_PORT=2599
+export SAGLINE_DIST_DIR=.next-bench
+export NEXT_TELEMETRY_DISABLED=1
+export SAGLINE_RUN_DIR="$RUN"
+
+cleanup() { for name in web worker worker-2; do stop_process "$name" "$RUN"; done; }
+trap cleanup EXIT
+
+PGOPTIONS="--client-min-messages=warning" psql -X -q -v ON_ERROR_STOP=1 "$DATABASE_URL" -c "drop schema if exists public cascade; drop schema if exists drizzle cascade; create schema public;"
+redis-cli -h 127.0.0.1 -p "$REDIS_PORT" -n 7 flushdb >/dev/null
+npx tsx db/migrate.ts
+npx tsx db/seed.ts >/dev/null
+build_web_if_needed "$SAGLINE_DIST_DIR"
+# Two worker processes, one per core, as README's scaling section describes.
+start_process worker "$RUN" "$LOCAL_DIR/logs/bench-worker.log" npx tsx workers/index.ts
+start_process worker-2 "$RUN" "$LOCAL_DIR/logs/bench-worker-2.log" npx tsx workers/index.ts
+start_process web "$RUN" "$LOCAL_DIR/logs/bench-web.log" npx next start -H 127.0.0.1 -p "$BENCH_APP_PORT"
+wait_for_url "$APP_URL/api/health" 60
+npx tsx tests/bench/pipeline.bench.ts

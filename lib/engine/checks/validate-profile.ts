@@ -1,0 +1,67 @@
+import type { Combination, InputIssue, LimitProfile, Member } from "../model";
+
+function isPositiveFinite(value: unknown): value is number {
+  return typeof value === "number" && Number.isFinite(value) && value > 0;
+}
+
+function collectFactorIssues(factors: Record<string, number> | undefined, parentPath: string, field: string, issues: InputIssue[]): void {
+  if (factors === undefined) return;
+  if (typeof factors !== "object" || factors === null) {
+    issues.push({ path: `${parentPath}.${field}`, message: "factors must be an object of load case name to number" });
+    return;
+  }
+  for (const name in factors) {
+    const value = factors[name];
+    // the path is built only for a bad value: this runs for every member
+    if (typeof value !== "number" || !Number.isFinite(value)) issues.push({ path: `${parentPath}.${field}.${name}`, message: "factor must be a finite number" });
+  }
+}
+
+function hasEarlierId(combinations: Combination[], index: number): boolean {
+  const id = combinations[index]!.id;
+  for (let k = 0; k < index; k++) if (combinations[k]!.id === id) return true;
+  return false;
+}
+
+/**
+ * The creep factor a combination applies to its sustained part: the member material's for
+ * "material", the given number otherwise, 0 when absent (Combination doc in model.ts).
+ */
+export function getCreepFactor(combination: Combination, member: Member): number {
+  if (combination.creep === "material") return member.materialCreepFactor ?? 0;
+  return combination.creep ?? 0;
+}
+
+/**
+ * Lists problems in a limit profile (paths relative to the profile) and in its use by the member
+ * (a "material" creep combination on a member with no creep factor).
+ */
+export function collectProfileIssues(profile: LimitProfile, member: Member): InputIssue[] {
+  const issues: InputIssue[] = [];
+  if (!isPositiveFinite(profile.cantileverSpanMultiplier)) issues.push({ path: "cantileverSpanMultiplier", message: "the cantilever span multiplier must be a positive finite number" });
+  if (!Array.isArray(profile.combinations)) {
+    issues.push({ path: "combinations", message: "a limit profile needs a list of combinations" });
+    return issues;
+  }
+  const combinations = profile.combinations;
+  for (let index = 0; index < combinations.length; index++) {
+    const combination = combinations[index]!;
+    const path = `combinations[${index}]`;
+    if (typeof combination.id !== "string" || combination.id === "") issues.push({ path: `${path}.id`, message: "a combination needs an id" });
+    else if (hasEarlierId(combinations, index)) issues.push({ path: `${path}.id`, message: `duplicate combination id "${combination.id}"` });
+    if (!isPositiveFinite(combination.limitRatio)) issues.push({ path: `${path}.limitRatio`, message: "the limit ratio (span / N) must be a positive finite number" });
+    if (combination.capMm !== undefined && !isPositiveFinite(combination.capMm)) issues.push({ path: `${path}.capMm`, message: "the deflection cap must be a positive finite number (mm)" });
+    collectFactorIssues(combination.factors, path, "factors", issues);
+    collectFactorIssues(combination.sustainedFactors, path, "sustainedFactors", issues);
+    if (combination.creep === "material") {
+      if (member.materialCreepFactor === undefined) issues.push({ path: `${path}.creep`, message: `combination "${combination.id}" uses the material's creep factor but the member has no materialCreepFactor` });
+    } else if (combination.creep !== undefined && !(typeof combination.creep === "number" && Number.isFinite(combination.creep) && combination.creep >= 0)) {
+      issues.push({ path: `${path}.creep`, message: "creep factor must be \"material\" or a finite number >= 0" });
+    }
+  }
+  if (profile.frequency !== undefined) {
+    if (!isPositiveFinite(profile.frequency.minHz)) issues.push({ path: "frequency.minHz", message: "the minimum frequency must be a positive finite number (Hz)" });
+    collectFactorIssues(profile.frequency.massFactors, "frequency", "massFactors", issues);
+  }
+  return issues;
+}

@@ -1,0 +1,107 @@
+import type { CatalogueSection, InputIssue, LimitProfile, Member } from "../model";
+import { listProfileLoadCases } from "../presets";
+import { createCatalogueIndex } from "../sections";
+import type { UnitSystem } from "../units";
+import { readMember, type MemberOrigins } from "./read-member";
+import { readLimits } from "./read-profile";
+import { readUnits } from "./read-units";
+import { childPath, createFieldSpec, IssueCollector, joinPath, readObject, readString, type ReadContext } from "./read-values";
+
+/** The public format's identifier; a breaking change gets a new one. */
+export const SCHEDULE_FORMAT = "sagline.schedule/v1";
+export const MAX_MEMBERS = 100_000;
+const DEFAULT_MAX_ISSUES = 1000;
+const ROOT_SPEC = createFieldSpec(["format", "name", "reference", "notes", "units", "limits", "members"], ["format", "name", "units", "limits", "members"]);
+
+export interface ParseScheduleOptions {
+  /** Sections that `section: "name"` may refer to. */
+  catalogue?: readonly CatalogueSection[];
+  /** Stop recording after this many issues (the count of the rest is reported). Default 1000. */
+  maxIssues?: number;
+}
+
+export interface ParsedSchedule {
+  format: typeof SCHEDULE_FORMAT;
+  name: string;
+  reference: string | null;
+  unitSystem: UnitSystem | null;
+  /** The unit text per kind that bare numbers took, for echoing results in the schedule's units. */
+  unitDefaults: Record<string, string>;
+  profile: LimitProfile;
+  /** One per public member, same order: members[i] came from the path `members[i]`. */
+  members: Member[];
+  /** Per member, the public path of each engine span and support (overhangs become spans). */
+  origins: MemberOrigins[];
+}
+
+export type ParseScheduleResult = { ok: true; schedule: ParsedSchedule } | { ok: false; issues: InputIssue[] };
+
+/**
+ * Validates a public schedule document (already JSON-parsed) and converts it to the engine
+ * model in internal units (mm, N, MPa; model.ts). Collects every problem, each with the path of
+ * the field in the public format, e.g. `members[12].spans[1].length: must be greater than 0`.
+ * Nothing is defaulted silently and no non-finite number passes.
+ */
+export function parseSchedule(doc: unknown, options: ParseScheduleOptions = {}): ParseScheduleResult {
+  const issues = new IssueCollector(options.maxIssues ?? DEFAULT_MAX_ISSUES);
+  const ctx: ReadContext = { issues, units: { system: null, byKind: {} } };
+  const root = readObject(ctx, doc, "", ROOT_SPEC);
+  if (!root) return { ok: false, issues: finishIssues(issues) };
+  if (root.format !== undefined && root.format !== SCHEDULE_FORMAT) issues.add("format", `must be "${SCHEDULE_FORMAT}"`);
+  const name = root.name === undefined ? null : readString(ctx, root.name, "name", 200);
+  const reference = root.reference === undefined ? null : readString(ctx, root.reference, "reference", 200);
+  if (root.notes !== undefined) readString(ctx, root.notes, "notes", 5000);
+  if (root.units !== undefined) ctx.units = readUnits(ctx, root.units, "units");
+  const profile = root.limits === undefined ? null : readLimits(ctx, root.limits, "limits");
+
+  const members: Member[] = [];
+  const origins: MemberOrigins[] = [];
+  const membersValue = root.members;
+  if (membersValue !== undefined && (!Array.isArray(membersValue) || membersValue.length === 0 || membersValue.length > MAX_MEMBERS)) {
+    issues.add("members", `must be an array of 1 to ${MAX_MEMBERS} members`);
+  } else if (Array.isArray(membersValue)) {
+    const facts = profile
+      ? { id: profile.id, cases: listProfileLoadCases(profile), usesCreep: profile.combinations.some((c) => c.creep === "material") }
+      : { id: "(invalid)", cases: null, usesCreep: false };
+    const findCatalogue = createCatalogueIndex(options.catalogue ?? []);
+    // Indices, not path strings: the first member's path is only spelled out for a duplicate.
+    const firstIndexByMark = new Map<string, number>();
+    for (let index = 0; index < membersValue.length; index++) {
+      const entry: unknown = membersValue[index];
+      const path = joinPath("members", index);
+      const read = readMember(ctx, entry, path, facts, findCatalogue);
+      const markValue = typeof entry === "object" && entry !== null ? (entry as Record<string, unknown>).mark : undefined;
+      const mark = typeof markValue === "string" ? markValue.trim() : "";
+      if (mark !== "") {
+        const first = firstIndexByMark.get(mark);
+        if (first !== undefined) issues.add(childPath(path, "mark"), `duplicate mark "${mark}" (first at ${joinPath("members", first)})`);
+        else firstIndexByMark.set(mark, index);
+      }
+      if (read) {
+        members.push(read.member);
+        origins.push(read.origins);
+      }
+    }
+  }
+  if (issues.count > 0 || !profile || name === null) return { ok: false, issues: finishIssues(issues) };
+  return {
+    ok: true,
+    schedule: {
+      format: SCHEDULE_FORMAT,
+      name,
+      reference,
+      unitSystem: ctx.units.system,
+      unitDefaults: { ...ctx.units.byKind },
+      profile,
+      members,
+      origins,
+    },
+  };
+}
+
+function finishIssues(issues: IssueCollector): InputIssue[] {
+  const list = [...issues.issues];
+  if (issues.dropped > 0) list.push({ path: "", message: `${issues.dropped} more issues not listed` });
+  if (list.length === 0) list.push({ path: "", message: "the schedule is not valid" });
+  return list;
+}

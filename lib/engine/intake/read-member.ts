@@ -1,0 +1,348 @@
+import type { Load, Member, MemberCategory, SpanSegment, Support } from "../model";
+import type { Material } from "../materials";
+import { MAX_LOADS_PER_MEMBER, readLoad } from "./read-loads";
+import { readMaterial, resolveCreepFactor } from "./read-material";
+import { readSection, type ResolvedSection } from "./read-section";
+import {
+  childPath,
+  createFieldSpec,
+  isJsonObject,
+  isQuantityObject,
+  readBoolean,
+  readEnum,
+  readInteger,
+  readObject,
+  readQuantity,
+  readString,
+  type FieldPath,
+  type FindCatalogue,
+  type ReadContext,
+} from "./read-values";
+
+export const MEMBER_CATEGORIES: readonly MemberCategory[] = ["floor_beam", "roof_beam", "lintel", "purlin_girt", "wall_stud", "cantilever", "other"];
+export const MAX_SPANS_PER_MEMBER = 50;
+const SUPPORT_KINDS = ["pinned", "roller", "fixed", "free", "spring"] as const;
+const MEMBER_SPEC = createFieldSpec(
+  ["mark", "category", "quantity", "material", "creep", "section", "spans", "overhangs", "supports", "loads", "selfWeight", "shearDeformation", "notes"],
+  ["mark", "category", "quantity", "material", "section", "spans", "supports", "loads"],
+);
+const SEGMENT_SPEC = createFieldSpec(["length", "section", "material"], ["length"]);
+const OVERHANGS_SPEC = createFieldSpec(["left", "right"]);
+const SUPPORT_SPEC = createFieldSpec(["kind", "stiffness"], ["kind"]);
+
+// Every valid member keeps the public path of each span and support (its origins). Each is the
+// member's path plus a suffix that many members share, so building one is a single `+`.
+const LEFT_OVERHANG_SUFFIX = ".overhangs.left";
+const RIGHT_OVERHANG_SUFFIX = ".overhangs.right";
+const SUFFIX_CACHE_LIMIT = 64;
+const spanSuffixes: string[] = [];
+const supportSuffixes: string[] = [];
+
+/** `.spans[2]` for ("spans", 2): the text joinPath gives below a member, cached per index. */
+function getIndexSuffix(cache: string[], field: string, index: number): string {
+  let suffix = cache[index];
+  if (suffix === undefined) {
+    suffix = `.${field}[${index}]`;
+    if (index < SUFFIX_CACHE_LIMIT) cache[index] = suffix;
+  }
+  return suffix;
+}
+
+/** Where each engine span and support came from in the public format, for engine messages. */
+export interface MemberOrigins {
+  spans: string[];
+  supports: string[];
+}
+
+/** What the member reader needs from the schedule-level profile. */
+export interface ProfileFacts {
+  id: string;
+  /** null when the profile itself is invalid: members are still checked, cases are not. */
+  cases: Set<string> | null;
+  usesCreep: boolean;
+}
+
+interface SegmentDraft {
+  /** The public path of this span, e.g. `members[4].spans[1]` (the member's origins). */
+  origin: string;
+  lengthMm: number;
+  section: ResolvedSection;
+  material: Material;
+}
+
+/** An overhang that is not given (or is zero long) adds no span. */
+type SegmentRead = SegmentDraft | null | "none";
+
+/** A span entry: a length (number or {value, unit}) or `{ length, section?, material? }`. */
+function readSegment(
+  ctx: ReadContext,
+  value: unknown,
+  path: FieldPath,
+  origin: string,
+  baseSection: ResolvedSection | null,
+  baseMaterial: Material | null,
+  findCatalogue: FindCatalogue,
+  allowZero: boolean,
+): SegmentRead {
+  let lengthValue: unknown = value;
+  let lengthPath = path;
+  let section = baseSection;
+  let material = baseMaterial;
+  if (isJsonObject(value) && !isQuantityObject(value)) {
+    const block = readObject(ctx, value, path, SEGMENT_SPEC);
+    if (!block) return null;
+    lengthValue = block.length;
+    lengthPath = childPath(path, "length");
+    if (block.section !== undefined) section = readSection(ctx, block.section, childPath(path, "section"), findCatalogue);
+    if (block.material !== undefined) material = readMaterial(ctx, block.material, childPath(path, "material"));
+  }
+  const lengthMm = readQuantity(ctx, lengthValue, lengthPath, "length", allowZero ? "nonNegative" : "positive");
+  if (lengthMm === 0 && allowZero) return "none";
+  if (lengthMm === null || section === null || material === null) return null;
+  return { origin, lengthMm, section, material };
+}
+
+function readSupport(ctx: ReadContext, value: unknown, path: FieldPath): Support | null {
+  if (typeof value === "string") {
+    const kind = readEnum(ctx, value, path, SUPPORT_KINDS);
+    if (kind === "spring") {
+      ctx.issues.add(path, 'a spring needs its stiffness: {"kind": "spring", "stiffness": ...}');
+      return null;
+    }
+    return kind === null ? null : { kind };
+  }
+  const block = readObject(ctx, value, path, SUPPORT_SPEC);
+  if (!block) return null;
+  const kind = readEnum(ctx, block.kind, childPath(path, "kind"), SUPPORT_KINDS);
+  if (kind === null) return null;
+  if (kind !== "spring") {
+    if (block.stiffness !== undefined) ctx.issues.add(childPath(path, "stiffness"), "only a spring support has a stiffness");
+    return block.stiffness === undefined ? { kind } : null;
+  }
+  if (block.stiffness === undefined) {
+    ctx.issues.add(childPath(path, "stiffness"), "is required for a spring support");
+    return null;
+  }
+  const springNPerMm = readQuantity(ctx, block.stiffness, childPath(path, "stiffness"), "springStiffness", "positive");
+  return springNPerMm === null ? null : { kind, springNPerMm };
+}
+
+/** A beam in bending is stable with a fixed node, or with two nodes restrained vertically. */
+function isStable(supports: readonly Support[]): boolean {
+  let vertical = 0;
+  for (const support of supports) {
+    if (support.kind === "fixed") return true;
+    if (support.kind !== "free") vertical += 1;
+  }
+  return vertical >= 2;
+}
+
+// Output objects are built by assignment, not conditional spreads (each spread allocates and
+// copies); the key order is the same as before so serialised results do not change. The usual
+// combination of keys gets one literal: V8 sizes an object for its literal's keys, and each key
+// added later goes to a separate, growable property store.
+function toSpanSegment(draft: SegmentDraft, withShear: boolean): SpanSegment {
+  const { section, material } = draft;
+  if (!withShear && section.areaMm2 !== null && material.densityKgPerM3 !== null) {
+    return { lengthMm: draft.lengthMm, eMpa: material.eMpa, iMm4: section.iMm4, areaMm2: section.areaMm2, densityKgPerM3: material.densityKgPerM3 };
+  }
+  const segment: SpanSegment = { lengthMm: draft.lengthMm, eMpa: material.eMpa, iMm4: section.iMm4 };
+  if (section.areaMm2 !== null) segment.areaMm2 = section.areaMm2;
+  if (material.densityKgPerM3 !== null) segment.densityKgPerM3 = material.densityKgPerM3;
+  if (withShear && section.shearAreaMm2 !== null) segment.shearAreaMm2 = section.shearAreaMm2;
+  if (withShear && material.gMpa !== null) segment.gMpa = material.gMpa;
+  return segment;
+}
+
+function readSpans(
+  ctx: ReadContext,
+  value: unknown,
+  memberPath: string,
+  section: ResolvedSection | null,
+  material: Material | null,
+  findCatalogue: FindCatalogue,
+): (SegmentDraft | null)[] {
+  const spansPath = childPath(memberPath, "spans");
+  if (!Array.isArray(value) || value.length === 0 || value.length > MAX_SPANS_PER_MEMBER) {
+    if (value !== undefined) ctx.issues.add(spansPath, `must be an array of 1 to ${MAX_SPANS_PER_MEMBER} span lengths`);
+    return [];
+  }
+  return value.map((entry, index) => {
+    const origin = memberPath + getIndexSuffix(spanSuffixes, "spans", index);
+    const draft = readSegment(ctx, entry, childPath(spansPath, index), origin, section, material, findCatalogue, false);
+    return draft === "none" ? null : draft;
+  });
+}
+
+function readSupports(ctx: ReadContext, value: unknown, supportsPath: FieldPath, spanCount: number): (Support | null)[] {
+  if (!Array.isArray(value)) {
+    if (value !== undefined) ctx.issues.add(supportsPath, "must be an array with one support per span end (spans + 1)");
+    return [];
+  }
+  if (spanCount > 0 && value.length !== spanCount + 1) {
+    ctx.issues.add(
+      supportsPath,
+      `has ${value.length} supports but ${spanCount} span${spanCount === 1 ? "" : "s"} need ${spanCount + 1} (one per span end, left to right; overhang tips are free and not listed)`,
+    );
+    return [];
+  }
+  return value.map((entry, index) => readSupport(ctx, entry, childPath(supportsPath, index)));
+}
+
+// Output arrays come from Array.map or literals, which are allocated at their exact length; an
+// array grown by push reserves 17 slots, and a schedule keeps five arrays per member.
+
+/** The items without nulls: the same array when there are none (the usual case). */
+function dropNulls<T>(items: (T | null)[]): T[] {
+  return items.includes(null) ? items.filter((item): item is T => item !== null) : (items as T[]);
+}
+
+/** The member's segments left to right (overhangs included), or null if any is invalid. */
+function collectSegments(left: SegmentRead, drafts: readonly (SegmentDraft | null)[], right: SegmentRead): SegmentDraft[] | null {
+  const segments: SegmentDraft[] = [];
+  if (left !== "none") {
+    if (left === null) return null;
+    segments.push(left);
+  }
+  for (const draft of drafts) {
+    if (draft === null) return null;
+    segments.push(draft);
+  }
+  if (right !== "none") {
+    if (right === null) return null;
+    segments.push(right);
+  }
+  return segments;
+}
+
+/**
+ * Reads one public-format member into the engine's Member (internal units). Overhangs become
+ * extra end spans with a free outer node. Returns null after recording every issue found.
+ * `path` is a string because every valid member's origins are built from it.
+ */
+export function readMember(
+  ctx: ReadContext,
+  value: unknown,
+  path: string,
+  profile: ProfileFacts,
+  findCatalogue: FindCatalogue,
+): { member: Member; origins: MemberOrigins } | null {
+  const block = readObject(ctx, value, path, MEMBER_SPEC);
+  if (!block) return null;
+  const before = ctx.issues.count;
+  const mark = block.mark === undefined ? null : readString(ctx, block.mark, childPath(path, "mark"), 64);
+  const category = block.category === undefined ? null : readEnum(ctx, block.category, childPath(path, "category"), MEMBER_CATEGORIES);
+  const quantity = block.quantity === undefined ? null : readInteger(ctx, block.quantity, childPath(path, "quantity"), 1, 1_000_000);
+  if (block.notes !== undefined) readString(ctx, block.notes, childPath(path, "notes"), 2000);
+  const material = block.material === undefined ? null : readMaterial(ctx, block.material, childPath(path, "material"));
+  const section = block.section === undefined ? null : readSection(ctx, block.section, childPath(path, "section"), findCatalogue);
+  const selfWeight = block.selfWeight === undefined ? false : readBoolean(ctx, block.selfWeight, childPath(path, "selfWeight"));
+  const withShear = block.shearDeformation === undefined ? false : readBoolean(ctx, block.shearDeformation, childPath(path, "shearDeformation"));
+  const creepFactor = material ? resolveCreepFactor(ctx, material, block.creep, path, profile.usesCreep) : null;
+
+  const drafts = readSpans(ctx, block.spans, path, section, material, findCatalogue);
+  let left: SegmentRead = "none";
+  let right: SegmentRead = "none";
+  if (block.overhangs !== undefined) {
+    const overhangPath = childPath(path, "overhangs");
+    const sides = readObject(ctx, block.overhangs, overhangPath, OVERHANGS_SPEC);
+    if (sides?.left !== undefined) {
+      left = readSegment(ctx, sides.left, childPath(overhangPath, "left"), path + LEFT_OVERHANG_SUFFIX, section, material, findCatalogue, true);
+    }
+    if (sides?.right !== undefined) {
+      right = readSegment(ctx, sides.right, childPath(overhangPath, "right"), path + RIGHT_OVERHANG_SUFFIX, section, material, findCatalogue, true);
+    }
+  }
+
+  const supportsPath = childPath(path, "supports");
+  const spanCount = Array.isArray(block.spans) ? block.spans.length : 0;
+  const supports = readSupports(ctx, block.supports, supportsPath, spanCount);
+
+  const segments = collectSegments(left, drafts, right);
+  let totalMm: number | null = null;
+  if (segments) {
+    totalMm = 0;
+    for (const s of segments) totalMm += s.lengthMm;
+  }
+
+  let loads: Load[] = [];
+  const loadsPath = childPath(path, "loads");
+  if (!Array.isArray(block.loads) || block.loads.length > MAX_LOADS_PER_MEMBER) {
+    if (block.loads !== undefined) ctx.issues.add(loadsPath, `must be an array of at most ${MAX_LOADS_PER_MEMBER} loads`);
+  } else if (totalMm !== null) {
+    const memberMm = totalMm;
+    loads = dropNulls(block.loads.map((entry, index) => readLoad(ctx, entry, childPath(loadsPath, index), memberMm, profile.cases, profile.id)));
+    if (block.loads.length === 0 && selfWeight !== true) ctx.issues.add(loadsPath, "the member has no loads and no self-weight");
+  }
+
+  if (segments && selfWeight === true) {
+    const selfWeightPath = childPath(path, "selfWeight");
+    if (profile.cases && !profile.cases.has("dead")) ctx.issues.add(selfWeightPath, `self-weight goes to the dead case, which limit profile ${profile.id} does not use`);
+    for (const s of segments) {
+      if (s.section.areaMm2 === null) ctx.issues.add(selfWeightPath, `needs the section area A (${s.origin})`);
+      if (s.material.densityKgPerM3 === null) ctx.issues.add(selfWeightPath, `needs the material density (${s.origin})`);
+    }
+  }
+  if (segments && withShear === true) {
+    const shearPath = childPath(path, "shearDeformation");
+    for (const s of segments) {
+      if (s.section.shearAreaMm2 === null) ctx.issues.add(shearPath, `needs the section's shear area (${s.origin})`);
+      if (s.material.gMpa === null) ctx.issues.add(shearPath, `needs the material's G (${s.origin})`);
+    }
+  }
+
+  const allSupportsValid = !supports.includes(null);
+  const listedSupports = dropNulls(supports);
+  const fullSupports: Support[] =
+    left === "none" && right === "none"
+      ? listedSupports
+      : [...(left === "none" ? [] : [{ kind: "free" as const }]), ...listedSupports, ...(right === "none" ? [] : [{ kind: "free" as const }])];
+  if (supports.length > 0 && allSupportsValid && !isStable(fullSupports)) {
+    ctx.issues.add(supportsPath, "the member is unstable: it needs a fixed support, or at least two pinned, roller or spring supports");
+  }
+
+  if (ctx.issues.count > before || !segments || mark === null || category === null || quantity === null || material === null || section === null) return null;
+  if (selfWeight === null || withShear === null || creepFactor === null) return null;
+  return {
+    member: createMember(mark, category, quantity, fullSupports, segments, loads, selfWeight, withShear, creepFactor, section, material),
+    origins: createOrigins(path, segments, supports, left !== "none", right !== "none"),
+  };
+}
+
+function createMember(
+  mark: string,
+  category: MemberCategory,
+  quantity: number,
+  supports: Support[],
+  segments: readonly SegmentDraft[],
+  loads: Load[],
+  selfWeight: boolean,
+  withShear: boolean,
+  creepFactor: number | undefined,
+  section: ResolvedSection,
+  material: Material,
+): Member {
+  const spans = segments.map((s) => toSpanSegment(s, withShear));
+  const materialName = material.id === "custom" ? material.label : material.id;
+  if (!selfWeight && !withShear && creepFactor !== undefined) {
+    return { mark, category, quantity, supports, spans, loads, materialCreepFactor: creepFactor, sectionName: section.name, materialName };
+  }
+  const member: Member = { mark, category, quantity, supports, spans, loads };
+  if (selfWeight) member.selfWeightCase = "dead";
+  if (creepFactor !== undefined) member.materialCreepFactor = creepFactor;
+  if (withShear) member.includeShearDeformation = true;
+  member.sectionName = section.name;
+  member.materialName = materialName;
+  return member;
+}
+
+function createOrigins(path: string, segments: readonly SegmentDraft[], listed: readonly unknown[], hasLeft: boolean, hasRight: boolean): MemberOrigins {
+  const listedPaths = listed.map((_, index) => path + getIndexSuffix(supportSuffixes, "supports", index));
+  return {
+    spans: segments.map((s) => s.origin),
+    supports:
+      hasLeft || hasRight
+        ? [...(hasLeft ? [path + LEFT_OVERHANG_SUFFIX] : []), ...listedPaths, ...(hasRight ? [path + RIGHT_OVERHANG_SUFFIX] : [])]
+        : listedPaths,
+  };
+}

@@ -1,0 +1,150 @@
+import type { InputIssue, Load, Member, SupportKind } from "../model";
+import { EngineInputError } from "./engine-input-error";
+
+const SUPPORT_KINDS: ReadonlySet<string> = new Set<SupportKind>(["pinned", "roller", "fixed", "free", "spring"]);
+
+/** Positions closer than this fraction of the member length to a node count as on the node. */
+export const POSITION_TOLERANCE_RATIO = 1e-9;
+
+function isPositiveFinite(value: unknown): value is number {
+  return typeof value === "number" && Number.isFinite(value) && value > 0;
+}
+
+function isFiniteNumber(value: unknown): value is number {
+  return typeof value === "number" && Number.isFinite(value);
+}
+
+function getTotalLengthMm(member: Member): number {
+  let total = 0;
+  for (const span of member.spans) total += isPositiveFinite(span.lengthMm) ? span.lengthMm : 0;
+  return total;
+}
+
+function collectSpanIssues(member: Member, issues: InputIssue[]): void {
+  for (let index = 0; index < member.spans.length; index++) {
+    const span = member.spans[index]!;
+    const path = `spans[${index}]`;
+    if (!isPositiveFinite(span.lengthMm)) issues.push({ path: `${path}.lengthMm`, message: "span length must be a positive finite number (mm)" });
+    if (!isPositiveFinite(span.eMpa)) issues.push({ path: `${path}.eMpa`, message: "modulus of elasticity must be a positive finite number (MPa)" });
+    if (!isPositiveFinite(span.iMm4)) issues.push({ path: `${path}.iMm4`, message: "second moment of area must be a positive finite number (mm^4)" });
+    if (span.areaMm2 !== undefined && !isPositiveFinite(span.areaMm2)) issues.push({ path: `${path}.areaMm2`, message: "area must be a positive finite number (mm^2)" });
+    if (span.densityKgPerM3 !== undefined && !isPositiveFinite(span.densityKgPerM3)) issues.push({ path: `${path}.densityKgPerM3`, message: "density must be a positive finite number (kg/m^3)" });
+    if (member.selfWeightCase !== undefined) {
+      if (span.areaMm2 === undefined) issues.push({ path: `${path}.areaMm2`, message: `self-weight (case "${member.selfWeightCase}") needs the section area` });
+      if (span.densityKgPerM3 === undefined) issues.push({ path: `${path}.densityKgPerM3`, message: `self-weight (case "${member.selfWeightCase}") needs the material density` });
+    }
+    if (member.includeShearDeformation === true) {
+      if (!isPositiveFinite(span.shearAreaMm2)) issues.push({ path: `${path}.shearAreaMm2`, message: "shear deformation is requested: the shear area k*A must be a positive finite number (mm^2)" });
+      if (!isPositiveFinite(span.gMpa)) issues.push({ path: `${path}.gMpa`, message: "shear deformation is requested: the shear modulus must be a positive finite number (MPa)" });
+    }
+  }
+}
+
+function collectSupportIssues(member: Member, issues: InputIssue[]): void {
+  if (member.supports.length !== member.spans.length + 1) {
+    issues.push({ path: "supports", message: `a member with ${member.spans.length} span(s) needs ${member.spans.length + 1} supports (one per node), got ${member.supports.length}` });
+    return;
+  }
+  let verticalRestraints = 0;
+  let fixedSupports = 0;
+  for (let index = 0; index < member.supports.length; index++) {
+    const support = member.supports[index]!;
+    if (!SUPPORT_KINDS.has(support.kind)) {
+      issues.push({ path: `supports[${index}].kind`, message: `unknown support kind "${String(support.kind)}" (pinned, roller, fixed, free or spring)` });
+      continue;
+    }
+    if (support.kind === "spring") {
+      if (!isPositiveFinite(support.springNPerMm)) issues.push({ path: `supports[${index}].springNPerMm`, message: "a spring support needs a positive finite vertical stiffness (N/mm)" });
+      else verticalRestraints += 1;
+    } else if (support.kind === "fixed") {
+      fixedSupports += 1;
+      verticalRestraints += 1;
+    } else if (support.kind !== "free") {
+      verticalRestraints += 1;
+    }
+  }
+  // The member is continuous (no internal hinges): it is stable exactly when the supports stop
+  // both rigid-body movements, vertical translation and rotation.
+  if (issues.length === 0 && fixedSupports === 0 && verticalRestraints < 2) {
+    issues.push({
+      path: "supports",
+      message: verticalRestraints === 0
+        ? "the member is unsupported (every support is free): it is a mechanism and cannot be analysed"
+        : "the member is a mechanism: a single pinned, roller or spring support cannot stop it rotating; add a fixed support or a second support",
+    });
+  }
+}
+
+function collectPositionIssue(path: string, xMm: unknown, totalMm: number, tolMm: number, issues: InputIssue[]): void {
+  if (!isFiniteNumber(xMm)) issues.push({ path, message: "position must be a finite number (mm from the member's left end)" });
+  else if (xMm < -tolMm || xMm > totalMm + tolMm) issues.push({ path, message: `position ${xMm} mm is outside the member (0 to ${totalMm} mm)` });
+}
+
+function collectLoadIssues(load: Load, index: number, totalMm: number, issues: InputIssue[]): void {
+  const path = `loads[${index}]`;
+  const tolMm = totalMm * POSITION_TOLERANCE_RATIO;
+  if (typeof load.loadCase !== "string" || load.loadCase === "") issues.push({ path: `${path}.loadCase`, message: "a load needs a load case name" });
+  switch (load.kind) {
+    case "uniform": {
+      if (!isFiniteNumber(load.wNPerMm)) issues.push({ path: `${path}.wNPerMm`, message: "load intensity must be a finite number (N/mm)" });
+      if (load.startMm !== undefined) collectPositionIssue(`${path}.startMm`, load.startMm, totalMm, tolMm, issues);
+      if (load.endMm !== undefined) collectPositionIssue(`${path}.endMm`, load.endMm, totalMm, tolMm, issues);
+      const start = load.startMm ?? 0;
+      const end = load.endMm ?? totalMm;
+      if (isFiniteNumber(start) && isFiniteNumber(end) && !(end > start)) issues.push({ path: `${path}.endMm`, message: "a partial load must end after it starts" });
+      return;
+    }
+    case "linear": {
+      if (!isFiniteNumber(load.wStartNPerMm)) issues.push({ path: `${path}.wStartNPerMm`, message: "load intensity must be a finite number (N/mm)" });
+      if (!isFiniteNumber(load.wEndNPerMm)) issues.push({ path: `${path}.wEndNPerMm`, message: "load intensity must be a finite number (N/mm)" });
+      collectPositionIssue(`${path}.startMm`, load.startMm, totalMm, tolMm, issues);
+      collectPositionIssue(`${path}.endMm`, load.endMm, totalMm, tolMm, issues);
+      if (isFiniteNumber(load.startMm) && isFiniteNumber(load.endMm) && !(load.endMm > load.startMm)) issues.push({ path: `${path}.endMm`, message: "a linearly varying load must end after it starts" });
+      return;
+    }
+    case "point":
+      if (!isFiniteNumber(load.pN)) issues.push({ path: `${path}.pN`, message: "point load must be a finite number (N)" });
+      collectPositionIssue(`${path}.atMm`, load.atMm, totalMm, tolMm, issues);
+      return;
+    case "moment":
+      if (!isFiniteNumber(load.mNmm)) issues.push({ path: `${path}.mNmm`, message: "applied moment must be a finite number (N*mm)" });
+      collectPositionIssue(`${path}.atMm`, load.atMm, totalMm, tolMm, issues);
+      return;
+    default:
+      issues.push({ path: `${path}.kind`, message: `unknown load kind "${String((load as { kind: unknown }).kind)}" (uniform, linear, point or moment)` });
+  }
+}
+
+/**
+ * Lists every problem that stops the member from being analysed, with paths relative to the
+ * member (`spans[1].iMm4`, `loads[3].atMm`, `supports`). An empty list means solvable.
+ */
+export function collectMemberIssues(member: Member): InputIssue[] {
+  const issues: InputIssue[] = [];
+  if (!Array.isArray(member.spans) || member.spans.length === 0) {
+    issues.push({ path: "spans", message: "a member needs at least one span" });
+    return issues;
+  }
+  if (!Array.isArray(member.supports)) {
+    issues.push({ path: "supports", message: "a member needs one support per node" });
+    return issues;
+  }
+  collectSpanIssues(member, issues);
+  collectSupportIssues(member, issues);
+  if (member.materialCreepFactor !== undefined && !(isFiniteNumber(member.materialCreepFactor) && member.materialCreepFactor >= 0)) {
+    issues.push({ path: "materialCreepFactor", message: "creep factor must be a finite number >= 0" });
+  }
+  const totalMm = getTotalLengthMm(member);
+  if (!Array.isArray(member.loads)) {
+    issues.push({ path: "loads", message: "a member needs a list of loads (it may be empty)" });
+    return issues;
+  }
+  for (let index = 0; index < member.loads.length; index++) collectLoadIssues(member.loads[index]!, index, totalMm, issues);
+  return issues;
+}
+
+/** Throws EngineInputError listing every issue when the member cannot be analysed. */
+export function assertMemberValid(member: Member): void {
+  const issues = collectMemberIssues(member);
+  if (issues.length > 0) throw new EngineInputError(issues);
+}

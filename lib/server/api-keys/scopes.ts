@@ -1,0 +1,26 @@
+import { apiKeyScopes, type ApiKeyScope } from "@/db/schema";
+
+export { apiKeyScopes, type ApiKeyScope };
+
+/** Scopes an ordinary integration key lacks: they change who can reach the organization. */
+export const adminScopes: readonly ApiKeyScope[] = ["webhooks:manage", "keys:manage"];
+
+export const scopeDescriptions: Record<ApiKeyScope, string> = {
+  "schedules:write": "Submit member schedules (JSON or CSV).",
+  "results:read": "List schedules and read their results.",
+  "webhooks:manage": "Register, change and remove webhook endpoints (administrative).",
+  "keys:manage": "List, create and revoke this organization's API keys (administrative).",
+};
+
+export function isApiKeyScope(value: string): value is ApiKeyScope {
+  return (apiKeyScopes as readonly string[]).includes(value);
+}
+
+export function hasScope(granted: readonly string[], needed: ApiKeyScope): boolean {
+  return granted.includes(needed);
+}
+
+/** The scopes of `wanted` that `granted` does not hold, in table order (a key cannot grant more than it has). */
+export function listMissingScopes(granted: readonly string[], wanted: readonly ApiKeyScope[]): ApiKeyScope[] {
+  return apiKeyScopes.filter((s) => wanted.includes(s) && !granted.includes(s));
+}

@@ -1,0 +1,33 @@
+import type { ApiKeyScope } from "@/db/schema";
+
+/**
+ * Every public API route (app/api/v1) and the API-key scope it needs; "public" needs no key.
+ * tests/integration/api/v1/api-access-matrix.test.ts fails when a route file exports a method that
+ * is missing here, and checks every listed route's 401/403 answers against this table. Routes
+ * listed before their file exists are skipped by that test until the file appears.
+ */
+export type ApiAccess = ApiKeyScope | "public";
+
+export const apiRouteScopes = {
+  "GET /api/v1/openapi.json": "public",
+
+  "GET /api/v1/api-keys": "keys:manage",
+  "POST /api/v1/api-keys": "keys:manage",
+  "DELETE /api/v1/api-keys/[keyId]": "keys:manage",
+
+  "POST /api/v1/schedules": "schedules:write",
+  "GET /api/v1/schedules": "results:read",
+  "GET /api/v1/schedules/[scheduleId]": "results:read",
+  "GET /api/v1/schedules/[scheduleId]/results": "results:read",
+  "GET /api/v1/schedules/[scheduleId]/members/[mark]": "results:read",
+
+  "GET /api/v1/webhook-endpoints": "webhooks:manage",
+  "POST /api/v1/webhook-endpoints": "webhooks:manage",
+  "GET /api/v1/webhook-endpoints/[endpointId]": "webhooks:manage",
+  "PATCH /api/v1/webhook-endpoints/[endpointId]": "webhooks:manage",
+  "DELETE /api/v1/webhook-endpoints/[endpointId]": "webhooks:manage",
+  "POST /api/v1/webhook-endpoints/[endpointId]/rotate-secret": "webhooks:manage",
+  "POST /api/v1/webhook-endpoints/[endpointId]/test": "webhooks:manage",
+} as const satisfies Record<string, ApiAccess>;
+
+export type ApiRouteKey = keyof typeof apiRouteScopes;

@@ -1,0 +1,105 @@
+import { jsonResponse, linkHeader, pageParameters, pathParameter, problemResponse, queryParameter, type Operation } from "./operations";
+
+const scheduleId = pathParameter("scheduleId", "The schedule's id (`sch_...`).");
+const notFound = problemResponse("No such schedule (or member) in this organization; another organization's ids answer the same.");
+const csvParameters = [
+  queryParameter("delimiter", "CSV field separator, taken as given and never guessed.", { enum: ["comma", "semicolon", "tab"], default: "comma" }),
+  queryParameter("units", "Default unit system of the CSV's bare numbers.", { enum: ["SI", "US"] }),
+  queryParameter("limits", "CSV only: the limit preset every member is checked against, e.g. `ibc-2021-floor`.", { type: "string" }),
+  queryParameter("name", "CSV only: the schedule's name (default: the file name).", { type: "string", maxLength: 200 }),
+  queryParameter("reference", "CSV only: a drawing or schedule reference.", { type: "string" }),
+  queryParameter("callbackEndpointId", "A registered webhook endpoint (`wh_...`) to report completion to.", { type: "string" }),
+];
+
+export function buildScheduleOperations(limits: { maxMembers: number; maxBodyBytes: number; idempotencyHours: number }) {
+  const bodyMb = Math.round(limits.maxBodyBytes / (1024 * 1024));
+  return {
+    "POST /api/v1/schedules": {
+      operationId: "submitSchedule",
+      tags: ["Schedules"],
+      summary: "Submit a member schedule",
+      description: `A whole schedule of up to ${limits.maxMembers.toLocaleString("en-US")} members and ${bodyMb} MB, as JSON (sagline.schedule/v1), CSV (template: /api/templates/schedule.csv) or multipart/form-data with a \`file\` part. Everything is validated before anything is stored; one bad row rejects the whole schedule with its row, line and column. Checking runs in the background: poll the schedule or register a webhook. Send an Idempotency-Key to retry safely; keys expire after ${limits.idempotencyHours} hours.`,
+      parameters: [
+        {
+          name: "Idempotency-Key",
+          in: "header",
+          required: false,
+          description: `Repeats of a completed request with the same key return the first answer; the same key with another body is 422; while the first is still running, 409. Keys are scoped to the organization and expire after ${limits.idempotencyHours} hours.`,
+          schema: { type: "string", minLength: 1, maxLength: 255 },
+        },
+        ...csvParameters,
+      ],
+      requestBody: {
+        required: true,
+        content: {
+          "application/json": { schema: { $ref: "#/components/schemas/Schedule" } },
+          "text/csv": { schema: { type: "string", description: "RFC 4180 CSV, UTF-8 (a BOM is allowed), one member per row." } },
+          "multipart/form-data": {
+            schema: {
+              type: "object",
+              required: ["file"],
+              properties: {
+                file: { type: "string", contentMediaType: "text/csv", description: "The CSV (or a .json schedule document)." },
+                delimiter: { type: "string" },
+                units: { type: "string" },
+                limits: { type: "string" },
+                name: { type: "string" },
+                reference: { type: "string" },
+              },
+            },
+          },
+        },
+      },
+      responses: {
+        "202": jsonResponse("Accepted and queued; Location names the schedule.", "ScheduleAccepted", { Location: { schema: { type: "string" } } }),
+        "409": problemResponse("The same Idempotency-Key is still in flight."),
+        "413": problemResponse(`Body over ${bodyMb} MB.`),
+        "415": problemResponse("Not JSON, CSV or multipart/form-data."),
+        "422": problemResponse("Invalid schedule (errors[] with pointers or CSV row/line/column), or an Idempotency-Key reused with another body."),
+      },
+    },
+    "GET /api/v1/schedules": {
+      operationId: "listSchedules",
+      tags: ["Schedules"],
+      summary: "List schedules",
+      description: "Newest first.",
+      parameters: pageParameters(100, 20),
+      responses: { "200": jsonResponse("One page of schedules.", "ScheduleList", linkHeader) },
+    },
+    "GET /api/v1/schedules/[scheduleId]": {
+      operationId: "getSchedule",
+      tags: ["Schedules"],
+      summary: "Read a schedule's status, progress and counts",
+      parameters: [scheduleId],
+      responses: { "200": jsonResponse("The schedule.", "ScheduleStatus"), "404": notFound },
+    },
+    "GET /api/v1/schedules/[scheduleId]/results": {
+      operationId: "listResults",
+      tags: ["Schedules"],
+      summary: "The pass/fail table",
+      description: "One row per member, as JSON or CSV (cells that a spreadsheet would read as formulas are neutralised).",
+      parameters: [
+        scheduleId,
+        queryParameter("format", "Answer format (or send Accept: text/csv).", { enum: ["json", "csv"], default: "json" }),
+        queryParameter("status", "Only members with this outcome.", { enum: ["pass", "fail", "error"] }),
+        queryParameter("category", "Only members of this category.", { type: "string" }),
+        ...pageParameters(1000, 100),
+      ],
+      responses: {
+        "200": {
+          description: "One page of results.",
+          headers: linkHeader,
+          content: { "application/json": { schema: { $ref: "#/components/schemas/ResultsPage" } }, "text/csv": { schema: { type: "string" } } },
+        },
+        "404": notFound,
+      },
+    },
+    "GET /api/v1/schedules/[scheduleId]/members/[mark]": {
+      operationId: "getMemberResult",
+      tags: ["Schedules"],
+      summary: "One member's checks in full",
+      parameters: [scheduleId, pathParameter("mark", "The member's mark, URL-encoded.")],
+      responses: { "200": jsonResponse("The member.", "MemberResult"), "404": notFound },
+    },
+  } satisfies Record<string, Operation>;
+}

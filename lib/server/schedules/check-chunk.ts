@@ -1,0 +1,113 @@
+import { checkMember } from "@/lib/engine/check-member";
+import { parseSchedule } from "@/lib/engine/intake";
+import type { MemberResult } from "@/lib/engine/model";
+import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
+import { getSql } from "@/db/client";
+import { copyRows } from "@/lib/server/copy-rows";
+
+import { completeScheduleIfDone, failSchedule } from "./finish-schedule";
+
+export const MAX_CHUNK_ATTEMPTS = 10;
+
+type Outcome = { index: number; mark: string; category: string; result: MemberResult | null; error: string | null };
+
+function checkMembers(header: Record<string, unknown>, inputs: { member_index: number; input: unknown }[]): Outcome[] {
+  const parsed = parseSchedule({ ...header, members: inputs.map((r) => r.input) });
+  // The whole schedule passed this at submission; failing now means stored data changed.
+  if (!parsed.ok) throw new Error(`stored members no longer parse: ${parsed.issues[0]?.path}: ${parsed.issues[0]?.message}`);
+  return parsed.schedule.members.map((member, i) => {
+    const index = inputs[i]!.member_index;
+    try {
+      return { index, mark: member.mark, category: member.category, result: checkMember(member, parsed.schedule.profile), error: null };
+    } catch (error) {
+      if (!(error instanceof EngineInputError)) throw error;
+      return { index, mark: member.mark, category: member.category, result: null, error: error.issues.map((e) => `${e.path}: ${e.message}`).join("; ") };
+    }
+  });
+}
+
+/**
+ * Checks one chunk of a schedule and stores its results. Safe to run twice or to be killed at any
+ * point: results, the chunk's done flag and the schedule's progress commit in one transaction,
+ * and a chunk already done is skipped, so no result is ever lost or doubled.
+ */
+export async function checkChunk(scheduleId: string, chunkIndex: number): Promise<"checked" | "skipped"> {
+  const sql = getSql();
+  const [chunk] = await sql`
+    update schedule_chunks c set attempts = attempts + 1
+    from schedules s
+    where c.schedule_id = ${scheduleId} and c.chunk_index = ${chunkIndex} and s.id = c.schedule_id
+    returning c.done_at, c.first_member, c.member_count, c.attempts, s.status, s.header`;
+  if (!chunk || chunk.done_at || chunk.status === "completed" || chunk.status === "failed") return "skipped";
+  if (chunk.attempts > MAX_CHUNK_ATTEMPTS) {
+    await failSchedule(scheduleId, `chunk ${chunkIndex} could not be checked after ${MAX_CHUNK_ATTEMPTS} attempts`);
+    return "skipped";
+  }
+  await sql`update schedules set status = 'checking', updated_at = now() where id = ${scheduleId} and status = 'queued'`;
+
+  const inputs = await sql<{ member_index: number; input: unknown }[]>`
+    select member_index, input from schedule_members
+    where schedule_id = ${scheduleId} and member_index >= ${chunk.first_member} and member_index < ${chunk.first_member + chunk.member_count}
+    order by member_index`;
+  const outcomes = checkMembers(chunk.header as Record<string, unknown>, inputs);
+
+  const wrote = await sql.begin(async (tx) => {
+    // Lock order: this chunk's row, then (at the progress update) the schedule's row. Result
+    // tables have no foreign key to schedules, so the COPYs of concurrent chunks take no lock
+    // on the schedule and overlap; only the short progress update queues.
+    const [locked] = await tx`select done_at from schedule_chunks where schedule_id = ${scheduleId} and chunk_index = ${chunkIndex} for update`;
+    if (!locked || locked.done_at) return false;
+    await copyRows(tx, "member_outcomes", ["schedule_id", "member_index", "mark", "category", "pass", "governing_check", "utilization", "factor_of_safety", "detail"], outcomeRows(scheduleId, outcomes));
+    await copyRows(
+      tx,
+      "member_checks",
+      ["schedule_id", "member_index", "check_key", "combination_id", "span_index", "span_kind", "deflection_mm", "at_mm", "allowed_mm", "utilization", "factor_of_safety", "pass"],
+      checkRows(scheduleId, outcomes),
+    );
+    await tx`update schedule_chunks set done_at = now() where schedule_id = ${scheduleId} and chunk_index = ${chunkIndex}`;
+    const passed = outcomes.filter((o) => o.result?.pass).length;
+    const errored = outcomes.filter((o) => o.error !== null).length;
+    await tx`
+      update schedules set chunks_done = chunks_done + 1, checked_count = checked_count + ${outcomes.length},
+        pass_count = pass_count + ${passed}, fail_count = fail_count + ${outcomes.length - passed - errored},
+        error_count = error_count + ${errored}, updated_at = now()
+      where id = ${scheduleId}`;
+    await completeScheduleIfDone(tx, scheduleId);
+    return true;
+  });
+  return wrote ? "checked" : "skipped";
+}
+
+export function checkKeyOf(combinationId: string, spanIndex: number): string {
+  return `${combinationId}@${spanIndex}`;
+}
+
+function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
+  for (const o of outcomes) {
+    const r = o.result;
+    const governing = r?.governing ?? null;
+    // The sampled shape is recomputed on demand for one member (cheap); storing it for every member is not.
+    const detail = r
+      ? { rotations: r.rotations, frequency: r.frequency, suggestion: r.suggestion, error: null }
+      : { rotations: [], frequency: null, suggestion: null, error: o.error };
+    yield [
+      scheduleId,
+      o.index,
+      o.mark,
+      o.category,
+      r?.pass ?? false,
+      governing ? checkKeyOf(governing.combinationId, governing.spanIndex) : null,
+      governing?.utilization ?? null,
+      governing?.factorOfSafety ?? null,
+      JSON.stringify(detail),
+    ] as const;
+  }
+}
+
+function* checkRows(scheduleId: string, outcomes: Outcome[]) {
+  for (const o of outcomes) {
+    for (const c of o.result?.checks ?? []) {
+      yield [scheduleId, o.index, checkKeyOf(c.combinationId, c.spanIndex), c.combinationId, c.spanIndex, c.spanKind, c.deflectionMm, c.atMm, c.allowedMm, c.utilization, c.factorOfSafety, c.pass] as const;
+    }
+  }
+}

@@ -1,0 +1,85 @@
+import { readFileSync } from "node:fs";
+import { join } from "node:path";
+
+import Ajv2020 from "ajv/dist/2020.js";
+import addFormats from "ajv-formats";
+
+import { CSV_DELIMITERS, mapIssueToCsvRow, parseScheduleCsv, type CsvDelimiter } from "@/lib/schedule-csv";
+import type { InputIssue } from "@/lib/engine/model";
+import { DomainError, type FieldError } from "@/lib/server/errors";
+
+import { MAX_LISTED_ERRORS } from "./issue-pointers";
+import { throwInvalidSchedule } from "./submit-schedule";
+
+let validateSchedule: ReturnType<Ajv2020["compile"]> | undefined;
+
+function getScheduleValidator() {
+  if (!validateSchedule) {
+    const schema = JSON.parse(readFileSync(join(process.cwd(), "api-schemas", "v1", "schedule.schema.json"), "utf8"));
+    const ajv = new Ajv2020({ allErrors: true, strict: false, allowUnionTypes: true });
+    addFormats(ajv);
+    validateSchedule = ajv.compile(schema);
+  }
+  return validateSchedule;
+}
+
+/** Checks a JSON document against the public JSON Schema; every error with its JSON pointer. */
+export function assertMatchesScheduleSchema(doc: unknown): void {
+  const validate = getScheduleValidator();
+  if (validate(doc)) return;
+  const errors = (validate.errors ?? []).map((e) => ({
+    pointer: e.instancePath,
+    message: e.keyword === "additionalProperties" ? `unknown field "${String(e.params.additionalProperty)}"` : (e.message ?? "is invalid"),
+  }));
+  throwInvalidSchedule(errors.slice(0, MAX_LISTED_ERRORS), errors.length);
+}
+
+export function parseJsonBody(text: string): unknown {
+  try {
+    return JSON.parse(text);
+  } catch (error) {
+    throw new DomainError("bad_request", `The body is not valid JSON: ${(error as Error).message}.`);
+  }
+}
+
+export interface CsvParameters {
+  name: string;
+  reference?: string;
+  limits: unknown;
+  delimiter: CsvDelimiter;
+  units?: { system?: "SI" | "US" };
+}
+
+const delimiterNames: Record<string, CsvDelimiter> = { ",": ",", comma: ",", ";": ";", semicolon: ";", "\t": "\t", tab: "\t" };
+
+/** Reads CSV options from query parameters or form fields, naming the parameter that is wrong. */
+export function readCsvParameters(get: (name: string) => string | null, fallbackName: string): CsvParameters {
+  const errors: FieldError[] = [];
+  const delimiterText = get("delimiter") ?? ",";
+  const delimiter = delimiterNames[delimiterText];
+  if (!delimiter || !(CSV_DELIMITERS as readonly string[]).includes(delimiter)) errors.push({ pointer: "/query/delimiter", message: 'must be "comma", "semicolon" or "tab"' });
+  const limits = get("limits");
+  if (!limits) errors.push({ pointer: "/query/limits", message: "name the limit preset for the CSV schedule, e.g. limits=ibc-2021-floor" });
+  const system = get("units");
+  if (system !== null && system !== "SI" && system !== "US") errors.push({ pointer: "/query/units", message: 'must be "SI" or "US"' });
+  const name = (get("name") ?? fallbackName).trim();
+  if (name.length === 0 || name.length > 200) errors.push({ pointer: "/query/name", message: "must be 1 to 200 characters" });
+  if (errors.length > 0) throw new DomainError("bad_request", "Some CSV parameters are missing or wrong.", errors);
+  const reference = get("reference") ?? undefined;
+  return { name, reference, limits: { preset: limits }, delimiter: delimiter!, units: system ? { system: system as "SI" | "US" } : undefined };
+}
+
+/** Turns a CSV into a public-format document; row errors carry row, line, column and a code. */
+export function readScheduleCsv(text: string, parameters: CsvParameters) {
+  const parsed = parseScheduleCsv(text, { ...parameters, units: parameters.units ?? {} });
+  if (!parsed.ok) {
+    const errors: FieldError[] = parsed.errors.map((e) => ({ row: e.row, ...(e.line === undefined ? {} : { line: e.line }), column: e.column, code: e.code, message: e.message }));
+    throwInvalidSchedule(errors.slice(0, MAX_LISTED_ERRORS), errors.length);
+  }
+  const toFieldErrors = (issues: InputIssue[]): FieldError[] =>
+    issues.map((issue) => {
+      const e = mapIssueToCsvRow(issue, parsed.places);
+      return { row: e.row, ...(e.line === undefined ? {} : { line: e.line }), column: e.column, code: e.code, message: e.message };
+    });
+  return { doc: parsed.doc, toFieldErrors };
+}

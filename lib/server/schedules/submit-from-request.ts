@@ -1,0 +1,67 @@
+import { DomainError } from "@/lib/server/errors";
+import { hashRequest, runIdempotent, type StoredResponse } from "@/lib/server/http/idempotency";
+import { decodeUtf8, readBodyBytes } from "@/lib/server/http/read-body";
+
+import { assertMatchesScheduleSchema, parseJsonBody, readCsvParameters, readScheduleCsv } from "./read-schedule-body";
+import { scheduleLinks } from "./represent";
+import { submitSchedule, type SubmitScheduleInput } from "./submit-schedule";
+
+/** Stated in the API docs: the largest body POST /api/v1/schedules reads. */
+export const MAX_SCHEDULE_BODY_BYTES = 64 * 1024 * 1024;
+
+type Submitter = Pick<SubmitScheduleInput, "organizationId" | "apiKeyId" | "submittedByUserId">;
+
+async function buildSubmission(fullType: string, type: string, bytes: Uint8Array, params: URLSearchParams): Promise<Pick<SubmitScheduleInput, "doc" | "source" | "toFieldErrors">> {
+  if (type === "application/json") {
+    const doc = parseJsonBody(decodeUtf8(bytes, "body"));
+    assertMatchesScheduleSchema(doc);
+    return { doc, source: "api-json" };
+  }
+  if (type === "text/csv") {
+    const csv = readScheduleCsv(decodeUtf8(bytes, "CSV"), readCsvParameters((n) => params.get(n), "CSV schedule"));
+    return { ...csv, source: "api-csv" };
+  }
+  if (type === "multipart/form-data") return buildFromMultipart(bytes, params, fullType);
+  throw new DomainError("unsupported_media_type", "Send application/json, text/csv or multipart/form-data with a file part.");
+}
+
+async function buildFromMultipart(bytes: Uint8Array, params: URLSearchParams, contentType: string) {
+  let form: FormData;
+  try {
+    form = await new Response(new Blob([bytes as BlobPart]), { headers: { "content-type": contentType } }).formData();
+  } catch {
+    throw new DomainError("bad_request", "The multipart body could not be read.");
+  }
+  const file = form.get("file");
+  if (!(file instanceof Blob)) throw new DomainError("bad_request", 'The multipart body needs a "file" part.', [{ pointer: "/file", message: "missing" }]);
+  const text = decodeUtf8(new Uint8Array(await file.arrayBuffer()), "file");
+  const fileName = file instanceof File ? file.name : "schedule";
+  const get = (name: string) => {
+    const v = form.get(name);
+    return typeof v === "string" ? v : params.get(name);
+  };
+  if (file.type === "application/json" || fileName.toLowerCase().endsWith(".json")) {
+    const doc = parseJsonBody(text);
+    assertMatchesScheduleSchema(doc);
+    return { doc, source: "api-json" as const };
+  }
+  const csv = readScheduleCsv(text, readCsvParameters(get, fileName.replace(/\.[^.]+$/, "")));
+  return { ...csv, source: "api-csv" as const };
+}
+
+/**
+ * POST /api/v1/schedules behind the API-key check: reads the body (JSON, CSV or multipart),
+ * validates all of it, stores and queues it, under the Idempotency-Key rules.
+ */
+export async function submitScheduleRequest(request: Request, submitter: Submitter): Promise<StoredResponse & { replayed: boolean }> {
+  const url = new URL(request.url);
+  const fullType = request.headers.get("content-type") ?? "";
+  const type = fullType.split(";")[0]!.trim().toLowerCase();
+  const bytes = await readBodyBytes(request, MAX_SCHEDULE_BODY_BYTES);
+  const requestHash = hashRequest([type, url.searchParams.toString(), bytes]);
+  return runIdempotent(submitter.organizationId, request.headers.get("idempotency-key"), requestHash, async () => {
+    const submission = await buildSubmission(fullType, type, bytes, url.searchParams);
+    const created = await submitSchedule({ ...submitter, ...submission, callbackEndpointId: url.searchParams.get("callbackEndpointId") });
+    return { status: 202, body: { ...created, links: scheduleLinks(created.id) } };
+  });
+}

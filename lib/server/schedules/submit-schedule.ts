@@ -1,0 +1,131 @@
+import { assertMemberAndProfileValid } from "@/lib/engine/checks";
+import { mapEnginePath } from "@/lib/engine/check-schedule";
+import { parseSchedule } from "@/lib/engine/intake";
+import type { InputIssue } from "@/lib/engine/model";
+import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
+import { getSql } from "@/db/client";
+import { copyRows } from "@/lib/server/copy-rows";
+import { DomainError, type FieldError } from "@/lib/server/errors";
+import { createId } from "@/lib/server/ids";
+
+import { enqueueChunks } from "./enqueue-chunks";
+import { issuesToFieldErrors, MAX_LISTED_ERRORS } from "./issue-pointers";
+
+export const CHUNK_SIZE = Number(process.env.CHECK_CHUNK_SIZE ?? 2000);
+
+export interface SubmitScheduleInput {
+  organizationId: string;
+  source: "api-json" | "api-csv" | "upload";
+  /** A public-format schedule document (already JSON-parsed or built from CSV). */
+  doc: unknown;
+  submittedByUserId?: string | null;
+  apiKeyId?: string | null;
+  callbackEndpointId?: string | null;
+  projectId?: string | null;
+  /** Re-addresses issues to where the person can find them (CSV rows); JSON pointers otherwise. */
+  toFieldErrors?: (issues: InputIssue[]) => FieldError[];
+}
+
+export interface SubmittedSchedule {
+  id: string;
+  status: "queued";
+  memberCount: number;
+  createdAt: string;
+}
+
+/** Every problem of a schedule, from intake and from the engine's member checks, all at once. */
+export function collectScheduleIssues(doc: unknown): { ok: true; parsed: Extract<ReturnType<typeof parseSchedule>, { ok: true }>["schedule"] } | { ok: false; issues: InputIssue[] } {
+  const parsed = parseSchedule(doc, { maxIssues: MAX_LISTED_ERRORS });
+  if (!parsed.ok) return parsed;
+  const issues: InputIssue[] = [];
+  parsed.schedule.members.forEach((member, index) => {
+    try {
+      assertMemberAndProfileValid(member, parsed.schedule.profile);
+    } catch (error) {
+      if (!(error instanceof EngineInputError)) throw error;
+      for (const issue of error.issues) {
+        issues.push({ path: mapEnginePath(issue.path, `members[${index}]`, parsed.schedule.origins[index]), message: issue.message });
+      }
+    }
+  });
+  return issues.length > 0 ? { ok: false, issues } : { ok: true, parsed: parsed.schedule };
+}
+
+/** A callback must be one of the organization's own endpoints; any other id reads as unknown. */
+async function assertCallbackEndpoint(organizationId: string, endpointId: string): Promise<void> {
+  const [found] = await getSql()`select 1 from webhook_endpoints where id = ${endpointId} and organization_id = ${organizationId}`;
+  if (!found) {
+    throw new DomainError("invalid_input", "The callback endpoint is not one of this organization's webhook endpoints.", [
+      { pointer: "/query/callbackEndpointId", message: "register the endpoint first (Integrations, Webhooks) and pass its id" },
+    ]);
+  }
+}
+
+export function throwInvalidSchedule(errors: FieldError[], total: number): never {
+  throw new DomainError(
+    "invalid_input",
+    `The schedule has ${total} problem${total === 1 ? "" : "s"}; nothing was stored.${total > errors.length ? ` The first ${errors.length} are listed.` : ""}`,
+    errors,
+    undefined,
+    { errorCount: total },
+  );
+}
+
+/**
+ * Validates a whole schedule (all or nothing), stores it with its members and work chunks in one
+ * transaction, then queues the chunks for the workers. Nothing is written when any member is bad.
+ */
+export async function submitSchedule(input: SubmitScheduleInput): Promise<SubmittedSchedule> {
+  const checked = collectScheduleIssues(input.doc);
+  if (!checked.ok) {
+    // Intake stops listing at the cap and ends with a "N more issues not listed" line.
+    const more = checked.issues.map((i) => /^(\d+) more issues not listed$/.exec(i.message)).find((m) => m !== null);
+    const listedIssues = checked.issues.filter((i) => !/^\d+ more issues not listed$/.test(i.message));
+    const listed = input.toFieldErrors ? input.toFieldErrors(listedIssues) : issuesToFieldErrors(listedIssues);
+    throwInvalidSchedule(listed.slice(0, MAX_LISTED_ERRORS), listedIssues.length + (more ? Number(more[1]) : 0));
+  }
+  const doc = input.doc as Record<string, unknown>;
+  const members = doc.members as Record<string, unknown>[];
+  const { parsed } = checked;
+  // PostgreSQL's jsonb cannot hold U+0000: refuse it by name instead of failing at the insert.
+  const serialized = members.map((m) => JSON.stringify(m));
+  const withNul = serialized.flatMap((text, index) => (text.includes("\\u0000") ? [{ path: `members[${index}]`, message: "contains a NUL character (U+0000), which cannot be stored" }] : []));
+  const headerHasNul = JSON.stringify([doc.name, doc.reference, doc.units, doc.limits]).includes("\\u0000");
+  if (withNul.length > 0 || headerHasNul) {
+    const issues = withNul.length > 0 ? withNul : [{ path: "", message: "the schedule's name, reference, units or limits contain a NUL character (U+0000), which cannot be stored" }];
+    throwInvalidSchedule((input.toFieldErrors ?? issuesToFieldErrors)(issues).slice(0, MAX_LISTED_ERRORS), issues.length);
+  }
+  const id = createId("sch");
+  const chunkCount = Math.ceil(members.length / CHUNK_SIZE);
+  const header = { format: doc.format, name: doc.name, reference: doc.reference, units: doc.units, limits: doc.limits };
+
+  const sql = getSql();
+  if (input.callbackEndpointId) await assertCallbackEndpoint(input.organizationId, input.callbackEndpointId);
+  const [row] = await sql.begin(async (tx) => {
+    const inserted = await tx`
+      insert into schedules (id, organization_id, project_id, name, reference, status, source, submitted_by_user_id, api_key_id,
+        callback_endpoint_id, profile, header, member_count, chunk_count, queued_at)
+      values (${id}, ${input.organizationId}, ${input.projectId ?? null}, ${parsed.name}, ${parsed.reference}, 'queued', ${input.source},
+        ${input.submittedByUserId ?? null}, ${input.apiKeyId ?? null}, ${input.callbackEndpointId ?? null},
+        ${JSON.stringify(parsed.profile)}::jsonb, ${JSON.stringify(header)}::jsonb, ${members.length}, ${chunkCount}, now())
+      returning created_at`;
+    await copyRows(
+      tx,
+      "schedule_members",
+      ["schedule_id", "member_index", "mark", "category", "input"],
+      serialized.map((text, index) => [id, index, parsed.members[index]!.mark, parsed.members[index]!.category, text]),
+    );
+    const firsts = Array.from({ length: chunkCount }, (_, i) => i * CHUNK_SIZE);
+    await tx`
+      insert into schedule_chunks (schedule_id, chunk_index, first_member, member_count)
+      select ${id}, i - 1, f, least(${CHUNK_SIZE}, ${members.length} - f)
+      from unnest(${tx.array(firsts)}::int[]) with ordinality as t(f, i)`;
+    return inserted;
+  });
+
+  // Queued after commit; if Redis is away the reconciler queues it from PostgreSQL later.
+  await enqueueChunks(id, Array.from({ length: chunkCount }, (_, i) => i)).catch((error: Error) =>
+    console.error(`[sagline] schedule ${id} stored but not queued yet (${error.message}); the reconciler will queue it`),
+  );
+  return { id, status: "queued", memberCount: members.length, createdAt: new Date(row!.created_at as string).toISOString() };
+}

@@ -1,0 +1,62 @@
+// Real responses of the schedules API validated against the public JSON Schemas in api-schemas/.
+import { readFileSync } from "node:fs";
+
+import Ajv2020 from "ajv/dist/2020.js";
+import addFormats from "ajv-formats";
+import request from "supertest";
+import { beforeAll, describe, expect, it } from "vitest";
+
+import { APP_URL } from "@/tests/helpers/app";
+import { createTestKey } from "@/tests/helpers/api-keys";
+import { createBeam, createScheduleDoc, waitForSchedule } from "@/tests/helpers/schedules";
+
+const ajv = new Ajv2020({ allErrors: true, strict: false });
+addFormats(ajv);
+const load = (name: string) => ajv.compile(JSON.parse(readFileSync(`api-schemas/v1/${name}.schema.json`, "utf8")));
+const validators = {
+  accepted: load("schedule-accepted"),
+  status: load("schedule-status"),
+  results: load("results-page"),
+  member: load("member-result"),
+  problem: load("problem"),
+};
+
+function expectValid(name: keyof typeof validators, body: unknown) {
+  const validate = validators[name];
+  expect(validate(body), `${name}: ${ajv.errorsText(validate.errors)}`).toBe(true);
+}
+
+let key: string;
+let scheduleId: string;
+beforeAll(async () => {
+  key = await createTestKey();
+  const accepted = await request(APP_URL).post("/api/v1/schedules").set("authorization", `Bearer ${key}`).send(createScheduleDoc([createBeam("K-1", 4), createBeam("K-2", 9)]));
+  expectValid("accepted", accepted.body);
+  scheduleId = accepted.body.id;
+  await waitForSchedule(key, scheduleId);
+});
+
+describe("schedules API contract", () => {
+  it("status, results and member answers match their schemas", async () => {
+    const auth = { authorization: `Bearer ${key}` };
+    expectValid("status", (await request(APP_URL).get(`/api/v1/schedules/${scheduleId}`).set(auth)).body);
+    expectValid("results", (await request(APP_URL).get(`/api/v1/schedules/${scheduleId}/results`).set(auth)).body);
+    expectValid("member", (await request(APP_URL).get(`/api/v1/schedules/${scheduleId}/members/K-2`).set(auth)).body);
+    const list = await request(APP_URL).get("/api/v1/schedules").set(auth);
+    for (const item of list.body.data) expectValid("status", item);
+  });
+
+  it("errors match the problem schema", async () => {
+    const auth = { authorization: `Bearer ${key}` };
+    const answers = [
+      await request(APP_URL).get("/api/v1/schedules/sch_missing0000").set(auth),
+      await request(APP_URL).post("/api/v1/schedules").set(auth).set("content-type", "application/json").send("{"),
+      await request(APP_URL).post("/api/v1/schedules").set(auth).send(createScheduleDoc([{ ...createBeam("E-1"), spans: [0] }])),
+      await request(APP_URL).get("/api/v1/schedules?cursor=zz").set(auth),
+    ];
+    for (const a of answers) {
+      expect(a.headers["content-type"]).toContain("application/problem+json");
+      expectValid("problem", a.body);
+    }
+  });
+});

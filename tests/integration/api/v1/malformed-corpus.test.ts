@@ -1,0 +1,83 @@
+// RELIABILITY figure 7: a malformed-request corpus against the public API. No 5xx; every error
+// is problem+json; no stack trace, SQL or secret in any body.
+import http from "node:http";
+
+import request from "supertest";
+import { beforeAll, describe, expect, it } from "vitest";
+
+import { APP_URL } from "@/tests/helpers/app";
+import { createTestKey } from "@/tests/helpers/api-keys";
+import { createBeam, createScheduleDoc } from "@/tests/helpers/schedules";
+
+let key: string;
+beforeAll(async () => {
+  key = await createTestKey();
+});
+
+type Case = { label: string; method: "get" | "post"; path: string; type?: string; body?: string | Buffer };
+const doc = (members: unknown[], extra: Record<string, unknown> = {}) => JSON.stringify({ ...createScheduleDoc(members), ...extra });
+
+const corpus: Case[] = [
+  { label: "truncated JSON", method: "post", path: "/api/v1/schedules", type: "application/json", body: '{"format":' },
+  { label: "JSON array", method: "post", path: "/api/v1/schedules", type: "application/json", body: "[]" },
+  { label: "JSON null", method: "post", path: "/api/v1/schedules", type: "application/json", body: "null" },
+  { label: "wrong types", method: "post", path: "/api/v1/schedules", type: "application/json", body: doc([{ ...createBeam("T-1"), spans: "six", quantity: "many", loads: {} }]) },
+  { label: "unknown fields", method: "post", path: "/api/v1/schedules", type: "application/json", body: doc([{ ...createBeam("U-1"), colour: "red" }], { extra: true }) },
+  { label: "no members", method: "post", path: "/api/v1/schedules", type: "application/json", body: doc([]) },
+  { label: "a NUL in a mark", method: "post", path: "/api/v1/schedules", type: "application/json", body: doc([createBeam("N\u0000UL")]) },
+  { label: "a 100,000-character mark", method: "post", path: "/api/v1/schedules", type: "application/json", body: doc([createBeam("M".repeat(100_000))]) },
+  { label: "a script tag and formula in a mark", method: "post", path: "/api/v1/schedules", type: "application/json", body: doc([createBeam("<script>alert(1)</script>"), { ...createBeam("=cmd|' /C calc'!A0"), spans: [-1] }]) },
+  { label: "numbers as huge exponents", method: "post", path: "/api/v1/schedules", type: "application/json", body: doc([{ ...createBeam("E-1"), spans: [1e308 * 10] }]).replace("null", "1e999") },
+  { label: "invalid UTF-8", method: "post", path: "/api/v1/schedules", type: "application/json", body: Buffer.from([0x7b, 0xff, 0xfe, 0x7d]) },
+  { label: "CSV with an unterminated quote", method: "post", path: "/api/v1/schedules?limits=ibc-2021-floor", type: "text/csv", body: 'mark,category\r\n"A,floor_beam\r\n' },
+  { label: "CSV with duplicate headers", method: "post", path: "/api/v1/schedules?limits=ibc-2021-floor", type: "text/csv", body: "mark,mark\r\nA,B\r\n" },
+  { label: "CSV with an unknown delimiter", method: "post", path: "/api/v1/schedules?limits=ibc-2021-floor&delimiter=pipe", type: "text/csv", body: "mark|category\r\n" },
+  { label: "CSV with an unknown preset", method: "post", path: "/api/v1/schedules?limits=%3Cscript%3E", type: "text/csv", body: "mark\r\nA\r\n" },
+  { label: "multipart without a file", method: "post", path: "/api/v1/schedules", type: "multipart/form-data; boundary=x", body: "--x\r\nContent-Disposition: form-data; name=\"name\"\r\n\r\nA\r\n--x--\r\n" },
+  { label: "a broken multipart body", method: "post", path: "/api/v1/schedules", type: "multipart/form-data; boundary=x", body: "garbage" },
+  { label: "a forged cursor", method: "get", path: "/api/v1/schedules?cursor=eyJjcmVhdGVkQXQiOiJub3BlIn0" },
+  { label: "a SQL-looking cursor", method: "get", path: "/api/v1/schedules?cursor=%27%3B%20drop%20table%20schedules%3B--" },
+  { label: "a negative limit", method: "get", path: "/api/v1/schedules?limit=-5" },
+  { label: "a hostile schedule id", method: "get", path: "/api/v1/schedules/%27%20or%201%3D1--" },
+  { label: "a hostile mark", method: "get", path: "/api/v1/schedules/sch_abc/members/%3Cscript%3E" },
+  { label: "an unknown status filter", method: "get", path: "/api/v1/schedules/sch_abc/results?status=maybe" },
+  { label: "an unknown format", method: "get", path: "/api/v1/schedules/sch_abc/results?format=xlsx" },
+];
+
+/** Declares a body over the 64 MB cap and sends only its start: the answer must not wait for the rest. */
+function postDeclaredOversize(): Promise<{ status: number; type: string; body: string }> {
+  return new Promise((resolve, reject) => {
+    const url = new URL("/api/v1/schedules", APP_URL);
+    const req = http.request(url, { method: "POST", headers: { authorization: `Bearer ${key}`, "content-type": "application/json", "content-length": String(70 * 1024 * 1024) } }, (res) => {
+      let body = "";
+      res.on("data", (c) => (body += c));
+      res.on("end", () => {
+        resolve({ status: res.statusCode ?? 0, type: String(res.headers["content-type"]), body });
+        req.destroy();
+      });
+    });
+    req.on("error", reject);
+    req.write("{".padEnd(64 * 1024, " "));
+  });
+}
+
+describe("malformed requests", () => {
+  it("a body declared over the limit: 413 problem+json at once", async () => {
+    const response = await postDeclaredOversize();
+    expect(response.status).toBe(413);
+    expect(response.type).toContain("application/problem+json");
+    expect(JSON.parse(response.body)).toMatchObject({ type: "https://sagline.dev/problems/too-large", status: 413 });
+  });
+
+  it.each(corpus.map((c) => [c.label, c] as const))("%s: a 4xx problem, nothing leaked", async (_label, c) => {
+    let req = request(APP_URL)[c.method](c.path).set("authorization", `Bearer ${key}`);
+    if (c.type) req = req.set("content-type", c.type);
+    const response = c.body === undefined ? await req : await req.send(c.body);
+    expect(response.status, response.text.slice(0, 300)).toBeGreaterThanOrEqual(400);
+    expect(response.status).toBeLessThan(500);
+    expect(response.headers["content-type"]).toContain("application/problem+json");
+    expect(response.body.status).toBe(response.status);
+    const text = response.text;
+    for (const leak of [key, "node_modules", "    at ", "postgres", "SELECT ", "select ", "syntax error"]) expect(text).not.toContain(leak);
+  });
+});

@@ -1,0 +1,131 @@
+// POST and GET /api/v1/schedules against the running server, the real worker, PostgreSQL and Redis.
+import { beforeAll, describe, expect, it } from "vitest";
+import request from "supertest";
+
+import { demoOrganizations } from "@/db/seed-data";
+import { APP_URL } from "@/tests/helpers/app";
+import { createTestKey } from "@/tests/helpers/api-keys";
+import { createBeam, createScheduleDoc, waitForSchedule } from "@/tests/helpers/schedules";
+
+let key: string;
+let otherKey: string;
+beforeAll(async () => {
+  key = await createTestKey();
+  otherKey = await createTestKey(["schedules:write", "results:read"], demoOrganizations.fabricator.id);
+});
+
+const api = () => request(APP_URL);
+const problem = (code: string) => `https://sagline.dev/problems/${code}`;
+
+describe("POST /api/v1/schedules", () => {
+  it("accepts a JSON schedule with 202, checks it on the workers and serves the pass/fail table", async () => {
+    // Hand check with 5wL^4/(384EI) (AISC Manual Table 3-23 case 1, from memory) and the plate
+    // formula I = [bf d^3 - (bf - tw)(d - 2tf)^3]/12 = 8.0e7 mm^4, E = 210,000 MPa (EN 1993-1-1):
+    // live 7.5 kN/m on 9 m deflects about 38 mm > 9000/360 = 25 mm (fail); on 4 m about 1.5 mm (pass).
+    const doc = createScheduleDoc([createBeam("B-01", 4), createBeam("B-02", 9), createBeam("=HYPERLINK(\"x\")", 4)]);
+    const response = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).send(doc);
+    expect(response.status).toBe(202);
+    expect(response.body).toMatchObject({ id: expect.stringMatching(/^sch_[0-9a-z]+$/), status: "queued", memberCount: 3 });
+    expect(response.headers.location).toBe(`/api/v1/schedules/${response.body.id}`);
+
+    const done = await waitForSchedule(key, response.body.id);
+    expect(done).toMatchObject({ status: "completed", progress: { members: 3, checked: 3, fraction: 1 }, counts: { passed: 2, failed: 1, errors: 0 } });
+
+    const results = await api().get(`/api/v1/schedules/${response.body.id}/results`).set("authorization", `Bearer ${key}`);
+    expect(results.status).toBe(200);
+    expect(results.body.data.map((r: { mark: string; status: string }) => [r.mark, r.status])).toEqual([
+      ["B-01", "pass"],
+      ["B-02", "fail"],
+      ['=HYPERLINK("x")', "pass"],
+    ]);
+    const failing = await api().get(`/api/v1/schedules/${response.body.id}/results?status=fail`).set("authorization", `Bearer ${key}`);
+    expect(failing.body.data.map((r: { mark: string }) => r.mark)).toEqual(["B-02"]);
+
+    const csv = await api().get(`/api/v1/schedules/${response.body.id}/results`).set("authorization", `Bearer ${key}`).set("accept", "text/csv");
+    expect(csv.headers["content-type"]).toContain("text/csv");
+    expect(csv.text.split("\r\n")[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety");
+    // Formula injection: the cell starts with a quote so a spreadsheet shows it as text.
+    expect(csv.text).toContain(`"'=HYPERLINK(""x"")",floor_beam,pass`);
+
+    const member = await api().get(`/api/v1/schedules/${response.body.id}/members/B-02`).set("authorization", `Bearer ${key}`);
+    expect(member.status).toBe(200);
+    expect(member.body).toMatchObject({ mark: "B-02", status: "fail" });
+    expect(member.body.checks.length).toBeGreaterThanOrEqual(2);
+    expect(member.body.shape.length).toBeGreaterThan(10);
+    expect(member.body.suggestion.minIMm4).toBeGreaterThan(0);
+  });
+
+  it("accepts the same schedule as CSV with units in the headers", async () => {
+    const csv = "mark,category,quantity,material,section,bf [mm],tf [mm],d [mm],tw [mm],span_1 [m],supports,dead_uniform [kN/m],live_uniform [kN/m]\r\nC-1,floor_beam,2,steel-s355,i_plate,150,10.7,300,7.1,4,pinned roller,3,7.5\r\n";
+    const response = await api().post("/api/v1/schedules?limits=ibc-2021-floor&name=CSV%20test").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send(csv);
+    expect(response.status).toBe(202);
+    expect((await waitForSchedule(key, response.body.id)).status).toBe("completed");
+  });
+
+  it.each([
+    ["bad JSON", "application/json", "{ not json", 400, "bad-request"],
+    ["an unsupported media type", "application/xml", "<schedule/>", 415, "unsupported-media-type"],
+  ])("answers %s with problem+json", async (_label, type, body, status, code) => {
+    const response = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).set("content-type", type).send(body);
+    expect(response.status).toBe(status);
+    expect(response.headers["content-type"]).toContain("application/problem+json");
+    expect(response.body).toMatchObject({ type: problem(code), status, instance: "/api/v1/schedules" });
+  });
+
+  it("refuses a schedule with any invalid member, listing every error with its pointer, and stores nothing", async () => {
+    const bad = createScheduleDoc([createBeam("OK-1"), { ...createBeam("BAD-1"), spans: [0] }, { ...createBeam("BAD-2"), supports: ["pinned"] }]);
+    const before = await api().get("/api/v1/schedules?limit=100").set("authorization", `Bearer ${key}`);
+    const response = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).send(bad);
+    expect(response.status).toBe(422);
+    expect(response.body).toMatchObject({ type: problem("invalid-input"), title: "Invalid input", status: 422 });
+    const pointers = response.body.errors.map((e: { pointer: string }) => e.pointer);
+    expect(pointers.some((p: string) => p.startsWith("/members/1/spans/0"))).toBe(true);
+    expect(pointers.some((p: string) => p.startsWith("/members/2/supports"))).toBe(true);
+    expect(response.body.errorCount).toBe(response.body.errors.length);
+    const after = await api().get("/api/v1/schedules?limit=100").set("authorization", `Bearer ${key}`);
+    expect(after.body.data.length).toBe(before.body.data.length);
+  });
+
+  it("reports CSV row errors with row, line, column and code", async () => {
+    const csv = 'mark,category,quantity,material,section,bf [mm],tf [mm],d [mm],tw [mm],span_1 [m],supports,dead_uniform [kN/m],live_uniform [kN/m],notes\r\nC-1,floor_beam,1,steel-s355,i_plate,150,10.7,300,7.1,4,pinned roller,3,7.5,"two\r\nlines"\r\nC-2,floor_beam,1,steel-s355,i_plate,150,10.7,300,7.1,abc,pinned roller,3,7.5,\r\n';
+    const response = await api().post("/api/v1/schedules?limits=ibc-2021-floor").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send(csv);
+    expect(response.status).toBe(422);
+    const error = response.body.errors.find((e: { column: string }) => e.column.startsWith("span_1"));
+    // The quoted newline in row 2 puts row 3 on line 4.
+    expect(error).toMatchObject({ row: 3, line: 4, column: "span_1 [m]" });
+    expect(typeof error.code).toBe("string");
+  });
+
+  it("refuses a CSV without its limit preset naming the parameter", async () => {
+    const response = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send("mark\r\nx\r\n");
+    expect(response.status).toBe(400);
+    expect(response.body.errors).toContainEqual({ pointer: "/query/limits", message: expect.stringContaining("limit preset") });
+  });
+});
+
+describe("reading schedules", () => {
+  it("answers another organization's schedule exactly like a missing one", async () => {
+    const created = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).send(createScheduleDoc([createBeam("X-1")]));
+    const foreign = await api().get(`/api/v1/schedules/${created.body.id}`).set("authorization", `Bearer ${otherKey}`);
+    const missing = await api().get("/api/v1/schedules/sch_doesnotexist0000").set("authorization", `Bearer ${otherKey}`);
+    expect(foreign.status).toBe(404);
+    expect({ ...foreign.body, instance: undefined }).toEqual({ ...missing.body, instance: undefined });
+    for (const path of ["results", "members/X-1"]) {
+      const r = await api().get(`/api/v1/schedules/${created.body.id}/${path}`).set("authorization", `Bearer ${otherKey}`);
+      expect(r.status, path).toBe(404);
+    }
+  });
+
+  it("paginates the list with a Link header and refuses a forged cursor", async () => {
+    for (let i = 0; i < 3; i += 1) await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).send(createScheduleDoc([createBeam(`P-${i}`)]));
+    const first = await api().get("/api/v1/schedules?limit=2").set("authorization", `Bearer ${key}`);
+    expect(first.body.data).toHaveLength(2);
+    expect(first.headers.link).toMatch(/^<\/api\/v1\/schedules\?limit=2&cursor=[A-Za-z0-9_-]+>; rel="next"$/);
+    const nextPath = /<([^>]+)>/.exec(String(first.headers.link))![1]!;
+    const second = await api().get(nextPath).set("authorization", `Bearer ${key}`);
+    expect(second.body.data[0].id).not.toBe(first.body.data[1].id);
+    const forged = await api().get("/api/v1/schedules?cursor=not-a-cursor").set("authorization", `Bearer ${key}`);
+    expect(forged.status).toBe(400);
+    expect(forged.body.errors).toEqual([{ pointer: "/query/cursor", message: "use the cursor from a Link header or links.next" }]);
+  });
+});

@@ -1,0 +1,213 @@
+// The schedules pages over HTTP: who sees what, 404 for missing and foreign ids alike, hostile
+// marks rendered as text, and the CSV export with formula prefixes neutralised.
+import { beforeAll, describe, expect, it } from "vitest";
+
+import { demoOrganizations } from "@/db/seed-data";
+import { anonymous, callAction, findAction, signInAs, type Agent } from "@/tests/helpers/app";
+
+import { BEAM_HEADER, beamRow, toCsv, uploadCsv, waitForSchedule } from "./upload-helpers";
+
+const HOSTILE_MARKS = {
+  script: "<script>alert('x')</script>",
+  formula: "=HYPERLINK(\"http://evil.example\",\"open\")",
+  plus: "+SUM(A1:A9)",
+  at: "@cmd",
+  minus: "-2+3",
+  // A literal percent escape and a slash: the mark must be decoded exactly once.
+  percent: "R/2 at 50%41",
+  long: "L".repeat(30) + "-ВЕРХНИЙ-梁-東側-" + "Ω".repeat(18),
+};
+
+let submitter: Agent;
+let viewer: Agent;
+let scheduleId: string;
+let foreignId: string;
+
+beforeAll(async () => {
+  submitter = await signInAs("submitter");
+  viewer = await signInAs("viewer");
+  const rows = [BEAM_HEADER, beamRow("PG-F1", 50, 50), beamRow("PG-P1", 200, 600), ...Object.values(HOSTILE_MARKS).map((m) => beamRow(m, 200, 600))];
+  const created = await uploadCsv(submitter, toCsv(rows), { name: "Pages test <b>bold</b> schedule", reference: "=REF()" });
+  expect(created.status).toBe(202);
+  scheduleId = created.body.id;
+  await waitForSchedule(submitter, scheduleId);
+
+  // The administrator also belongs to the fabricator: a schedule there is another organization's.
+  const admin = await signInAs("admin");
+  const switched = await callAction(admin, findAction("(dashboard)/switchOrganization"), { organizationId: demoOrganizations.fabricator.id });
+  expect(switched.result?.ok).toBe(true);
+  const foreign = await uploadCsv(admin, toCsv([BEAM_HEADER, beamRow("FOREIGN-1", 100, 300)]), { name: "Fabricator's own schedule" });
+  expect(foreign.status).toBe(202);
+  foreignId = foreign.body.id;
+});
+
+describe("the schedules list", () => {
+  it("shows the organization's schedules to a viewer, without the submit button", async () => {
+    const response = await viewer.get("/schedules");
+    expect(response.status).toBe(200);
+    expect(response.text).toContain("Pages test &lt;b&gt;bold&lt;/b&gt; schedule");
+    expect(response.text).not.toContain("<b>bold</b>");
+    expect(response.text).not.toContain("Fabricator&#x27;s own schedule");
+    expect(response.text).not.toContain('href="/schedules/new"');
+  });
+
+  it("offers Submit a CSV to a submitter", async () => {
+    const response = await submitter.get("/schedules");
+    expect(response.text).toContain('href="/schedules/new"');
+  });
+
+  it("says so when a page cursor is not one Sagline issued", async () => {
+    const response = await viewer.get("/schedules?cursor=not-a-cursor");
+    expect(response.status).toBe(200);
+    expect(response.text).toContain("not one Sagline issued");
+  });
+});
+
+describe("the upload page", () => {
+  for (const role of ["submitter", "engineer", "admin"] as const) {
+    it(`opens for the ${role} role`, async () => {
+      const response = await (await signInAs(role)).get("/schedules/new");
+      expect(response.status).toBe(200);
+      expect(response.text).toContain("Submit a CSV schedule");
+    });
+  }
+  for (const role of ["viewer", "integrator"] as const) {
+    it(`is forbidden to the ${role} role`, async () => {
+      const response = await (await signInAs(role)).get("/schedules/new");
+      expect(response.status).toBe(403);
+    });
+  }
+});
+
+describe("a schedule's results page", () => {
+  it("shows the summary and every member with its outcome", async () => {
+    const response = await viewer.get(`/schedules/${scheduleId}`);
+    expect(response.status).toBe(200);
+    expect(response.text).toContain("IBC 2021 Table 1604.3");
+    expect(response.text).toMatch(/data-status="fail"[^]*?PG-F1[^]*?Fail/);
+    expect(response.text).toMatch(/data-status="pass"[^]*?PG-P1[^]*?Pass/);
+  });
+
+  it("filters by outcome", async () => {
+    const response = await viewer.get(`/schedules/${scheduleId}?status=fail`);
+    expect(response.text).toContain("PG-F1");
+    expect(response.text).not.toContain("PG-P1");
+  });
+
+  it("says an unknown filter value was not applied", async () => {
+    const response = await viewer.get(`/schedules/${scheduleId}?status=maybe`);
+    expect(response.status).toBe(200);
+    expect(response.text).toContain("Not applied");
+    expect(response.text).toContain("PG-P1");
+  });
+
+  it("renders hostile marks as text", async () => {
+    const response = await viewer.get(`/schedules/${scheduleId}`);
+    expect(response.text).not.toContain("<script>alert");
+    expect(response.text).toContain("&lt;script&gt;alert(&#x27;x&#x27;)&lt;/script&gt;");
+    expect(response.text).toContain(HOSTILE_MARKS.long);
+    expect(response.text).toContain("+SUM(A1:A9)");
+  });
+
+  it("answers 404 alike for a missing id and another organization's id", async () => {
+    const missing = await viewer.get("/schedules/sch_doesnotexist0000");
+    const foreign = await viewer.get(`/schedules/${foreignId}`);
+    expect(missing.status).toBe(404);
+    expect(foreign.status).toBe(404);
+    expect(foreign.text).not.toContain("Fabricator");
+    const strip = (html: string) => html.replace(/sch_[0-9a-z]+/g, "ID");
+    expect(strip(foreign.text).length).toBe(strip(missing.text).length);
+  });
+
+  it("sends a visitor without a session to sign in, keeping the address", async () => {
+    const response = await anonymous().get(`/schedules/${scheduleId}`).redirects(0);
+    expect(response.status).toBe(307);
+    expect(response.headers.location).toContain(encodeURIComponent(`/schedules/${scheduleId}`));
+  });
+});
+
+describe("a member's page", () => {
+  it("shows every check, the suggestion and the deflected shape", async () => {
+    const response = await viewer.get(`/schedules/${scheduleId}/members/PG-F1`);
+    expect(response.status).toBe(200);
+    expect(response.text).toContain("Member PG-F1");
+    expect(response.text).toContain("Minimum second moment of area");
+    expect(response.text).toContain("Deflection (mm, + downward)");
+    expect(response.text).toContain("Position from the left end, x (m)");
+    expect(response.text).toMatch(/<svg[^>]*role="img"/);
+    // The checks table lists both combinations of the preset (IBC 2021 Table 1604.3: live, dead + live).
+    expect(response.text).toContain("dead+live");
+  });
+
+  it("opens for a hostile mark and renders it as text", async () => {
+    const response = await viewer.get(`/schedules/${scheduleId}/members/${encodeURIComponent(HOSTILE_MARKS.script)}`);
+    expect(response.status).toBe(200);
+    expect(response.text).not.toContain("<script>alert");
+    expect(response.text).toContain("Member &lt;script&gt;");
+    const long = await viewer.get(`/schedules/${scheduleId}/members/${encodeURIComponent(HOSTILE_MARKS.long)}`);
+    expect(long.status).toBe(200);
+    const percent = await viewer.get(`/schedules/${scheduleId}/members/${encodeURIComponent(HOSTILE_MARKS.percent)}`);
+    expect(percent.status).toBe(200);
+    expect(percent.text).toContain("Member R/2 at 50%41");
+  });
+
+  it("answers 404 for a missing mark and another organization's schedule", async () => {
+    expect((await viewer.get(`/schedules/${scheduleId}/members/NOPE`)).status).toBe(404);
+    expect((await viewer.get(`/schedules/${foreignId}/members/FOREIGN-1`)).status).toBe(404);
+  });
+});
+
+describe("the progress route", () => {
+  it("answers JSON for the organization's schedule and 404 problem+json for a missing or foreign one", async () => {
+    const own = await viewer.get(`/api/schedules/${scheduleId}/progress`);
+    expect(own.status).toBe(200);
+    expect(own.body).toMatchObject({ id: scheduleId, status: "completed", progress: { members: 9, checked: 9 } });
+    for (const id of ["sch_doesnotexist0000", foreignId]) {
+      const response = await viewer.get(`/api/schedules/${id}/progress`);
+      expect(response.status).toBe(404);
+      expect(response.headers["content-type"]).toContain("application/problem+json");
+      expect(response.body).toMatchObject({ type: "https://sagline.dev/problems/not-found", status: 404, detail: "The schedule was not found." });
+    }
+  });
+
+  it("answers 401 without a session", async () => {
+    expect((await anonymous().get(`/api/schedules/${scheduleId}/progress`)).status).toBe(401);
+  });
+});
+
+describe("the CSV export", () => {
+  it("exports every result with formula prefixes neutralised", async () => {
+    const response = await viewer.get(`/schedules/${scheduleId}/results.csv`).buffer(true);
+    expect(response.status).toBe(200);
+    expect(response.headers["content-type"]).toContain("text/csv");
+    const lines = response.text.trim().split("\r\n");
+    expect(lines[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety");
+    expect(lines).toHaveLength(10);
+    // OWASP CSV injection guidance: a leading = + - @ is prefixed with a quote.
+    expect(response.text).toContain(`"'=HYPERLINK(""http://evil.example"",""open"")"`);
+    expect(response.text).toContain("'+SUM(A1:A9)");
+    expect(response.text).toContain("'@cmd");
+    expect(response.text).toContain("'-2+3");
+    expect(response.text).not.toMatch(/(^|\r\n)[=+\-@]/);
+  });
+
+  it("applies the page's filters and refuses an unknown one", async () => {
+    const failing = await viewer.get(`/schedules/${scheduleId}/results.csv?status=fail`).buffer(true);
+    expect(failing.text.trim().split("\r\n").slice(1).map((l) => l.split(",")[0])).toEqual(["PG-F1"]);
+    const unknown = await viewer.get(`/schedules/${scheduleId}/results.csv?status=maybe`);
+    expect(unknown.status).toBe(400);
+  });
+
+  it("answers 404 for another organization's schedule", async () => {
+    expect((await viewer.get(`/schedules/${foreignId}/results.csv`)).status).toBe(404);
+  });
+});
+
+describe("the CSV template", () => {
+  it("downloads without a session", async () => {
+    const response = await anonymous().get("/api/templates/schedule.csv").buffer(true);
+    expect(response.status).toBe(200);
+    expect(response.headers["content-type"]).toContain("text/csv");
+    expect(response.text.startsWith("mark,category,quantity,material")).toBe(true);
+  });
+});

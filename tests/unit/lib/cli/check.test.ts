@@ -1,0 +1,166 @@
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { fileURLToPath } from "node:url";
+
+import Ajv2020 from "ajv/dist/2020.js";
+import { describe, expect, it } from "vitest";
+
+const repoRoot = fileURLToPath(new URL("../../../../", import.meta.url));
+const exampleJson = "examples/harrowgate-mews-block-c.json";
+const exampleCsv = "examples/harrowgate-mews-block-c-joists.csv";
+const tempDir = mkdtempSync(join(tmpdir(), "sagline-cli-"));
+
+function runCli(args: string[]) {
+  const result = spawnSync(process.execPath, ["--import", "tsx", "lib/cli/check.ts", ...args], { cwd: repoRoot, encoding: "utf8", timeout: 60_000 });
+  return { code: result.status, stdout: result.stdout, stderr: result.stderr };
+}
+
+function writeTemp(name: string, text: string): string {
+  const path = join(tempDir, name);
+  writeFileSync(path, text);
+  return path;
+}
+
+const CAUTION = "Screening and review aid: the engineer of record and the governing local codes decide.";
+
+describe("npm run check", { timeout: 60_000 }, () => {
+  it("exits 1 when a member fails, with the table and the caution line", () => {
+    const { code, stdout, stderr } = runCli([exampleJson]);
+    expect(stderr).toBe("");
+    expect(code).toBe(1);
+    expect(stdout).toMatch(/^mark\s+governing check\s+deflection \[mm\]\s+allowed \[mm\]\s+utilization\s+FoS\s+pass$/m);
+    expect(stdout).toMatch(/^B1\s.*PASS$/m);
+    expect(stdout).toMatch(/^B2\s.*FAIL$/m);
+    expect(stdout).toContain("6 members: 5 pass, 1 fail.");
+    expect(stdout).toContain(CAUTION);
+  });
+
+  it("exits 0 when every member passes (the CSV example with a profile)", () => {
+    const { code, stdout } = runCli([exampleCsv, "--profile", "en1995-timber-floor"]);
+    expect(code).toBe(0);
+    expect(stdout).toContain("5 members: 5 pass, 0 fail.");
+    expect(stdout).toContain(CAUTION);
+  });
+
+  it("reads a semicolon-delimited CSV when told", () => {
+    const text = "mark;category;quantity;material;section;b [mm];h [mm];span_1 [m];supports;live_uniform [kN/m]\r\nB1;floor_beam;1;steel-s355;rectangle;100;200;3;pinned roller;1\r\n";
+    const { code, stdout } = runCli([writeTemp("semi.csv", text), "--delimiter", ";", "--profile", "ibc-2021-floor"]);
+    expect(code).toBe(0);
+    expect(stdout).toMatch(/^B1\s.*PASS$/m);
+  });
+
+  it("prints results JSON that matches result.schema.json", () => {
+    const { code, stdout } = runCli([exampleJson, "--json"]);
+    expect(code).toBe(1);
+    const doc = JSON.parse(stdout);
+    const schema = JSON.parse(readFileSync(join(repoRoot, "api-schemas/v1/result.schema.json"), "utf8"));
+    const validate = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true }).compile(schema);
+    expect(validate(doc) ? [] : validate.errors).toEqual([]);
+    expect(doc.caution).toBe(CAUTION);
+    expect(doc.summary).toEqual({ members: 6, passed: 5, failed: 1 });
+  });
+
+  it("exits 2 and prints every issue as path: message", () => {
+    const doc = JSON.parse(readFileSync(join(repoRoot, exampleJson), "utf8"));
+    doc.members[0].spans = [0];
+    doc.members[2].loads[2].at = 9;
+    const { code, stdout, stderr } = runCli([writeTemp("bad.json", JSON.stringify(doc))]);
+    expect(code).toBe(2);
+    expect(stdout).toBe("");
+    expect(stderr.trim().split("\n")).toEqual([
+      "members[0].spans[0]: must be greater than 0",
+      "members[2].loads[2].at: beyond the end of the member (total length 5500 mm, overhangs included)",
+    ]);
+  });
+
+  it("exits 2 with row, line and column for a bad CSV row", () => {
+    const text = 'mark,category,quantity,material,section,b [mm],h [mm],span_1 [m],supports,live_uniform [kN/m],notes\nB1,floor_beam,1,steel-s355,rectangle,100,200,3,pinned roller,1,"two\nlines"\nB2,floor_beam,1,steel-s355,rectangle,100,200,abc,pinned roller,1,\n';
+    const { code, stderr } = runCli([writeTemp("bad.csv", text), "--profile", "ibc-2021-floor"]);
+    expect(code).toBe(2);
+    expect(stderr.trim()).toBe('row 3 (line 4), span_1 [m]: "abc" is not a number');
+  });
+
+  it("exits 2 for intake issues in a CSV, naming the row", () => {
+    const text = "mark,category,quantity,material,section,b [mm],h [mm],span_1 [m],supports,live_uniform [kN/m]\nB1,floor_beam,1,steel-s355,rectangle,100,200,0,pinned roller,1\n";
+    const { code, stderr } = runCli([writeTemp("zero.csv", text), "--profile", "ibc-2021-floor"]);
+    expect(code).toBe(2);
+    expect(stderr.trim()).toBe("row 2, span_1 [m]: must be greater than 0");
+  });
+
+  it("exits 2 when a CSV has no profile, listing the presets", () => {
+    const { code, stderr } = runCli([exampleCsv]);
+    expect(code).toBe(2);
+    expect(stderr).toMatch(/a CSV schedule needs --profile ID; presets: ibc-2021-floor, /);
+  });
+
+  it("exits 2 on a file that is not JSON, without a stack trace", () => {
+    const { code, stderr } = runCli([writeTemp("broken.json", "{ not json")]);
+    expect(code).toBe(2);
+    expect(stderr).toMatch(/broken\.json: not valid JSON/);
+    expect(stderr).not.toMatch(/\bat .*\.ts:\d+/);
+  });
+
+  it("exits 2 on a missing file and on an unknown option", () => {
+    expect(runCli([join(tempDir, "nope.json")]).code).toBe(2);
+    const unknown = runCli([exampleJson, "--colour"]);
+    expect(unknown.code).toBe(2);
+    expect(unknown.stderr).toContain("unknown option --colour");
+  });
+
+  it("prints deflections in inches for a US schedule: 5wL^4/(384EI) = 0.487 in against l/360 = 0.667 in (AISC Manual Table 3-23 case 1)", () => {
+    const doc = {
+      format: "sagline.schedule/v1",
+      name: "US beam",
+      units: { system: "US" },
+      limits: { preset: "ibc-2021-floor" },
+      members: [
+        {
+          mark: "W1",
+          category: "floor_beam",
+          quantity: 1,
+          material: "steel-aisc",
+          section: { shape: "explicit", I: 204 },
+          spans: [20],
+          supports: ["pinned", "roller"],
+          loads: [{ case: "live", type: "uniform", w: 0.8 }],
+        },
+      ],
+    };
+    // w = 0.8 klf = 0.8/12 kip/in, L = 240 in, E = 29,000 ksi, I = 204 in^4.
+    const expectedIn = (5 * (0.8 / 12) * 240 ** 4) / (384 * 29000 * 204);
+    const { code, stdout } = runCli([writeTemp("us.json", JSON.stringify(doc))]);
+    expect(code).toBe(0);
+    expect(stdout).toContain("deflection [in]");
+    const row = /^W1\s+live span 1\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+PASS$/m.exec(stdout);
+    expect(row?.slice(1, 4)).toEqual([expectedIn.toFixed(3), (240 / 360).toFixed(3), (expectedIn / (240 / 360)).toFixed(3)]);
+  });
+
+  it("passes --catalogue through: the failing member gets the lightest catalogue section with enough I", () => {
+    const catalogueFile = "examples/catalogue-kestrel-plate-girders.json";
+    const { code, stdout } = runCli([exampleJson, "--catalogue", catalogueFile]);
+    expect(code).toBe(1);
+    const match = /^B2: needs I >= ([\d,]+) mm\^4; lightest passing catalogue section (.+)$/m.exec(stdout);
+    expect(match).not.toBeNull();
+    const minIMm4 = Number((match?.[1] ?? "").replaceAll(",", ""));
+    const catalogue: { name: string; iMm4: number; massKgPerM: number }[] = JSON.parse(readFileSync(join(repoRoot, catalogueFile), "utf8"));
+    const byMass = [...catalogue].sort((a, b) => a.massKgPerM - b.massKgPerM);
+    const chosen = byMass.findIndex((s) => s.name === match?.[2]);
+    expect(byMass[chosen]?.iMm4).toBeGreaterThanOrEqual(minIMm4);
+    expect(byMass[chosen - 1]?.iMm4 ?? 0).toBeLessThan(minIMm4);
+  });
+
+  it("exits 2 on a malformed catalogue", () => {
+    const { code, stderr } = runCli([exampleJson, "--catalogue", writeTemp("cat.json", '[{"name": "X", "iMm4": -1}]')]);
+    expect(code).toBe(2);
+    expect(stderr).toContain("catalogue[0] needs name, and positive iMm4, areaMm2 and massKgPerM");
+  });
+
+  it("replaces the schedule's limits with --profile", () => {
+    const { code, stdout } = runCli([exampleJson, "--profile", "ibc-2021-floor"]);
+    // IBC floor has no creep combination: timber members then need no creep spec and still check.
+    expect(stdout).toContain("Floor members, IBC 2021");
+    expect(code).toBe(1);
+  });
+});

@@ -1,0 +1,98 @@
+import { readFileSync } from "node:fs";
+
+import Ajv2020 from "ajv/dist/2020.js";
+import addFormats from "ajv-formats";
+import { describe, expect, it } from "vitest";
+
+import { buildScheduleCompletedEvent, RESULT_ROWS_CAP, type ResultRow } from "@/lib/server/webhooks/events/schedule-completed";
+import { buildMemberDispositionedEvent, buildScheduleFailedEvent, buildWebhookTestEvent } from "@/lib/server/webhooks/events/simple-events";
+
+const ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true });
+addFormats(ajv);
+function schemaFor(type: string) {
+  const id = `https://sagline.example/api-schemas/v1/events/${type}.schema.json`;
+  const compiled = ajv.getSchema(id);
+  if (compiled) return compiled;
+  const file = new URL(`../../../../../api-schemas/v1/events/${type}.schema.json`, import.meta.url);
+  return ajv.compile(JSON.parse(readFileSync(file, "utf8")));
+}
+
+function expectValid(type: string, payload: unknown) {
+  const validate = schemaFor(type);
+  // JSON round trip: what the receiver parses is what must conform.
+  const valid = validate(JSON.parse(JSON.stringify(payload)));
+  expect(validate.errors ?? [], type).toEqual([]);
+  expect(valid).toBe(true);
+}
+
+const occurredAt = new Date("2026-12-01T10:00:00Z");
+const schedule = {
+  id: "sch_millrace2",
+  name: "Millrace Yard level 2 beams",
+  reference: "BHS-2026-114-L2",
+  completedAt: new Date("2026-12-01T10:00:00Z"),
+  memberCount: 3,
+  checkedCount: 3,
+  passCount: 2,
+  failCount: 1,
+  errorCount: 0,
+};
+function rows(n: number): ResultRow[] {
+  return Array.from({ length: n }, (_, i) => ({ mark: `B${i + 1}`, governingCheck: "live", utilization: 0.5, factorOfSafety: 2, pass: true }));
+}
+
+describe("event payloads conform to their published JSON Schemas", () => {
+  it("schedule.completed with every row", () => {
+    const event = buildScheduleCompletedEvent({
+      schedule,
+      rows: [
+        { mark: "B1", governingCheck: "live", utilization: 0.82, factorOfSafety: 1.22, pass: true },
+        { mark: "B2", governingCheck: "total", utilization: 1.31, factorOfSafety: 0.76, pass: false },
+        { mark: "C1", governingCheck: null, utilization: null, factorOfSafety: Number.POSITIVE_INFINITY, pass: true },
+      ],
+      appUrl: "http://127.0.0.1:3790",
+      occurredAt,
+    });
+    expectValid("schedule.completed", event);
+    expect(event.data.truncated).toBe(false);
+    expect(event.data.rows).toHaveLength(3);
+    // JSON cannot carry Infinity; a non-finite factor of safety is sent as null.
+    expect(event.data.rows[2]!.factorOfSafety).toBeNull();
+    expect(event.data.resultsUrl).toBe("http://127.0.0.1:3790/api/v1/schedules/sch_millrace2/results");
+    expect(event.data.counts).toEqual({ members: 3, checked: 3, passed: 2, failed: 1, errors: 0 });
+  });
+
+  it("schedule.completed beyond the row cap is truncated and points at the results", () => {
+    const big = { ...schedule, memberCount: RESULT_ROWS_CAP + 500, checkedCount: RESULT_ROWS_CAP + 500, passCount: RESULT_ROWS_CAP + 500, failCount: 0 };
+    const event = buildScheduleCompletedEvent({ schedule: big, rows: rows(RESULT_ROWS_CAP + 1), appUrl: "https://sagline.example", occurredAt });
+    expectValid("schedule.completed", event);
+    expect(event.data.rows).toHaveLength(1_000);
+    expect(event.data.truncated).toBe(true);
+    expect(event.data.rowLimit).toBe(1_000);
+  });
+
+  it("a row count at exactly the cap is not truncated", () => {
+    const exact = { ...schedule, memberCount: RESULT_ROWS_CAP };
+    const event = buildScheduleCompletedEvent({ schedule: exact, rows: rows(RESULT_ROWS_CAP), appUrl: "https://sagline.example", occurredAt });
+    expect(event.data.truncated).toBe(false);
+  });
+
+  it("schedule.failed, member.dispositioned and webhook.test", () => {
+    expectValid("schedule.failed", buildScheduleFailedEvent({ scheduleId: "sch_x1", name: null, reason: "The schedule has no members.", occurredAt }));
+    expectValid(
+      "member.dispositioned",
+      buildMemberDispositionedEvent({ scheduleId: "sch_x1", mark: "B12", disposition: "accepted-as-is", by: "Tomasz Achebe", note: "Within the span/240 total limit after site measurement.", occurredAt }),
+    );
+    expectValid("member.dispositioned", buildMemberDispositionedEvent({ scheduleId: "sch_x1", mark: "B12", disposition: "revise", by: "Tomasz Achebe", note: null, occurredAt }));
+    expectValid("webhook.test", buildWebhookTestEvent({ endpointId: "wh_7k2m", occurredAt }));
+  });
+
+  it("the schemas reject what the builders must never send", () => {
+    const completed = schemaFor("schedule.completed");
+    const event = JSON.parse(JSON.stringify(buildScheduleCompletedEvent({ schedule, rows: rows(1), appUrl: "https://sagline.example", occurredAt })));
+    expect(completed({ ...event, data: { ...event.data, secret: "whsec_x" } })).toBe(false);
+    expect(completed({ ...event, type: "schedule.failed" })).toBe(false);
+    expect(completed({ ...event, data: { ...event.data, rows: [{ mark: "B1", pass: "yes" }] } })).toBe(false);
+    expect(() => buildMemberDispositionedEvent({ scheduleId: "sch_x1", mark: "", disposition: "x", by: "y", note: null, occurredAt })).toThrow();
+  });
+});
