@@ -35,6 +35,6 @@ build_web_if_needed "$SAGLINE_DIST_DIR"
 # Two worker processes, one per core, as README's scaling section describes.
 start_process worker "$RUN" "$LOCAL_DIR/logs/bench-worker.log" npx tsx workers/index.ts
 start_process worker-2 "$RUN" "$LOCAL_DIR/logs/bench-worker-2.log" npx tsx workers/index.ts
-start_process web "$RUN" "$LOCAL_DIR/logs/bench-web.log" npx next start -H 127.0.0.1 -p "$BENCH_APP_PORT"
+START_PORT="${APP_URL##*:}" start_process web "$RUN" "$LOCAL_DIR/logs/bench-web.log" npx next start -H 127.0.0.1 -p "$BENCH_APP_PORT"
 wait_for_url "$APP_URL/api/health" 60
 npx tsx tests/bench/pipeline.bench.ts

@@ -1,11 +1,17 @@
 # Starting and stopping Sagline's own processes by pid file. Sourced by start.sh, stop.sh, test.sh.
 
 # start_process NAME RUN_DIR LOG COMMAND...: starts in the background unless already running.
+# With START_PORT set, refuses to start when something else already listens there, so a health
+# check can never be answered by a stranger's server.
 start_process() {
   local name="$1" run_dir="$2" logfile="$3"
   shift 3
   mkdir -p "$run_dir"
   if pid_alive "$run_dir/$name.pid"; then return 0; fi
+  if [ -n "${START_PORT:-}" ] && (exec 3<>"/dev/tcp/127.0.0.1/$START_PORT") 2>/dev/null; then
+    echo "port $START_PORT (for $name) is taken by another program; stop it or choose another port (see README, Configuration)" >&2
+    exit 1
+  fi
   # setsid gives each process its own group, so stop can end it with its children.
   setsid nohup "$@" >"$logfile" 2>&1 < /dev/null &
   echo $! > "$run_dir/$name.pid"

@@ -39,7 +39,7 @@ fi
 for script in workers/index.ts; do
   [ -f "$script" ] && start_process worker "$RUN" "$LOCAL_DIR/logs/worker.log" npx tsx "$script"
 done
-start_process web "$RUN" "$LOCAL_DIR/logs/web.log" npx next start -H 127.0.0.1 -p "$APP_PORT"
+START_PORT="${APP_URL##*:}" start_process web "$RUN" "$LOCAL_DIR/logs/web.log" npx next start -H 127.0.0.1 -p "$APP_PORT"
 
 wait_for_url "$APP_URL/api/health" 60 || { log "the web app did not become healthy; see $LOCAL_DIR/logs/web.log"; tail -20 "$LOCAL_DIR/logs/web.log"; exit 1; }
 echo

@@ -65,7 +65,7 @@ start_process partner-fake "$RUN" "$LOCAL_DIR/logs/$TEST_DB-partner-fake.log" np
 for script in workers/index.ts; do
   [ -f "$script" ] && start_process worker "$RUN" "$LOCAL_DIR/logs/$TEST_DB-worker.log" npx tsx "$script"
 done
-start_process web "$RUN" "$LOCAL_DIR/logs/$TEST_DB-web.log" npx next start -H 127.0.0.1 -p "$TEST_APP_PORT"
+START_PORT="${APP_URL##*:}" start_process web "$RUN" "$LOCAL_DIR/logs/$TEST_DB-web.log" npx next start -H 127.0.0.1 -p "$TEST_APP_PORT"
 wait_for_url "$APP_URL/api/health" 60 || { tail -30 "$LOCAL_DIR/logs/$TEST_DB-web.log"; exit 1; }
 wait_for_url "$MAIL_UI_URL" 30
 wait_for_url "http://127.0.0.1:$PARTNER_PORT/" 30

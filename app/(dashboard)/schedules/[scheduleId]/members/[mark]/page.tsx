@@ -30,6 +30,18 @@ function decodeMark(segment: string): string | null {
   }
 }
 
+/** Bare numbers above are in the schedule's default units; say which, so no value is read without its unit. */
+function ScheduleUnits({ units }: { units: unknown }) {
+  if (typeof units !== "object" || units === null) return null;
+  const entries = Object.entries(units as Record<string, unknown>).filter(([, v]) => typeof v === "string");
+  if (entries.length === 0) return null;
+  return (
+    <p className="mt-3 border-t border-rule pt-2 text-xs text-ink-soft">
+      Numbers without a unit are in the schedule&apos;s units: {entries.map(([k, v]) => `${k} ${String(v)}`).join(", ")}.
+    </p>
+  );
+}
+
 export default async function MemberPage({ params }: MemberPageProps) {
   const { scheduleId, mark: markSegment } = await params;
   const context = await requirePage("/schedules/[scheduleId]/members/[mark]", `/schedules/${encodeURIComponent(scheduleId)}/members/${markSegment}`);
@@ -125,6 +137,7 @@ export default async function MemberPage({ params }: MemberPageProps) {
               Inputs as submitted
             </h2>
             <MemberInputs input={(member.input ?? {}) as Record<string, unknown>} />
+            <ScheduleUnits units={(member.header as { units?: unknown } | null)?.units} />
           </section>
         </aside>
       </div>
