@@ -41,7 +41,7 @@ wait_for_url() {
 # Builds the web app only when its sources changed since the last build into DIST.
 build_web_if_needed() {
   local dist="$1" stamp="$1/.sagline-source-hash" hash
-  hash="$(cd "$ROOT" && { git ls-files -co --exclude-standard -- app components lib db next.config.mjs package-lock.json postcss.config.mjs tsconfig.json 2>/dev/null || true; } | sort | xargs -r sha1sum 2>/dev/null | sha1sum | cut -d' ' -f1)"
+  hash="$(cd "$ROOT" && { git ls-files -co --exclude-standard -- app components lib db api-schemas proxy.ts instrumentation.ts next.config.mjs package-lock.json postcss.config.mjs tsconfig.json 2>/dev/null || true; } | sort | xargs -r sha1sum 2>/dev/null | sha1sum | cut -d' ' -f1)"
   if [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$hash" ]; then return 0; fi
   log "building the web app (next build)"
   (cd "$ROOT" && SAGLINE_DIST_DIR="$dist" NEXT_TELEMETRY_DISABLED=1 npx next build >"$LOCAL_DIR/build-$(basename "$dist").log" 2>&1) || { tail -40 "$LOCAL_DIR/build-$(basename "$dist").log"; exit 1; }
