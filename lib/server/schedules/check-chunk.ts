@@ -86,10 +86,9 @@ function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
   for (const o of outcomes) {
     const r = o.result;
     const governing = r?.governing ?? null;
-    // The sampled shape is recomputed on demand for one member (cheap); storing it for every member is not.
-    const detail = r
-      ? { rotations: r.rotations, frequency: r.frequency, suggestion: r.suggestion, error: null }
-      : { rotations: [], frequency: null, suggestion: null, error: o.error };
+    // Shape and rotations are recomputed on demand for one member (member-shape.ts): cheap for
+    // one, but a large share of the bytes written for every member of a big schedule.
+    const detail = r ? { frequency: r.frequency, suggestion: r.suggestion, error: null } : { frequency: null, suggestion: null, error: o.error };
     yield [
       scheduleId,
       o.index,

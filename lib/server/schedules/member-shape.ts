@@ -1,14 +1,24 @@
 import { checkMember } from "@/lib/engine/check-member";
 import { parseSchedule } from "@/lib/engine/intake";
-import type { ShapeSample } from "@/lib/engine/model";
+import type { RotationResult, ShapeSample } from "@/lib/engine/model";
 
-/** Re-runs the engine for one stored member to sample its deflected shape for a diagram. */
-export function computeMemberShape(header: Record<string, unknown>, input: unknown): ShapeSample[] {
+export interface MemberDiagrams {
+  shape: ShapeSample[];
+  rotations: RotationResult[];
+}
+
+/**
+ * Re-runs the engine for one stored member for what only its own page needs: the sampled shape
+ * and the support rotations. Cheap for one member; storing them for every member of a 100,000-
+ * member schedule is not.
+ */
+export function computeMemberDiagrams(header: Record<string, unknown>, input: unknown): MemberDiagrams {
   const parsed = parseSchedule({ ...header, members: [input] });
-  if (!parsed.ok) return [];
+  if (!parsed.ok) return { shape: [], rotations: [] };
   try {
-    return checkMember(parsed.schedule.members[0]!, parsed.schedule.profile).shape;
+    const result = checkMember(parsed.schedule.members[0]!, parsed.schedule.profile);
+    return { shape: result.shape, rotations: result.rotations };
   } catch {
-    return [];
+    return { shape: [], rotations: [] };
   }
 }

@@ -1,9 +1,8 @@
 import { formatNumber, splitPowerOfTen } from "./format";
 import { OutcomeLabel } from "./outcome-label";
 
-/** The engine's stored extras for one member (lib/server/schedules/check-chunk.ts). */
+/** The engine's stored extras for one member (lib/server/schedules/check-chunk.ts); rotations are recomputed. */
 export type MemberDetail = {
-  rotations: { combinationId: string; nodeIndex: number; atMm: number; rotationRad: number }[];
   frequency: { hz: number; minHz: number; pass: boolean; method: string } | null;
   suggestion: { minIMm4: number; sectionName: string | null } | null;
   error: string | null;

@@ -1,7 +1,8 @@
-import type { MemberDetail } from "./member-findings";
+import type { RotationResult } from "@/lib/engine/model";
+
 import { formatNumber } from "./format";
 
-export type MemberRotationsProps = { rotations: MemberDetail["rotations"] };
+export type MemberRotationsProps = { rotations: RotationResult[] };
 
 /** Rotation at every node per combination, in milliradians (the engine works in radians). */
 export function MemberRotations({ rotations }: MemberRotationsProps) {

@@ -5,7 +5,7 @@ import { notFound } from "next/navigation";
 import { SafetyCaution } from "@/components/ui/safety-caution";
 import { getMemberResult, getSchedule } from "@/db/queries/schedules";
 import { requirePage } from "@/lib/server/auth/guards";
-import { computeMemberShape } from "@/lib/server/schedules/member-shape";
+import { computeMemberDiagrams } from "@/lib/server/schedules/member-shape";
 
 import { PageHeader } from "../../../../_components/page-header";
 import { categoryLabels, formatCheckKey, formatRatio } from "../../../_components/format";
@@ -66,9 +66,9 @@ export default async function MemberPage({ params }: MemberPageProps) {
     factorOfSafety: c.factor_of_safety,
     pass: c.pass,
   }));
-  const nodesMm = [...new Set((detail?.rotations ?? []).map((r) => r.atMm))];
-  // The sampled shape is not stored; the engine re-checks this one member to draw it.
-  const shape = detail && !detail.error ? computeMemberShape(member.header as Record<string, unknown>, member.input) : [];
+  // Shape and rotations are not stored; the engine re-checks this one member to draw them.
+  const { shape, rotations } = detail && !detail.error ? computeMemberDiagrams(member.header as Record<string, unknown>, member.input) : { shape: [], rotations: [] };
+  const nodesMm = [...new Set(rotations.map((r) => r.atMm))];
 
   return (
     <>
@@ -125,7 +125,7 @@ export default async function MemberPage({ params }: MemberPageProps) {
             <h2 id="rotations-heading" className="mb-2 font-semibold">
               Rotations at the nodes
             </h2>
-            <MemberRotations rotations={detail?.rotations ?? []} />
+            <MemberRotations rotations={rotations} />
           </section>
         </div>
 
