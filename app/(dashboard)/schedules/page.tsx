@@ -39,6 +39,12 @@ export default async function SchedulesPage({ searchParams }: SchedulesPageProps
         ) : null}
       </PageHeader>
       <SafetyCaution />
+      <p className="mt-2 text-xs text-ink-soft">
+        <Link href="/verification" className="text-action underline">
+          How the engine is verified
+        </Link>{" "}
+        against handbook formulas.
+      </p>
       {invalid ? (
         <div className="mt-4">
           <Notice tone="info">That page link is not one Sagline issued; showing the newest schedules.</Notice>

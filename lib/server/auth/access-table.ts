@@ -15,6 +15,7 @@ export const pageAccess = {
   "/reset-password/[token]": "public",
   "/invitations/[token]": "public",
   "/schedules": "organization:read",
+  "/verification": "signed-in",
   "/review": "review:read",
   "/integrations": "integrations:manage",
   "/settings": "settings:read",
