@@ -12,16 +12,9 @@ bash docker-local/redis.sh start
 RUN="$LOCAL_DIR/run-bench"
 mkdir -p "$RUN" "$LOCAL_DIR/logs"
 BENCH_APP_PORT="${SAGLINE_BENCH_APP_PORT:-3796}"
-export NODE_ENV=production
-export DATABASE_URL="postgres://sagline:${SAGLINE_DB_PASSWORD:-sagline-local}@127.0.0.1:$PG_PORT/sagline_bench"
-export REDIS_URL="redis://127.0.0.1:$REDIS_PORT/7"
-export REDIS_PREFIX="sagline-bench"
-export APP_URL="http://127.0.0.1:$BENCH_APP_PORT"
-export NEXTAUTH_URL="$APP_URL"
-export NEXTAUTH_SECRET="$(ensure_secret nextauth-bench)"
+unset NEXTAUTH_SECRET; export_app_env sagline_bench 7 sagline-bench "http://127.0.0.1:$BENCH_APP_PORT" nextauth-bench
 export SAGLINE_FAKES=0 SMTP_HOST=127.0.0.1 SMTP_PORT=2599
 export SAGLINE_DIST_DIR=.next-bench
-export NEXT_TELEMETRY_DISABLED=1
 export SAGLINE_RUN_DIR="$RUN"
 
 cleanup() { for name in web worker worker-2; do stop_process "$name" "$RUN"; done; }

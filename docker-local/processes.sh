@@ -55,3 +55,16 @@ ensure_secret() {
   [ -s "$file" ] || (umask 077 && head -c 48 /dev/urandom | base64 | tr -d '\n/+=' > "$file")
   cat "$file"
 }
+
+# export_app_env DB REDIS_DB PREFIX APP_URL SECRET_NAME: the environment every Sagline process
+# of one set-up (start, test, bench) shares: its database, Redis database and queue prefix, its
+# public address and its session secret.
+export_app_env() {
+  export NODE_ENV=production NEXT_TELEMETRY_DISABLED=1
+  export DATABASE_URL="postgres://sagline:${SAGLINE_DB_PASSWORD:-sagline-local}@127.0.0.1:$PG_PORT/$1"
+  export REDIS_URL="redis://127.0.0.1:$REDIS_PORT/$2"
+  export REDIS_PREFIX="$3"
+  export APP_URL="$4"
+  export NEXTAUTH_URL="$APP_URL"
+  export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-$(ensure_secret "$5")}"
+}

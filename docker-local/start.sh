@@ -12,18 +12,11 @@ bash docker-local/redis.sh start
 
 RUN="$LOCAL_DIR/run"
 mkdir -p "$RUN" "$LOCAL_DIR/logs"
-export NODE_ENV=production
-export DATABASE_URL="postgres://sagline:${SAGLINE_DB_PASSWORD:-sagline-local}@127.0.0.1:$PG_PORT/sagline"
-export REDIS_URL="redis://127.0.0.1:$REDIS_PORT/0"
-export REDIS_PREFIX="sagline"
-export APP_URL="${APP_URL:-http://127.0.0.1:$APP_PORT}"
-export NEXTAUTH_URL="$APP_URL"
-export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-$(ensure_secret nextauth)}"
+export_app_env sagline 0 sagline "${APP_URL:-http://127.0.0.1:$APP_PORT}" nextauth
 export SMTP_HOST=127.0.0.1 SMTP_PORT MAIL_UI_PORT
 export SAGLINE_FAKES="${SAGLINE_FAKES:-1}"
 export MAIL_UI_URL="http://127.0.0.1:$MAIL_UI_PORT/"
 export MAIL_DIR="$LOCAL_DIR/mail"
-export NEXT_TELEMETRY_DISABLED=1
 # Webhooks may reach the local fake partner receiver on loopback (the SSRF guard refuses loopback otherwise).
 if [ "$SAGLINE_FAKES" = "1" ]; then export WEBHOOK_ALLOWLIST="${WEBHOOK_ALLOWLIST:-127.0.0.1:$PARTNER_PORT}"; fi
 

@@ -21,13 +21,7 @@ TEST_APP_PORT="${SAGLINE_TEST_APP_PORT:-3793}"
 export SMTP_PORT="${SAGLINE_TEST_SMTP_PORT:-2593}"
 export MAIL_UI_PORT="${SAGLINE_TEST_MAIL_UI_PORT:-3794}"
 export PARTNER_PORT="${SAGLINE_TEST_PARTNER_PORT:-3795}"
-export NODE_ENV=production
-export DATABASE_URL="postgres://sagline:${SAGLINE_DB_PASSWORD:-sagline-local}@127.0.0.1:$PG_PORT/$TEST_DB"
-export REDIS_URL="redis://127.0.0.1:$REDIS_PORT/$TEST_REDIS_DB"
-export REDIS_PREFIX="sagline-test"
-export APP_URL="http://127.0.0.1:$TEST_APP_PORT"
-export NEXTAUTH_URL="$APP_URL"
-export NEXTAUTH_SECRET="$(ensure_secret nextauth-test)"
+unset NEXTAUTH_SECRET; export_app_env "$TEST_DB" "$TEST_REDIS_DB" sagline-test "http://127.0.0.1:$TEST_APP_PORT" nextauth-test
 export SMTP_HOST=127.0.0.1 SAGLINE_FAKES=1
 export MAIL_UI_URL="http://127.0.0.1:$MAIL_UI_PORT/"
 export MAIL_DIR="$LOCAL_DIR/mail-$TEST_DB"
@@ -35,7 +29,6 @@ export SAGLINE_DIST_DIR="${SAGLINE_DIST_DIR:-.next-test}"
 # A spare port for tests that start a second web process of their own.
 export SAGLINE_TEST_SPARE_PORT="${SAGLINE_TEST_SPARE_PORT:-3799}"
 export SIGN_IN_MAX_FAILURES=5
-export NEXT_TELEMETRY_DISABLED=1
 # Webhooks: the fake partner on loopback is allowed past the SSRF guard; retries run 5000x faster.
 export WEBHOOK_ALLOWLIST="127.0.0.1:$PARTNER_PORT"
 export WEBHOOK_RETRY_SCALE="${WEBHOOK_RETRY_SCALE:-0.0002}"

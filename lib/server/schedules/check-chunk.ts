@@ -86,7 +86,7 @@ function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
   for (const o of outcomes) {
     const r = o.result;
     const governing = r?.governing ?? null;
-    // Shape and rotations are recomputed on demand for one member (member-shape.ts): cheap for
+    // Shape and rotations are recomputed on demand for one member (get-member-report.ts): cheap for
     // one, but a large share of the bytes written for every member of a big schedule.
     const detail = r ? { frequency: r.frequency, suggestion: r.suggestion, error: null } : { frequency: null, suggestion: null, error: o.error };
     yield [

@@ -1,18 +1,8 @@
+import type { MemberCheckRow } from "@/lib/server/schedules/get-member-report";
 import { formatMm, formatNumber, formatRatio } from "./format";
 import { OutcomeLabel } from "./outcome-label";
 
-export type MemberCheck = {
-  checkKey: string;
-  combinationId: string;
-  spanIndex: number;
-  spanKind: string;
-  deflectionMm: number;
-  atMm: number;
-  allowedMm: number;
-  utilization: number;
-  factorOfSafety: number | null;
-  pass: boolean;
-};
+export type MemberCheck = MemberCheckRow;
 
 export type MemberChecksTableProps = { checks: MemberCheck[]; governingKey: string | null };
 

@@ -1,12 +1,7 @@
+import type { MemberReport } from "@/lib/server/schedules/get-member-report";
 import { formatNumber, splitPowerOfTen } from "./format";
 import { OutcomeLabel } from "./outcome-label";
 
-/** The engine's stored extras for one member (lib/server/schedules/check-chunk.ts); rotations are recomputed. */
-export type MemberDetail = {
-  frequency: { hz: number; minHz: number; pass: boolean; method: string } | null;
-  suggestion: { minIMm4: number; sectionName: string | null } | null;
-  error: string | null;
-};
 
 function PowerOfTen({ value }: { value: number }) {
   const split = splitPowerOfTen(value);
@@ -18,7 +13,7 @@ function PowerOfTen({ value }: { value: number }) {
   );
 }
 
-export type MemberSuggestionProps = { status: "pass" | "fail" | "error" | "pending"; suggestion: MemberDetail["suggestion"] };
+export type MemberSuggestionProps = { status: "pass" | "fail" | "error" | "pending"; suggestion: MemberReport["suggestion"] };
 
 export function MemberSuggestion({ status, suggestion }: MemberSuggestionProps) {
   return (
@@ -48,7 +43,7 @@ export function MemberSuggestion({ status, suggestion }: MemberSuggestionProps) 
   );
 }
 
-export type MemberFrequencyProps = { frequency: MemberDetail["frequency"] };
+export type MemberFrequencyProps = { frequency: MemberReport["frequency"] };
 
 export function MemberFrequency({ frequency }: MemberFrequencyProps) {
   return (

@@ -3,14 +3,14 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 
 import { SafetyCaution } from "@/components/ui/safety-caution";
-import { getMemberResult, getSchedule } from "@/db/queries/schedules";
+import { getSchedule } from "@/db/queries/schedules";
 import { requirePage } from "@/lib/server/auth/guards";
-import { computeMemberDiagrams } from "@/lib/server/schedules/member-shape";
+import { getMemberReport } from "@/lib/server/schedules/get-member-report";
 
 import { PageHeader } from "../../../../_components/page-header";
 import { categoryLabels, formatCheckKey, formatRatio } from "../../../_components/format";
-import { MemberChecksTable, type MemberCheck } from "../../../_components/member-checks-table";
-import { MemberFrequency, MemberSuggestion, type MemberDetail } from "../../../_components/member-findings";
+import { MemberChecksTable } from "../../../_components/member-checks-table";
+import { MemberFrequency, MemberSuggestion } from "../../../_components/member-findings";
 import { MemberInputs } from "../../../_components/member-inputs";
 import { MemberRotations } from "../../../_components/member-rotations";
 import { OutcomeLabel } from "../../../_components/outcome-label";
@@ -48,26 +48,9 @@ export default async function MemberPage({ params }: MemberPageProps) {
   const schedule = await getSchedule(context.active!.organizationId, scheduleId);
   const mark = decodeMark(markSegment);
   if (!schedule || mark === null) notFound();
-  const found = await getMemberResult(schedule.id, mark);
-  if (!found) notFound();
-
-  const { member } = found;
-  const detail = (member.detail ?? null) as MemberDetail | null;
-  const status = detail === null ? "pending" : detail.error ? "error" : member.pass ? "pass" : "fail";
-  const checks: MemberCheck[] = found.checks.map((c) => ({
-    checkKey: c.check_key,
-    combinationId: c.combination_id,
-    spanIndex: c.span_index,
-    spanKind: c.span_kind,
-    deflectionMm: c.deflection_mm,
-    atMm: c.at_mm,
-    allowedMm: c.allowed_mm,
-    utilization: c.utilization,
-    factorOfSafety: c.factor_of_safety,
-    pass: c.pass,
-  }));
-  // Shape and rotations are not stored; the engine re-checks this one member to draw them.
-  const { shape, rotations } = detail && !detail.error ? computeMemberDiagrams(member.header as Record<string, unknown>, member.input) : { shape: [], rotations: [] };
+  const report = await getMemberReport(schedule.id, mark);
+  if (!report) notFound();
+  const { status, checks, shape, rotations } = report;
   const nodesMm = [...new Set(rotations.map((r) => r.atMm))];
 
   return (
@@ -83,7 +66,7 @@ export default async function MemberPage({ params }: MemberPageProps) {
       </p>
       {/* Marks and names may be long unbroken strings: let them wrap anywhere rather than widen the page. */}
       <div className="[&_h1]:[overflow-wrap:anywhere] [&_p]:[overflow-wrap:anywhere]">
-        <PageHeader title={`Member ${member.mark}`} lead={`${categoryLabels[member.category] ?? member.category} · checked against ${schedule.profile.label}`}>
+        <PageHeader title={`Member ${report.mark}`} lead={`${categoryLabels[report.category] ?? report.category} · checked against ${schedule.profile.label}`}>
           <span className="text-base">
             <OutcomeLabel status={status} />
           </span>
@@ -93,25 +76,25 @@ export default async function MemberPage({ params }: MemberPageProps) {
 
       <div className="mt-6 grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-6">
-          {detail?.error ? (
+          {report.error ? (
             <section aria-labelledby="error-heading" className="rounded border border-caution/40 bg-caution-bg p-3 text-caution">
               <h2 id="error-heading" className="font-semibold">
                 This member could not be checked
               </h2>
-              <p className="mt-1 [overflow-wrap:anywhere]">{detail.error}</p>
+              <p className="mt-1 [overflow-wrap:anywhere]">{report.error}</p>
             </section>
           ) : null}
-          {detail === null ? <p className="text-ink-soft">The workers have not checked this member yet.</p> : null}
+          {status === "pending" ? <p className="text-ink-soft">The workers have not checked this member yet.</p> : null}
 
           <section aria-labelledby="checks-heading">
             <h2 id="checks-heading" className="mb-2 font-semibold">
               Checks
             </h2>
             <p className="mb-2 text-ink-soft">
-              Governing: {formatCheckKey(member.governing_check ?? null)} · utilization {formatRatio(member.utilization ?? null)} · factor of safety{" "}
-              {formatRatio(member.factor_of_safety ?? null)}
+              Governing: {formatCheckKey(report.governingCheck)} · utilization {formatRatio(report.utilization)} · factor of safety{" "}
+              {formatRatio(report.factorOfSafety)}
             </p>
-            <MemberChecksTable checks={checks} governingKey={member.governing_check ?? null} />
+            <MemberChecksTable checks={checks} governingKey={report.governingCheck} />
           </section>
 
           <section aria-labelledby="shape-heading">
@@ -130,14 +113,14 @@ export default async function MemberPage({ params }: MemberPageProps) {
         </div>
 
         <aside className="min-w-0 space-y-6">
-          <MemberSuggestion status={status} suggestion={detail?.suggestion ?? null} />
-          <MemberFrequency frequency={detail?.frequency ?? null} />
+          <MemberSuggestion status={status} suggestion={report.suggestion} />
+          <MemberFrequency frequency={report.frequency} />
           <section aria-labelledby="inputs-heading" className="rounded border border-rule bg-sheet p-4">
             <h2 id="inputs-heading" className="mb-2 font-semibold">
               Inputs as submitted
             </h2>
-            <MemberInputs input={(member.input ?? {}) as Record<string, unknown>} />
-            <ScheduleUnits units={(member.header as { units?: unknown } | null)?.units} />
+            <MemberInputs input={report.input} />
+            <ScheduleUnits units={report.units} />
           </section>
         </aside>
       </div>
