@@ -1,6 +1,6 @@
 import type { CatalogueSection, LimitProfile, Member, MemberResult, ShapeSample } from "./model";
 import { assertMemberAndProfileValid, evaluateValidatedMember } from "./checks/evaluate-member";
-import { sampleSpanDeflections } from "./solver/deflection-field";
+import { sampleSpanDeflections, type CaseFactors } from "./solver/deflection-field";
 import type { MemberSolution } from "./solver/solve-member";
 import { suggestResize } from "./suggest";
 
@@ -14,7 +14,7 @@ const localPositions = new Float64Array(SHAPE_POINTS_PER_SPAN);
  * The deflected shape for diagrams: SHAPE_POINTS_PER_SPAN evenly spaced points per span (the
  * support nodes included), deflection in mm (+ down) per combination id.
  */
-export function sampleShape(solution: MemberSolution, combinationIds: string[], combinationFactors: Float64Array[]): ShapeSample[] {
+export function sampleShape(solution: MemberSolution, combinationIds: string[], combinationFactors: CaseFactors[]): ShapeSample[] {
   const samples: ShapeSample[] = [];
   const intervals = SHAPE_POINTS_PER_SPAN - 1;
   const combinationCount = combinationIds.length;
@@ -26,7 +26,7 @@ export function sampleShape(solution: MemberSolution, combinationIds: string[], 
     const length = solution.lengthMm[span] as number;
     for (let k = 0; k <= intervals; k++) localPositions[k] = k === intervals ? length : (length * k) / intervals;
     for (let c = 0; c < combinationCount; c++) {
-      sampleSpanDeflections(solution, combinationFactors[c] as Float64Array, span, localPositions, values, c, combinationCount);
+      sampleSpanDeflections(solution, combinationFactors[c] as CaseFactors, span, localPositions, values, c, combinationCount);
     }
     for (let k = span === 0 ? 0 : 1; k <= intervals; k++) {
       // cloning a template keeps one hidden class: the stores below then hit existing fields
@@ -38,36 +38,10 @@ export function sampleShape(solution: MemberSolution, combinationIds: string[], 
   return samples;
 }
 
-const LAZY_SHAPE = Symbol("lazy shape");
-
-interface LazyShape {
-  solution: MemberSolution;
-  profile: LimitProfile;
-  combinationFactors: Float64Array[];
-  samples: ShapeSample[] | null;
+export interface CheckMemberOptions {
+  /** Also sample the deflected shape for diagrams (MemberResult.shape). */
+  shape?: boolean;
 }
-
-type WithLazyShape = { [LAZY_SHAPE]: LazyShape };
-
-/**
- * One shared accessor for every result: `shape` is an own enumerable property (JSON.stringify,
- * spread and structuredClone read it) computed on first read. Sharing the functions keeps one
- * hidden class for all results; a fresh closure per result would make each one unique.
- */
-const SHAPE_DESCRIPTOR: PropertyDescriptor = {
-  enumerable: true,
-  configurable: true,
-  get(this: WithLazyShape): ShapeSample[] {
-    const lazy = this[LAZY_SHAPE];
-    if (lazy.samples === null) {
-      lazy.samples = sampleShape(lazy.solution, lazy.profile.combinations.map((combination) => combination.id), lazy.combinationFactors);
-    }
-    return lazy.samples;
-  },
-  set(this: WithLazyShape, value: ShapeSample[]) {
-    this[LAZY_SHAPE].samples = value;
-  },
-};
 
 /**
  * Checks one member against a limit profile: every combination on every span (largest deflection
@@ -76,13 +50,14 @@ const SHAPE_DESCRIPTOR: PropertyDescriptor = {
  * and for a failing member the minimum uniform I and the lightest passing catalogue section.
  * Internal units (model.ts). Throws EngineInputError (paths relative to the member; profile
  * issues under `profile.`, catalogue issues under `catalogue[i]`) for input it cannot analyse.
- * `shape` is computed on first read (it costs more than the checks) and then kept.
+ * `shape` only when options.shape is set: sampling it costs more than the checks, and only a
+ * member's own page draws it.
  */
-export function checkMember(member: Member, profile: LimitProfile, catalogue?: CatalogueSection[]): MemberResult {
+export function checkMember(member: Member, profile: LimitProfile, catalogue?: CatalogueSection[], options: CheckMemberOptions = {}): MemberResult {
   assertMemberAndProfileValid(member, profile);
   const evaluation = evaluateValidatedMember(member, profile);
   const outcome = evaluation.pass ? null : suggestResize(member, profile, evaluation, catalogue);
-  const base = {
+  const result: MemberResult = {
     mark: member.mark,
     category: member.category,
     checks: evaluation.checks,
@@ -91,9 +66,10 @@ export function checkMember(member: Member, profile: LimitProfile, catalogue?: C
     frequency: evaluation.frequency,
     pass: evaluation.pass,
     suggestion: outcome === null ? null : outcome.suggestion,
-    [LAZY_SHAPE]: { solution: evaluation.solution, profile, combinationFactors: evaluation.combinationFactors, samples: null } as LazyShape,
   };
-  const result = Object.defineProperty(base, "shape", SHAPE_DESCRIPTOR) as unknown as MemberResult;
+  if (options.shape === true) {
+    result.shape = sampleShape(evaluation.solution, profile.combinations.map((combination) => combination.id), evaluation.combinationFactors);
+  }
   if (outcome !== null && outcome.notes.length > 0) result.notes = outcome.notes;
   return result;
 }

@@ -1,5 +1,5 @@
 import { STANDARD_GRAVITY_M_PER_S2, type FrequencyResult, type Load, type LimitProfile, type Member } from "./model";
-import { deflectionAt } from "./solver/deflection-field";
+import { deflectionAt, resetCaseFactors } from "./solver/deflection-field";
 import { EngineInputError } from "./solver/engine-input-error";
 import { solveMember } from "./solver/solve-member";
 import { assertMemberValid, POSITION_TOLERANCE_RATIO } from "./solver/validate-member";
@@ -152,7 +152,7 @@ function getRayleighOmegaSquared(model: MassModel, member: Member, groupSigns: n
     loads.push({ kind: "point", loadCase: "mass", atMm: p.atMm, pN: getSpanSign(span) * p.pN });
   }
   const solution = solveMember({ ...member, loads, selfWeightCase: undefined });
-  const factors = new Float64Array(solution.caseNames.length).fill(1);
+  const factors = resetCaseFactors(solution.caseNames.length).map(() => 1);
   let work = 0;
   let inertia = 0;
   for (let e = 0; e < solution.spanCount; e++) {

@@ -171,7 +171,8 @@ export interface MemberResult {
   pass: boolean;
   /** Only for a failing member. */
   suggestion: { minIMm4: number; sectionName: string | null } | null;
-  shape: ShapeSample[];
+  /** The sampled deflected shape, only when checkMember was asked for it. */
+  shape?: ShapeSample[];
   /**
    * Optional plain-language remarks from the engine, e.g. why a failing member has no
    * suggestion (added by the solver/checks work; optional, so older results stay valid).

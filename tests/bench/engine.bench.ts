@@ -123,5 +123,5 @@ console.log(`(a) single-span simply supported, uniform D + L, 2 checks: ${Math.r
 measure(continuous, continuousProfile, 1);
 const b = measure(continuous, continuousProfile, seconds);
 console.log(`(b) three-span continuous, uniform + partial + point + moment, 3 checks: ${Math.round(b.perCpuSecond)} members per CPU-second, ${Math.round(b.perWallSecond)} per wall-second (${(b.failing * 100).toFixed(1)}% failing; checksum ${b.checksum.toExponential(3)})`);
-console.log(`node ${process.version}, one thread, ${seconds} s per measurement after 1 s warm-up; the summary uses CPU time so other processes on the machine do not skew it; shape samples are lazy and not read here`);
+console.log(`node ${process.version}, one thread, ${seconds} s per measurement after 1 s warm-up; the summary uses CPU time so other processes on the machine do not skew it; the diagram shape is not sampled (checkMember samples it only on request, for a member's own page)`);
 console.log(`bench:engine single_span_per_s=${Math.round(a.perCpuSecond)} continuous_per_s=${Math.round(b.perCpuSecond)}`);

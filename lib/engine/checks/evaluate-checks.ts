@@ -1,5 +1,5 @@
 import type { CheckResult, Combination, LimitProfile, Member, RotationResult } from "../model";
-import { findSpanExtreme, getNodeRotation, type SpanExtreme } from "../solver/deflection-field";
+import { findSpanExtreme, getNodeRotation, resetCaseFactors, type CaseFactors, type SpanExtreme } from "../solver/deflection-field";
 import { EngineInputError } from "../solver/engine-input-error";
 import { getCaseIndexOf, type MemberSolution } from "../solver/solve-member";
 import { getSpanJudgements, type SpanJudgement } from "./span-groups";
@@ -10,9 +10,8 @@ import { getCreepFactor } from "./validate-profile";
  * solution.caseNames (Combination doc in model.ts). The internal self-weight case follows the
  * member's selfWeightCase.
  */
-export function createCombinationFactors(solution: MemberSolution, combination: Combination, creepFactor: number, out?: Float64Array): Float64Array {
-  const factors = out ?? new Float64Array(solution.caseNames.length);
-  factors.fill(0);
+export function createCombinationFactors(solution: MemberSolution, combination: Combination, creepFactor: number, out?: CaseFactors): CaseFactors {
+  const factors = resetCaseFactors(solution.caseNames.length, out);
   for (const name in combination.factors) {
     const index = getCaseIndexOf(solution, name);
     if (index >= 0) factors[index] = (factors[index] as number) + (combination.factors[name] as number);
@@ -65,7 +64,7 @@ export interface DeflectionEvaluation {
   checks: CheckResult[];
   rotations: RotationResult[];
   /** Case factors per combination, in profile order (reused for the shape). */
-  combinationFactors: Float64Array[];
+  combinationFactors: CaseFactors[];
 }
 
 /**
@@ -76,7 +75,7 @@ export function evaluateDeflectionChecks(member: Member, profile: LimitProfile, 
   const judgements = getSpanJudgements(member);
   const checks: CheckResult[] = [];
   const rotations: RotationResult[] = [];
-  const combinationFactors: Float64Array[] = [];
+  const combinationFactors: CaseFactors[] = [];
   const extreme: SpanExtreme = { deflectionMm: 0, atMm: 0 };
   for (const combination of profile.combinations) {
     const factors = createCombinationFactors(solution, combination, getCreepFactor(combination, member));

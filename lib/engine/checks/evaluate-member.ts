@@ -5,6 +5,7 @@ import { computeFrequency } from "../frequency";
 import { EngineInputError, prefixIssues } from "../solver/engine-input-error";
 import { solveValidatedMember, type MemberSolution } from "../solver/solve-member";
 import { collectMemberIssues } from "../solver/validate-member";
+import type { CaseFactors } from "../solver/deflection-field";
 
 /** Everything checkMember derives before the suggestion and the sampled shape. */
 export interface MemberEvaluation {
@@ -14,7 +15,7 @@ export interface MemberEvaluation {
   rotations: RotationResult[];
   frequency: FrequencyResult | null;
   pass: boolean;
-  combinationFactors: Float64Array[];
+  combinationFactors: CaseFactors[];
 }
 
 /** Throws EngineInputError with every member issue and every profile issue (paths `profile.`). */

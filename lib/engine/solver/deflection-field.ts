@@ -3,12 +3,28 @@ import { evaluatePolynomial, findPolynomialAbsMax, type AbsMaxResult } from "./p
 import { getCaseIndexOf, type MemberSolution } from "./solve-member";
 
 /**
+ * Factor per load case of a linear combination, indexed like solution.caseNames. A plain array:
+ * one is made per combination per member, and a typed array costs far more to allocate.
+ */
+export type CaseFactors = number[];
+
+/** `out` (or a new array) set to `count` zeros; filled by push so it stays a packed array. */
+export function resetCaseFactors(count: number, out?: CaseFactors): CaseFactors {
+  if (out === undefined) {
+    const factors: CaseFactors = [];
+    for (let i = 0; i < count; i++) factors.push(0);
+    return factors;
+  }
+  for (let i = 0; i < out.length; i++) out[i] = 0;
+  return out;
+}
+
+/**
  * Case factors of a linear combination, indexed like solution.caseNames. Names the member does
  * not load contribute nothing; the internal self-weight case follows the member's selfWeightCase.
  */
-export function createCaseFactors(solution: MemberSolution, factorsByCase: Record<string, number>, out?: Float64Array): Float64Array {
-  const factors = out ?? new Float64Array(solution.caseNames.length);
-  factors.fill(0);
+export function createCaseFactors(solution: MemberSolution, factorsByCase: Record<string, number>, out?: CaseFactors): CaseFactors {
+  const factors = resetCaseFactors(solution.caseNames.length, out);
   for (const name in factorsByCase) {
     const index = getCaseIndexOf(solution, name);
     if (index >= 0) factors[index] = (factors[index] as number) + (factorsByCase[name] as number);
@@ -27,7 +43,7 @@ interface ElementState {
 
 const stateScratch: ElementState = { v0: 0, psi0: 0, m0: 0, shear0: 0 };
 
-function getElementState(solution: MemberSolution, factors: Float64Array, span: number, out: ElementState): ElementState {
+function getElementState(solution: MemberSolution, factors: CaseFactors, span: number, out: ElementState): ElementState {
   let v0 = 0;
   let psi0 = 0;
   let m0 = 0;
@@ -60,7 +76,7 @@ export function findSpanAt(solution: MemberSolution, xMm: number): number {
   return last;
 }
 
-function evaluateLocal(solution: MemberSolution, factors: Float64Array, span: number, s: number, wantRotation: boolean): number {
+function evaluateLocal(solution: MemberSolution, factors: CaseFactors, span: number, s: number, wantRotation: boolean): number {
   const state = getElementState(solution, factors, span, stateScratch);
   const ei = solution.eiNmm2[span] as number;
   const inverseShear = solution.inverseShearStiffness[span] as number;
@@ -86,7 +102,7 @@ function evaluateLocal(solution: MemberSolution, factors: Float64Array, span: nu
 }
 
 /** Deflection at x (mm from the left end) under the combination, mm, positive downward. Exact. */
-export function deflectionAt(solution: MemberSolution, factors: Float64Array, xMm: number): number {
+export function deflectionAt(solution: MemberSolution, factors: CaseFactors, xMm: number): number {
   const span = findSpanAt(solution, xMm);
   return evaluateLocal(solution, factors, span, xMm - (solution.nodeXMm[span] as number), false);
 }
@@ -95,13 +111,13 @@ export function deflectionAt(solution: MemberSolution, factors: Float64Array, xM
  * Cross-section rotation at x under the combination, rad, positive clockwise (= dv/dx without
  * shear deformation; with it, the slope also carries the shear strain V/(kGA)).
  */
-export function rotationAt(solution: MemberSolution, factors: Float64Array, xMm: number): number {
+export function rotationAt(solution: MemberSolution, factors: CaseFactors, xMm: number): number {
   const span = findSpanAt(solution, xMm);
   return evaluateLocal(solution, factors, span, xMm - (solution.nodeXMm[span] as number), true);
 }
 
 /** Rotation of node j (a DOF of the solution), rad, positive clockwise. */
-export function getNodeRotation(solution: MemberSolution, factors: Float64Array, node: number): number {
+export function getNodeRotation(solution: MemberSolution, factors: CaseFactors, node: number): number {
   let rotation = 0;
   for (let c = 0; c < factors.length; c++) {
     const f = factors[c] as number;
@@ -132,7 +148,7 @@ function addShiftedPower(coef: Float64Array, scale: number, delta: number, n: nu
  * Writes to `coef` the ascending coefficients (degree 5) of v(s0 + t), the deflection in the
  * load-continuous piece of `span` that starts at local s0 (a breakpoint or 0).
  */
-function buildPiecePolynomial(solution: MemberSolution, factors: Float64Array, span: number, state: ElementState, s0: number, coef: Float64Array): void {
+function buildPiecePolynomial(solution: MemberSolution, factors: CaseFactors, span: number, state: ElementState, s0: number, coef: Float64Array): void {
   const ei = solution.eiNmm2[span] as number;
   const inverseShear = solution.inverseShearStiffness[span] as number;
   const terms = solution.terms[span] as ElementTerms;
@@ -161,7 +177,7 @@ function buildPiecePolynomial(solution: MemberSolution, factors: Float64Array, s
  * Deflections (mm) of one span at ascending local positions (mm from the span's left node),
  * written to out[outOffset + k * outStride]; cheaper than deflectionAt point by point.
  */
-export function sampleSpanDeflections(solution: MemberSolution, factors: Float64Array, span: number, localXMm: ArrayLike<number>, out: Float64Array, outOffset: number, outStride: number): void {
+export function sampleSpanDeflections(solution: MemberSolution, factors: CaseFactors, span: number, localXMm: ArrayLike<number>, out: Float64Array, outOffset: number, outStride: number): void {
   const state = getElementState(solution, factors, span, stateScratch);
   const breakpoints = solution.breakpointsMm[span] as number[];
   const coef = pieceCoefficients;
@@ -191,7 +207,7 @@ export interface SpanExtreme {
  * polynomial (degree <= 5) between load discontinuities, and each piece's extrema come from the
  * real roots of its derivative (see poly-extrema.ts). Ends and discontinuities are candidates.
  */
-export function findSpanExtreme(solution: MemberSolution, factors: Float64Array, span: number, out?: SpanExtreme): SpanExtreme {
+export function findSpanExtreme(solution: MemberSolution, factors: CaseFactors, span: number, out?: SpanExtreme): SpanExtreme {
   const result = out ?? { deflectionMm: 0, atMm: 0 };
   const state = getElementState(solution, factors, span, stateScratch);
   const length = solution.lengthMm[span] as number;

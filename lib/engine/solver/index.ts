@@ -8,5 +8,6 @@ export {
   findSpanExtreme,
   getNodeRotation,
   rotationAt,
+  type CaseFactors,
   type SpanExtreme,
 } from "./deflection-field";

@@ -40,7 +40,7 @@ export interface MemberSolution {
    * (mm, rad), then each span's sagging moment just right of its left node (N*mm), then each
    * span's shear there (dM/ds, N).
    */
-  caseStates: Float64Array;
+  caseStates: number[];
   caseStride: number;
   terms: ElementTerms[];
   /** Sorted load discontinuities strictly inside each element, local mm. */
@@ -187,6 +187,7 @@ let bandScratch = new Float64Array(64);
 let constrainedScratch = new Uint8Array(16);
 let fixedEndScratch = new Float64Array(32);
 let rhsScratch = new Float64Array(16);
+let shearScratch = new Float64Array(8);
 
 export function solveValidatedMember(member: Member): MemberSolution {
   const spanCount = member.spans.length;
@@ -227,10 +228,12 @@ export function solveValidatedMember(member: Member): MemberSolution {
   if (constrainedScratch.length < dofCount) constrainedScratch = new Uint8Array(dofCount * 2);
   if (fixedEndScratch.length < 2 * caseCount * spanCount) fixedEndScratch = new Float64Array(4 * caseCount * spanCount);
   if (rhsScratch.length < dofCount) rhsScratch = new Float64Array(dofCount * 2);
+  if (shearScratch.length < spanCount) shearScratch = new Float64Array(spanCount * 2);
   const band = bandScratch;
   const constrained = constrainedScratch;
-  band.fill(0, 0, dofCount * BAND_ROW);
-  constrained.fill(0, 0, dofCount);
+  // plain loops: a fill() call per member costs more than clearing a few entries
+  for (let i = 0; i < dofCount * BAND_ROW; i++) band[i] = 0;
+  for (let i = 0; i < dofCount; i++) constrained[i] = 0;
   for (let e = 0; e < spanCount; e++) {
     const k = getElementStiffness(lengthMm[e] as number, eiNmm2[e] as number, inverseShearStiffness[e] as number, stiffnessScratch);
     const base = 2 * e * 4;
@@ -268,15 +271,16 @@ export function solveValidatedMember(member: Member): MemberSolution {
     }]);
   }
 
-  const caseStride = 2 * dofCount;
-  const caseStates = new Float64Array(caseCount * caseStride);
+  const caseStride = dofCount + 2 * spanCount;
+  // a plain array built by push: a typed array this size needs an off-heap buffer, costly once per member
+  const caseStates: number[] = [];
+  let allFinite = true;
   // fixed-end results per case per element: left shear V0f and moment M0f
   const fixedEnd = fixedEndScratch;
   for (let c = 0; c < caseCount; c++) {
     const rhs = rhsScratch;
     const nodal = context.nodalLoads[c];
-    if (nodal !== undefined) rhs.set(nodal);
-    else rhs.fill(0, 0, dofCount);
+    for (let i = 0; i < dofCount; i++) rhs[i] = nodal === undefined ? 0 : (nodal[i] as number);
     for (let e = 0; e < spanCount; e++) {
       const length = lengthMm[e] as number;
       const integrals = getEndIntegrals(terms[e] as ElementTerms, length, c, integralsScratch);
@@ -297,8 +301,7 @@ export function solveValidatedMember(member: Member): MemberSolution {
     }
     for (let i = 0; i < dofCount; i++) if (constrained[i] === 1) rhs[i] = 0;
     solveBandedLdl(band, dofCount, rhs);
-    const base = c * caseStride;
-    for (let i = 0; i < dofCount; i++) caseStates[base + i] = rhs[i] as number;
+    for (let i = 0; i < dofCount; i++) caseStates.push(rhs[i] as number);
     for (let e = 0; e < spanCount; e++) {
       const k = getElementStiffness(lengthMm[e] as number, eiNmm2[e] as number, inverseShearStiffness[e] as number, stiffnessScratch);
       const v0 = rhs[2 * e] as number;
@@ -307,13 +310,13 @@ export function solveValidatedMember(member: Member): MemberSolution {
       const t1 = rhs[2 * e + 3] as number;
       const forceLeft = k.k11 * v0 + k.k12 * t0 - k.k11 * v1 + k.k12 * t1;
       const momentLeft = k.k12 * v0 + k.k22 * t0 - k.k12 * v1 + k.k24 * t1;
-      caseStates[base + dofCount + e] = momentLeft + (fixedEnd[2 * (c * spanCount + e) + 1] as number);
-      caseStates[base + dofCount + spanCount + e] = -forceLeft + (fixedEnd[2 * (c * spanCount + e)] as number);
+      caseStates.push(momentLeft + (fixedEnd[2 * (c * spanCount + e) + 1] as number));
+      shearScratch[e] = -forceLeft + (fixedEnd[2 * (c * spanCount + e)] as number);
     }
-  }
-  for (let i = 0; i < caseStates.length; i++) {
-    if (!Number.isFinite(caseStates[i] as number)) {
-      throw new EngineInputError([{ path: "loads", message: `load case "${caseNames[Math.floor(i / caseStride)] ?? ""}" gives results beyond the range of double precision: check the load and stiffness magnitudes and units` }]);
+    for (let e = 0; e < spanCount; e++) caseStates.push(shearScratch[e] as number);
+    for (let i = c * caseStride; i < caseStates.length; i++) allFinite = allFinite && Number.isFinite(caseStates[i] as number);
+    if (!allFinite) {
+      throw new EngineInputError([{ path: "loads", message: `load case "${caseNames[c] ?? ""}" gives results beyond the range of double precision: check the load and stiffness magnitudes and units` }]);
     }
   }
   const breakpointsMm: number[][] = [];

@@ -46,8 +46,8 @@ function computeMemberDiagrams(header: Record<string, unknown>, input: unknown):
   const parsed = parseSchedule({ ...header, members: [input] });
   if (!parsed.ok) return { shape: [], rotations: [] };
   try {
-    const result = checkMember(parsed.schedule.members[0]!, parsed.schedule.profile);
-    return { shape: result.shape, rotations: result.rotations };
+    const result = checkMember(parsed.schedule.members[0]!, parsed.schedule.profile, undefined, { shape: true });
+    return { shape: result.shape ?? [], rotations: result.rotations };
   } catch {
     return { shape: [], rotations: [] };
   }

@@ -43,25 +43,26 @@ describe("checkMember", () => {
 
   it("samples the shape: 21 points per span, shared nodes once, values equal to the closed form", () => {
     const single = createMember(createSpans([L]), createSupports("pinned", "roller"), [{ kind: "uniform", loadCase: "dead", wNPerMm: 4 }]);
-    const result = checkMember(single, { ...profile, frequency: undefined });
-    expect(result.shape).toHaveLength(SHAPE_POINTS_PER_SPAN);
-    expect(result.shape[0]!.xMm).toBe(0);
-    expect(result.shape[20]!.xMm).toBe(L);
+    const shape = checkMember(single, { ...profile, frequency: undefined }, undefined, { shape: true }).shape!;
+    expect(shape).toHaveLength(SHAPE_POINTS_PER_SPAN);
+    expect(shape[0]!.xMm).toBe(0);
+    expect(shape[20]!.xMm).toBe(L);
     // AISC Manual Table 3-23, simple beam - uniformly distributed load (from memory):
     // delta_x = w x (L^3 - 2 L x^2 + x^3) / (24 E I)
-    for (const sample of result.shape.slice(1, -1)) {
+    for (const sample of shape.slice(1, -1)) {
       const x = sample.xMm;
       expectRelative(sample.deflectionMm["D+L"]!, (4 * x * (L ** 3 - 2 * L * x * x + x ** 3)) / (24 * EI));
       expect(sample.deflectionMm["L"]).toBe(0);
     }
-    expect(checkMember(member, profile).shape).toHaveLength(3 * (SHAPE_POINTS_PER_SPAN - 1) + 1);
+    expect(checkMember(member, profile, undefined, { shape: true }).shape).toHaveLength(3 * (SHAPE_POINTS_PER_SPAN - 1) + 1);
   });
 
-  it("the shape is an ordinary enumerable field: JSON, spread and structuredClone carry it", () => {
-    const result = checkMember(member, profile);
+  it("samples the shape only when asked, as an ordinary field that JSON, spread and structuredClone carry", () => {
+    expect(Object.keys(checkMember(member, profile))).not.toContain("shape");
+    const result = checkMember(member, profile, undefined, { shape: true });
     const json = JSON.parse(JSON.stringify(result));
     expect(json.shape).toHaveLength(61);
-    expect(json.shape[30].deflectionMm["D+L"]).toBeCloseTo(result.shape[30]!.deflectionMm["D+L"]!, 12);
+    expect(json.shape[30].deflectionMm["D+L"]).toBeCloseTo(result.shape![30]!.deflectionMm["D+L"]!, 12);
     expect({ ...result }.shape).toHaveLength(61);
     expect(structuredClone(result).shape).toHaveLength(61);
     expect(Object.keys(result)).toContain("shape");

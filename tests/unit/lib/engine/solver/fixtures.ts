@@ -1,7 +1,7 @@
 /** Small builders shared by the engine tests (test code only). */
 import { expect } from "vitest";
 import type { Load, Member, SpanSegment, Support, SupportKind } from "../../../../../lib/engine/model";
-import { createCaseFactors, findSpanExtreme, solveMember, type MemberSolution } from "../../../../../lib/engine/solver";
+import { createCaseFactors, findSpanExtreme, solveMember, type CaseFactors, type MemberSolution } from "../../../../../lib/engine/solver";
 
 export const E_MPA = 200_000;
 export const I_MM4 = 8.0e7;
@@ -20,7 +20,7 @@ export function createMember(spans: SpanSegment[], supports: Support[], loads: L
 }
 
 /** Solves the member and returns factors for "case A" at factor 1. */
-export function solveCase(member: Member, loadCase = "A"): { solution: MemberSolution; factors: Float64Array } {
+export function solveCase(member: Member, loadCase = "A"): { solution: MemberSolution; factors: CaseFactors } {
   const solution = solveMember(member);
   return { solution, factors: createCaseFactors(solution, { [loadCase]: 1 }) };
 }
