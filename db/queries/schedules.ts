@@ -107,11 +107,15 @@ export async function listResults(
 
 export async function getMemberResult(scheduleId: string, mark: string) {
   const sql = getSql();
+  // The chunk holding the mark, and the member's place in it (marks are unique in a schedule).
   const [member] = await sql`
-    select m.member_index, m.mark, m.category, m.input, s.header, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.detail
-    from schedule_members m join schedules s on s.id = m.schedule_id
-      left join member_outcomes o on o.schedule_id = m.schedule_id and o.member_index = m.member_index
-    where m.schedule_id = ${scheduleId} and m.mark = ${mark}`;
+    select c.first_member + p.position - 1 as member_index, c.marks[p.position] as mark, c.members -> (p.position - 1) as input,
+      s.header, coalesce(o.category, c.members -> (p.position - 1) ->> 'category') as category, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.detail, o.member_index is not null as checked
+    from schedule_chunks c
+      cross join lateral (select array_position(c.marks, ${mark}::text) as position) p
+      join schedules s on s.id = c.schedule_id
+      left join member_outcomes o on o.schedule_id = c.schedule_id and o.member_index = c.first_member + p.position - 1
+    where c.schedule_id = ${scheduleId} and p.position is not null`;
   if (!member) return null;
   const checks = await sql`
     select check_key, combination_id, span_index, span_kind, deflection_mm, at_mm, allowed_mm, utilization, factor_of_safety, pass

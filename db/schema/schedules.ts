@@ -48,22 +48,6 @@ export const schedules = pgTable(
   ],
 );
 
-/** One row per submitted member, as submitted (public format); workers convert a chunk at a time. */
-export const scheduleMembers = pgTable(
-  "schedule_members",
-  {
-    scheduleId: text()
-      .notNull()
-      .references(() => schedules.id, { onDelete: "cascade" }),
-    memberIndex: integer().notNull(),
-    mark: text().notNull(),
-    category: text().notNull(),
-    /** json, not jsonb: stored and returned as submitted, never queried inside, and cheaper to COPY. */
-    input: json().notNull(),
-  },
-  (t) => [primaryKey({ columns: [t.scheduleId, t.memberIndex] }), uniqueIndex("schedule_members_schedule_id_mark_idx").on(t.scheduleId, t.mark)],
-);
-
 /**
  * A member's overall result: written once per member (the primary key is the guard). Result tables
  * carry no foreign key: a per-row key check would cost more than the COPY that writes them; rows
@@ -80,13 +64,17 @@ export const memberOutcomes = pgTable(
     governingCheck: text(),
     utilization: doublePrecision(),
     factorOfSafety: doublePrecision(),
-    /** Engine output beyond the checks: rotations, frequency, suggestion, or the error. Stored as json (written often, never queried inside). */
-    detail: json().notNull(),
+    /**
+     * Engine output beyond the checks: frequency, suggestion, or the error; null when there is
+     * none (most passing members). json: written often, never queried inside.
+     */
+    detail: json(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     primaryKey({ columns: [t.scheduleId, t.memberIndex] }),
-    index("member_outcomes_schedule_id_pass_idx").on(t.scheduleId, t.pass, t.memberIndex),
+    // Only failing members: the "fail" filter reads it; indexing every member cost more to write.
+    index("member_outcomes_schedule_id_failing_idx").on(t.scheduleId, t.memberIndex).where(sql`not ${t.pass}`),
   ],
 );
 
@@ -110,7 +98,11 @@ export const memberChecks = pgTable(
   (t) => [primaryKey({ columns: [t.scheduleId, t.memberIndex, t.checkKey] })],
 );
 
-/** Work units of a schedule; done flips once, so progress never double counts a retried chunk. */
+/**
+ * Work units of a schedule, each holding its members as submitted; done flips once, so progress
+ * never double counts a retried chunk. Members are stored per chunk, not per row: one row per
+ * member cost more to write (and index) than checking it, and workers read a chunk at a time.
+ */
 export const scheduleChunks = pgTable(
   "schedule_chunks",
   {
@@ -120,6 +112,10 @@ export const scheduleChunks = pgTable(
     chunkIndex: integer().notNull(),
     firstMember: integer().notNull(),
     memberCount: integer().notNull(),
+    /** The members' marks in order: a member's page finds its chunk and position by mark. */
+    marks: text().array().notNull(),
+    /** The members in order, public format as submitted (json: stored and returned, never queried inside). */
+    members: json().notNull(),
     doneAt: timestamp({ withTimezone: true }),
     attempts: integer().notNull().default(0),
   },

@@ -72,6 +72,7 @@ const body = JSON.stringify({
   limits: { preset: "ibc-2021-floor" },
   members: Array.from({ length: MEMBERS }, (_, i) => createMember(i)),
 });
+// The first schedule the freshly started server sees: no warm-up POST beforehand.
 console.log(`posting ${MEMBERS} members (${(body.length / 1e6).toFixed(1)} MB JSON)`);
 
 const start = performance.now();

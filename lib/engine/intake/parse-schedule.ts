@@ -18,6 +18,16 @@ export interface ParseScheduleOptions {
   catalogue?: readonly CatalogueSection[];
   /** Stop recording after this many issues (the count of the rest is reported). Default 1000. */
   maxIssues?: number;
+  /**
+   * Called with each member as soon as it is read, in order, with the schedule's limit profile
+   * (only while the profile is valid). For a caller that checks members one at a time.
+   */
+  onMember?: (member: Member, index: number, profile: LimitProfile, origins: MemberOrigins) => void;
+  /**
+   * false: the result's members and origins stay empty, so a caller that only validates (with
+   * onMember) holds no model of a large schedule in memory. Default true.
+   */
+  retainMembers?: boolean;
 }
 
 export interface ParsedSchedule {
@@ -56,6 +66,7 @@ export function parseSchedule(doc: unknown, options: ParseScheduleOptions = {}):
 
   const members: Member[] = [];
   const origins: MemberOrigins[] = [];
+  const retainMembers = options.retainMembers ?? true;
   const membersValue = root.members;
   if (membersValue !== undefined && (!Array.isArray(membersValue) || membersValue.length === 0 || membersValue.length > MAX_MEMBERS)) {
     issues.add("members", `must be an array of 1 to ${MAX_MEMBERS} members`);
@@ -78,8 +89,11 @@ export function parseSchedule(doc: unknown, options: ParseScheduleOptions = {}):
         else firstIndexByMark.set(mark, index);
       }
       if (read) {
-        members.push(read.member);
-        origins.push(read.origins);
+        if (options.onMember && profile) options.onMember(read.member, index, profile, read.origins);
+        if (retainMembers) {
+          members.push(read.member);
+          origins.push(read.origins);
+        }
       }
     }
   }

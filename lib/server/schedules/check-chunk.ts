@@ -11,12 +11,12 @@ export const MAX_CHUNK_ATTEMPTS = 10;
 
 type Outcome = { index: number; mark: string; category: string; result: MemberResult | null; error: string | null };
 
-function checkMembers(header: Record<string, unknown>, inputs: { member_index: number; input: unknown }[]): Outcome[] {
-  const parsed = parseSchedule({ ...header, members: inputs.map((r) => r.input) });
+function checkMembers(header: Record<string, unknown>, firstMember: number, inputs: unknown[]): Outcome[] {
+  const parsed = parseSchedule({ ...header, members: inputs });
   // The whole schedule passed this at submission; failing now means stored data changed.
   if (!parsed.ok) throw new Error(`stored members no longer parse: ${parsed.issues[0]?.path}: ${parsed.issues[0]?.message}`);
   return parsed.schedule.members.map((member, i) => {
-    const index = inputs[i]!.member_index;
+    const index = firstMember + i;
     try {
       return { index, mark: member.mark, category: member.category, result: checkMember(member, parsed.schedule.profile), error: null };
     } catch (error) {
@@ -37,7 +37,7 @@ export async function checkChunk(scheduleId: string, chunkIndex: number): Promis
     update schedule_chunks c set attempts = attempts + 1
     from schedules s
     where c.schedule_id = ${scheduleId} and c.chunk_index = ${chunkIndex} and s.id = c.schedule_id
-    returning c.done_at, c.first_member, c.member_count, c.attempts, s.status, s.header`;
+    returning c.done_at, c.first_member, c.member_count, c.attempts, c.members, s.status, s.header`;
   if (!chunk || chunk.done_at || chunk.status === "completed" || chunk.status === "failed") return "skipped";
   if (chunk.attempts > MAX_CHUNK_ATTEMPTS) {
     await failSchedule(scheduleId, `chunk ${chunkIndex} could not be checked after ${MAX_CHUNK_ATTEMPTS} attempts`);
@@ -45,11 +45,7 @@ export async function checkChunk(scheduleId: string, chunkIndex: number): Promis
   }
   await sql`update schedules set status = 'checking', updated_at = now() where id = ${scheduleId} and status = 'queued'`;
 
-  const inputs = await sql<{ member_index: number; input: unknown }[]>`
-    select member_index, input from schedule_members
-    where schedule_id = ${scheduleId} and member_index >= ${chunk.first_member} and member_index < ${chunk.first_member + chunk.member_count}
-    order by member_index`;
-  const outcomes = checkMembers(chunk.header as Record<string, unknown>, inputs);
+  const outcomes = checkMembers(chunk.header as Record<string, unknown>, chunk.first_member as number, chunk.members as unknown[]);
 
   const wrote = await sql.begin(async (tx) => {
     // Lock order: this chunk's row, then (at the progress update) the schedule's row. Result
@@ -88,7 +84,7 @@ function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
     const governing = r?.governing ?? null;
     // Shape and rotations are recomputed on demand for one member (get-member-report.ts): cheap for
     // one, but a large share of the bytes written for every member of a big schedule.
-    const detail = r ? { frequency: r.frequency, suggestion: r.suggestion, error: null } : { frequency: null, suggestion: null, error: o.error };
+    const detail = r ? (r.frequency === null && r.suggestion === null ? null : { frequency: r.frequency, suggestion: r.suggestion, error: null }) : { frequency: null, suggestion: null, error: o.error };
     yield [
       scheduleId,
       o.index,
@@ -98,7 +94,7 @@ function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
       governing ? checkKeyOf(governing.combinationId, governing.spanIndex) : null,
       governing?.utilization ?? null,
       governing?.factorOfSafety ?? null,
-      JSON.stringify(detail),
+      detail === null ? null : JSON.stringify(detail),
     ] as const;
   }
 }

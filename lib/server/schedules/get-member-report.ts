@@ -58,6 +58,8 @@ export async function getMemberReport(scheduleId: string, mark: string): Promise
   const found = await getMemberResult(scheduleId, mark);
   if (!found) return null;
   const { member } = found;
+  // No outcome row yet: still being checked. An outcome without detail had nothing to add.
+  const checked = member.checked === true;
   const detail = (member.detail ?? null) as StoredDetail | null;
   const header = member.header as Record<string, unknown>;
   return {
@@ -65,7 +67,7 @@ export async function getMemberReport(scheduleId: string, mark: string): Promise
     category: member.category as string,
     input: (member.input ?? {}) as Record<string, unknown>,
     units: header.units,
-    status: detail === null ? "pending" : detail.error ? "error" : member.pass ? "pass" : "fail",
+    status: !checked ? "pending" : detail?.error ? "error" : member.pass ? "pass" : "fail",
     error: detail?.error ?? null,
     governingCheck: (member.governing_check as string | null) ?? null,
     utilization: (member.utilization as number | null) ?? null,
@@ -84,6 +86,6 @@ export async function getMemberReport(scheduleId: string, mark: string): Promise
     })),
     frequency: detail?.frequency ?? null,
     suggestion: detail?.suggestion ?? null,
-    ...(detail && !detail.error ? computeMemberDiagrams(header, member.input) : { shape: [], rotations: [] }),
+    ...(checked && !detail?.error ? computeMemberDiagrams(header, member.input) : { shape: [], rotations: [] }),
   };
 }

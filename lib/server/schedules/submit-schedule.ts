@@ -1,10 +1,9 @@
 import { assertMemberAndProfileValid } from "@/lib/engine/checks";
 import { mapEnginePath } from "@/lib/engine/check-schedule";
-import { parseSchedule } from "@/lib/engine/intake";
+import { parseSchedule, type ParsedSchedule } from "@/lib/engine/intake";
 import type { InputIssue } from "@/lib/engine/model";
 import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
 import { getSql } from "@/db/client";
-import { copyRows } from "@/lib/server/copy-rows";
 import { DomainError, type FieldError } from "@/lib/server/errors";
 import { createId } from "@/lib/server/ids";
 
@@ -33,22 +32,37 @@ export interface SubmittedSchedule {
   createdAt: string;
 }
 
-/** Every problem of a schedule, from intake and from the engine's member checks, all at once. */
-export function collectScheduleIssues(doc: unknown): { ok: true; parsed: Extract<ReturnType<typeof parseSchedule>, { ok: true }>["schedule"] } | { ok: false; issues: InputIssue[] } {
-  const parsed = parseSchedule(doc, { maxIssues: MAX_LISTED_ERRORS });
-  if (!parsed.ok) return parsed;
-  const issues: InputIssue[] = [];
-  parsed.schedule.members.forEach((member, index) => {
-    try {
-      assertMemberAndProfileValid(member, parsed.schedule.profile);
-    } catch (error) {
-      if (!(error instanceof EngineInputError)) throw error;
-      for (const issue of error.issues) {
-        issues.push({ path: mapEnginePath(issue.path, `members[${index}]`, parsed.schedule.origins[index]), message: issue.message });
+/** A schedule that passed intake and the engine's member checks, and its members' marks in order. */
+export interface CheckedSchedule {
+  /** Without members: they are checked as they are read and not kept (see collectScheduleIssues). */
+  schedule: ParsedSchedule;
+  marks: string[];
+}
+
+/**
+ * Every problem of a schedule, from intake and from the engine's member checks, all at once.
+ * Each member is checked as soon as it is read and then dropped: holding the model of 100,000
+ * members only to validate them would cost memory and garbage-collection time.
+ */
+export function collectScheduleIssues(doc: unknown): ({ ok: true } & CheckedSchedule) | { ok: false; issues: InputIssue[] } {
+  const engineIssues: InputIssue[] = [];
+  const marks: string[] = [];
+  const parsed = parseSchedule(doc, {
+    maxIssues: MAX_LISTED_ERRORS,
+    retainMembers: false,
+    onMember: (member, index, profile, origins) => {
+      marks.push(member.mark);
+      try {
+        assertMemberAndProfileValid(member, profile);
+      } catch (error) {
+        if (!(error instanceof EngineInputError)) throw error;
+        for (const issue of error.issues) engineIssues.push({ path: mapEnginePath(issue.path, `members[${index}]`, origins), message: issue.message });
       }
-    }
+    },
   });
-  return issues.length > 0 ? { ok: false, issues } : { ok: true, parsed: parsed.schedule };
+  // Intake problems first: engine checks of members that did not read cleanly say little.
+  if (!parsed.ok) return parsed;
+  return engineIssues.length > 0 ? { ok: false, issues: engineIssues } : { ok: true, schedule: parsed.schedule, marks };
 }
 
 /** A callback must be one of the organization's own endpoints; any other id reads as unknown. */
@@ -72,8 +86,8 @@ export function throwInvalidSchedule(errors: FieldError[], total: number): never
 }
 
 /**
- * Validates a whole schedule (all or nothing), stores it with its members and work chunks in one
- * transaction, then queues the chunks for the workers. Nothing is written when any member is bad.
+ * Validates a whole schedule (all or nothing), stores it with its work chunks (each holding its members)
+ * in one transaction, then queues the chunks for the workers. Nothing is written when any member is bad.
  */
 export async function submitSchedule(input: SubmitScheduleInput): Promise<SubmittedSchedule> {
   const checked = collectScheduleIssues(input.doc);
@@ -86,7 +100,7 @@ export async function submitSchedule(input: SubmitScheduleInput): Promise<Submit
   }
   const doc = input.doc as Record<string, unknown>;
   const members = doc.members as Record<string, unknown>[];
-  const { parsed } = checked;
+  const { schedule: parsed, marks } = checked;
   // PostgreSQL's jsonb cannot hold U+0000: refuse it by name instead of failing at the insert.
   const serialized = members.map((m) => JSON.stringify(m));
   const withNul = serialized.flatMap((text, index) => (text.includes("\\u0000") ? [{ path: `members[${index}]`, message: "contains a NUL character (U+0000), which cannot be stored" }] : []));
@@ -109,17 +123,18 @@ export async function submitSchedule(input: SubmitScheduleInput): Promise<Submit
         ${input.submittedByUserId ?? null}, ${input.apiKeyId ?? null}, ${input.callbackEndpointId ?? null},
         ${JSON.stringify(parsed.profile)}::jsonb, ${JSON.stringify(header)}::jsonb, ${members.length}, ${chunkCount}, now())
       returning created_at`;
-    await copyRows(
-      tx,
-      "schedule_members",
-      ["schedule_id", "member_index", "mark", "category", "input"],
-      serialized.map((text, index) => [id, index, parsed.members[index]!.mark, parsed.members[index]!.category, text]),
+    // One row per chunk holding its members: pipelined in this transaction, all or none.
+    await Promise.all(
+      Array.from({ length: chunkCount }, (_, chunk) => {
+        const first = chunk * CHUNK_SIZE;
+        const last = Math.min(first + CHUNK_SIZE, members.length);
+        const chunkMarks = marks.slice(first, last);
+        const membersJson = `[${serialized.slice(first, last).join(",")}]`;
+        return tx`
+          insert into schedule_chunks (schedule_id, chunk_index, first_member, member_count, marks, members)
+          values (${id}, ${chunk}, ${first}, ${last - first}, ${tx.array(chunkMarks)}, ${membersJson}::json)`;
+      }),
     );
-    const firsts = Array.from({ length: chunkCount }, (_, i) => i * CHUNK_SIZE);
-    await tx`
-      insert into schedule_chunks (schedule_id, chunk_index, first_member, member_count)
-      select ${id}, i - 1, f, least(${CHUNK_SIZE}, ${members.length} - f)
-      from unnest(${tx.array(firsts)}::int[]) with ordinality as t(f, i)`;
     return inserted;
   });
 

@@ -3,6 +3,9 @@ import { listSchedules } from "@/db/queries/schedules";
 import { decodeCursor, encodeCursor, nextLink, readLimit } from "@/lib/server/http/cursor";
 import { representSchedule } from "@/lib/server/schedules/represent";
 import { submitScheduleRequest } from "@/lib/server/schedules/submit-from-request";
+import { warmUpScheduleIntakeAtServerStart } from "@/lib/server/schedules/warm-up";
+
+warmUpScheduleIntakeAtServerStart();
 
 // POST /api/v1/schedules: submit a whole schedule (JSON, CSV or multipart); 202 with its id.
 export const POST = withApiKey("schedules:write", async (request, key) => {

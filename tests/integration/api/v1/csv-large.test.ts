@@ -19,7 +19,7 @@ describe("a 100,000-row CSV with one bad row", () => {
       const span = row === 100_000 ? "-4" : String(3 + (row % 5));
       lines.push(`L-${row},floor_beam,1,steel-s355,i_plate,150,10.7,300,7.1,${span},pinned roller,3,7.5`);
     }
-    const [before] = await getDb().execute(sql`select (select count(*) from schedules)::int as s, (select count(*) from schedule_members)::int as m`);
+    const [before] = await getDb().execute(sql`select (select count(*) from schedules)::int as s, (select count(*) from schedule_chunks)::int as m`);
     const response = await request(APP_URL)
       .post("/api/v1/schedules?limits=ibc-2021-floor&name=Large")
       .set("authorization", `Bearer ${key}`)
@@ -29,7 +29,7 @@ describe("a 100,000-row CSV with one bad row", () => {
     expect(response.body.errorCount).toBe(1);
     expect(response.body.errors).toHaveLength(1);
     expect(response.body.errors[0]).toMatchObject({ row: 100_000, line: 100_000, column: "span_1 [m]" });
-    const [after] = await getDb().execute(sql`select (select count(*) from schedules)::int as s, (select count(*) from schedule_members)::int as m`);
+    const [after] = await getDb().execute(sql`select (select count(*) from schedules)::int as s, (select count(*) from schedule_chunks)::int as m`);
     expect(after).toEqual(before);
   });
 });
