@@ -17,8 +17,18 @@ export interface ScheduleRow {
   completedAt: Date | null;
 }
 
-const scheduleColumns = `id, name, reference, status, failure_reason, source, profile, member_count, checked_count, pass_count, fail_count,
-  error_count, created_at, completed_at`;
+// A running schedule's counts are summed from its chunks; an ended one's are on its own row.
+const scheduleColumns = `s.id, s.name, s.reference, s.status, s.failure_reason, s.source, s.profile, s.member_count,
+  case when s.status in ('completed', 'failed') then s.checked_count else p.checked_count end as checked_count,
+  case when s.status in ('completed', 'failed') then s.pass_count else p.pass_count end as pass_count,
+  case when s.status in ('completed', 'failed') then s.fail_count else p.fail_count end as fail_count,
+  case when s.status in ('completed', 'failed') then s.error_count else p.error_count end as error_count,
+  s.created_at, s.completed_at`;
+const scheduleSource = `schedules s cross join lateral (
+  select coalesce(sum(c.member_count) filter (where c.done_at is not null), 0)::int as checked_count,
+    coalesce(sum(c.pass_count), 0)::int as pass_count, coalesce(sum(c.fail_count), 0)::int as fail_count,
+    coalesce(sum(c.error_count), 0)::int as error_count
+  from schedule_chunks c where c.schedule_id = s.id) p`;
 
 function toScheduleRow(r: Record<string, unknown>): ScheduleRow {
   const profile = r.profile as { id: string; label: string; source: string };
@@ -43,7 +53,7 @@ function toScheduleRow(r: Record<string, unknown>): ScheduleRow {
 
 /** Another organization's schedule reads exactly like a missing one: null. */
 export async function getSchedule(organizationId: string, scheduleId: string): Promise<ScheduleRow | null> {
-  const [row] = await getSql().unsafe(`select ${scheduleColumns} from schedules where organization_id = $1 and id = $2`, [organizationId, scheduleId]);
+  const [row] = await getSql().unsafe(`select ${scheduleColumns} from ${scheduleSource} where s.organization_id = $1 and s.id = $2`, [organizationId, scheduleId]);
   return row ? toScheduleRow(row) : null;
 }
 
@@ -52,10 +62,10 @@ export async function listSchedules(organizationId: string, options: { limit: nu
   const sql = getSql();
   const rows = options.after
     ? await sql.unsafe(
-        `select ${scheduleColumns} from schedules where organization_id = $1 and (created_at, id) < ($2::timestamptz, $3) order by created_at desc, id desc limit $4`,
+        `select ${scheduleColumns} from ${scheduleSource} where s.organization_id = $1 and (s.created_at, s.id) < ($2::timestamptz, $3) order by s.created_at desc, s.id desc limit $4`,
         [organizationId, options.after.createdAt, options.after.id, options.limit + 1],
       )
-    : await sql.unsafe(`select ${scheduleColumns} from schedules where organization_id = $1 order by created_at desc, id desc limit $2`, [organizationId, options.limit + 1]);
+    : await sql.unsafe(`select ${scheduleColumns} from ${scheduleSource} where s.organization_id = $1 order by s.created_at desc, s.id desc limit $2`, [organizationId, options.limit + 1]);
   const page = rows.slice(0, options.limit).map(toScheduleRow);
   return { rows: page, hasMore: rows.length > options.limit };
 }
@@ -109,8 +119,8 @@ export async function getMemberResult(scheduleId: string, mark: string) {
   const sql = getSql();
   // The chunk holding the mark, and the member's place in it (marks are unique in a schedule).
   const [member] = await sql`
-    select c.first_member + p.position - 1 as member_index, c.marks[p.position] as mark, c.members -> (p.position - 1) as input,
-      s.header, coalesce(o.category, c.members -> (p.position - 1) ->> 'category') as category, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.detail, o.member_index is not null as checked
+    select c.first_member + p.position - 1 as member_index, c.marks[p.position] as mark, c.members::json -> (p.position - 1) as input,
+      s.header, coalesce(o.category, c.members::json -> (p.position - 1) ->> 'category') as category, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.detail, o.member_index is not null as checked
     from schedule_chunks c
       cross join lateral (select array_position(c.marks, ${mark}::text) as position) p
       join schedules s on s.id = c.schedule_id

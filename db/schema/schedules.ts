@@ -32,6 +32,8 @@ export const schedules = pgTable(
     header: jsonb().notNull(),
     memberCount: integer().notNull(),
     chunkCount: integer().notNull(),
+    // Totals written once, when the schedule ends; while it runs, db/queries/schedules.ts sums its
+    // chunks instead, so concurrent chunks never queue on this row.
     chunksDone: integer().notNull().default(0),
     checkedCount: integer().notNull().default(0),
     passCount: integer().notNull().default(0),
@@ -114,10 +116,18 @@ export const scheduleChunks = pgTable(
     memberCount: integer().notNull(),
     /** The members' marks in order: a member's page finds its chunk and position by mark. */
     marks: text().array().notNull(),
-    /** The members in order, public format as submitted (json: stored and returned, never queried inside). */
-    members: json().notNull(),
+    /**
+     * The members in order: a JSON array, public format as submitted. text, not json: the server
+     * wrote it with JSON.stringify, and having PostgreSQL validate 28 MB again cost more than the
+     * rest of storing it. Read back with JSON.parse, or cast to json for one member.
+     */
+    members: text().notNull(),
     doneAt: timestamp({ withTimezone: true }),
     attempts: integer().notNull().default(0),
+    /** Outcome counts of the chunk's members, written with done_at. */
+    passCount: integer().notNull().default(0),
+    failCount: integer().notNull().default(0),
+    errorCount: integer().notNull().default(0),
   },
   (t) => [primaryKey({ columns: [t.scheduleId, t.chunkIndex] })],
 );

@@ -47,7 +47,11 @@ export function createDrill(name: string) {
 }
 
 export async function getScheduleProgress(id: string) {
-  const [row] = await getSql()`select status, chunks_done, chunk_count, checked_count from schedules where id = ${id}`;
+  // Progress as the chunks record it (the schedule's own totals are written when it ends).
+  const [row] = await getSql()`
+    select s.status, s.chunk_count, count(c.done_at)::int as chunks_done,
+      coalesce(sum(c.member_count) filter (where c.done_at is not null), 0)::int as checked_count
+    from schedules s join schedule_chunks c on c.schedule_id = s.id where s.id = ${id} group by s.id`;
   return row as { status: string; chunks_done: number; chunk_count: number; checked_count: number };
 }
 

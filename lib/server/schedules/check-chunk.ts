@@ -43,14 +43,17 @@ export async function checkChunk(scheduleId: string, chunkIndex: number): Promis
     await failSchedule(scheduleId, `chunk ${chunkIndex} could not be checked after ${MAX_CHUNK_ATTEMPTS} attempts`);
     return "skipped";
   }
-  await sql`update schedules set status = 'checking', updated_at = now() where id = ${scheduleId} and status = 'queued'`;
+  // Only the first chunks see "queued": the rest leave the schedule's row alone.
+  if (chunk.status === "queued") await sql`update schedules set status = 'checking', updated_at = now() where id = ${scheduleId} and status = 'queued'`;
 
-  const outcomes = checkMembers(chunk.header as Record<string, unknown>, chunk.first_member as number, chunk.members as unknown[]);
+  const outcomes = checkMembers(chunk.header as Record<string, unknown>, chunk.first_member as number, JSON.parse(chunk.members as string) as unknown[]);
 
+  const passed = outcomes.filter((o) => o.result?.pass).length;
+  const errored = outcomes.filter((o) => o.error !== null).length;
   const wrote = await sql.begin(async (tx) => {
-    // Lock order: this chunk's row, then (at the progress update) the schedule's row. Result
-    // tables have no foreign key to schedules, so the COPYs of concurrent chunks take no lock
-    // on the schedule and overlap; only the short progress update queues.
+    // Only this chunk's row is locked: results and the chunk's counts commit together, and
+    // concurrent chunks of the schedule never wait for each other (result tables have no
+    // foreign key, and the schedule's progress is summed from its chunks).
     const [locked] = await tx`select done_at from schedule_chunks where schedule_id = ${scheduleId} and chunk_index = ${chunkIndex} for update`;
     if (!locked || locked.done_at) return false;
     await copyRows(tx, "member_outcomes", ["schedule_id", "member_index", "mark", "category", "pass", "governing_check", "utilization", "factor_of_safety", "detail"], outcomeRows(scheduleId, outcomes));
@@ -60,17 +63,14 @@ export async function checkChunk(scheduleId: string, chunkIndex: number): Promis
       ["schedule_id", "member_index", "check_key", "combination_id", "span_index", "span_kind", "deflection_mm", "at_mm", "allowed_mm", "utilization", "factor_of_safety", "pass"],
       checkRows(scheduleId, outcomes),
     );
-    await tx`update schedule_chunks set done_at = now() where schedule_id = ${scheduleId} and chunk_index = ${chunkIndex}`;
-    const passed = outcomes.filter((o) => o.result?.pass).length;
-    const errored = outcomes.filter((o) => o.error !== null).length;
     await tx`
-      update schedules set chunks_done = chunks_done + 1, checked_count = checked_count + ${outcomes.length},
-        pass_count = pass_count + ${passed}, fail_count = fail_count + ${outcomes.length - passed - errored},
-        error_count = error_count + ${errored}, updated_at = now()
-      where id = ${scheduleId}`;
-    await completeScheduleIfDone(tx, scheduleId);
+      update schedule_chunks set done_at = now(), pass_count = ${passed}, fail_count = ${outcomes.length - passed - errored}, error_count = ${errored}
+      where schedule_id = ${scheduleId} and chunk_index = ${chunkIndex}`;
     return true;
   });
+  // After the commit, so that whichever chunk commits last sees every chunk done. A worker that
+  // dies just here leaves the completion to the reconciler.
+  if (wrote) await completeScheduleIfDone(scheduleId);
   return wrote ? "checked" : "skipped";
 }
 

@@ -3,23 +3,47 @@ import type { TransactionSql } from "postgres";
 import { getSql } from "@/db/client";
 import { createId } from "@/lib/server/ids";
 
+/** The schedule's totals summed from its chunks, as the schedules row keeps them once it ends. */
+const CHUNK_TOTALS = `
+  select count(done_at)::int as chunks_done, count(*) filter (where done_at is null)::int as open_chunks,
+    coalesce(sum(member_count) filter (where done_at is not null), 0)::int as checked_count,
+    coalesce(sum(pass_count), 0)::int as pass_count, coalesce(sum(fail_count), 0)::int as fail_count,
+    coalesce(sum(error_count), 0)::int as error_count
+  from schedule_chunks where schedule_id = $1`;
+
+/** Writes the chunk totals onto the schedule's row (inside the transaction that ends it). */
+async function writeFinalTotals(tx: TransactionSql, scheduleId: string) {
+  const [totals] = await tx.unsafe(CHUNK_TOTALS, [scheduleId]);
+  await tx`
+    update schedules set chunks_done = ${totals!.chunks_done}, checked_count = ${totals!.checked_count}, pass_count = ${totals!.pass_count},
+      fail_count = ${totals!.fail_count}, error_count = ${totals!.error_count}
+    where id = ${scheduleId}`;
+  return totals!;
+}
+
 /**
- * Marks the schedule completed once its last chunk is in, and writes `schedule.completed` to the
- * outbox in the same transaction, so the event exists exactly when the results do.
+ * Marks the schedule completed once every chunk is in, with its totals, and writes
+ * `schedule.completed` to the outbox in the same transaction, so the event exists exactly when
+ * the results do. Called after each chunk commits; only the caller that finds no open chunk
+ * locks the schedule's row, and the lock lets one of two racing last chunks complete it.
  */
-export async function completeScheduleIfDone(tx: TransactionSql, scheduleId: string): Promise<boolean> {
-  const [s] = await tx`
-    select organization_id, status, chunks_done, chunk_count, member_count, checked_count, pass_count, fail_count, error_count
-    from schedules where id = ${scheduleId} for no key update`;
-  if (!s || s.status === "completed" || s.status === "failed" || s.chunks_done < s.chunk_count) return false;
-  await tx`update schedules set status = 'completed', completed_at = now(), updated_at = now() where id = ${scheduleId}`;
-  const payload = {
-    scheduleId,
-    status: "completed",
-    counts: { members: s.member_count, checked: s.checked_count, passed: s.pass_count, failed: s.fail_count, errors: s.error_count },
-  };
-  await tx`insert into outbox_events (id, organization_id, type, payload) values (${createId("evt")}, ${s.organization_id}, 'schedule.completed', ${JSON.stringify(payload)}::jsonb)`;
-  return true;
+export async function completeScheduleIfDone(scheduleId: string): Promise<boolean> {
+  const sql = getSql();
+  const [open] = await sql.unsafe(CHUNK_TOTALS, [scheduleId]);
+  if (!open || open.open_chunks > 0 || open.chunks_done === 0) return false;
+  return sql.begin(async (tx) => {
+    const [s] = await tx`select organization_id, status, member_count from schedules where id = ${scheduleId} for no key update`;
+    if (!s || s.status === "completed" || s.status === "failed") return false;
+    const totals = await writeFinalTotals(tx, scheduleId);
+    await tx`update schedules set status = 'completed', completed_at = now(), updated_at = now() where id = ${scheduleId}`;
+    const payload = {
+      scheduleId,
+      status: "completed",
+      counts: { members: s.member_count, checked: totals.checked_count, passed: totals.pass_count, failed: totals.fail_count, errors: totals.error_count },
+    };
+    await tx`insert into outbox_events (id, organization_id, type, payload) values (${createId("evt")}, ${s.organization_id}, 'schedule.completed', ${JSON.stringify(payload)}::jsonb)`;
+    return true;
+  });
 }
 
 /** Ends a schedule with a reason, once, and writes `schedule.failed` to the outbox with it. */
@@ -27,6 +51,7 @@ export async function failSchedule(scheduleId: string, reason: string): Promise<
   await getSql().begin(async (tx) => {
     const [s] = await tx`select organization_id, status from schedules where id = ${scheduleId} for no key update`;
     if (!s || s.status === "completed" || s.status === "failed") return;
+    await writeFinalTotals(tx, scheduleId);
     await tx`update schedules set status = 'failed', failure_reason = ${reason}, completed_at = now(), updated_at = now() where id = ${scheduleId}`;
     await tx`insert into outbox_events (id, organization_id, type, payload)
       values (${createId("evt")}, ${s.organization_id}, 'schedule.failed', ${JSON.stringify({ scheduleId, status: "failed", reason })}::jsonb)`;
