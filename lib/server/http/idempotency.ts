@@ -32,10 +32,12 @@ function assertKeyShape(key: string): void {
 export async function runIdempotent(
   organizationId: string,
   key: string | null,
-  requestHash: string,
+  /** A function, so that a request without a key never pays for hashing its body. */
+  hashThisRequest: () => string,
   run: () => Promise<StoredResponse>,
 ): Promise<StoredResponse & { replayed: boolean }> {
   if (key === null) return { ...(await run()), replayed: false };
+  const requestHash = hashThisRequest();
   assertKeyShape(key);
   const sql = getSql();
   await sql`delete from idempotency_keys where organization_id = ${organizationId} and key = ${key} and expires_at < now()`;

@@ -58,8 +58,8 @@ export async function submitScheduleRequest(request: Request, submitter: Submitt
   const fullType = request.headers.get("content-type") ?? "";
   const type = fullType.split(";")[0]!.trim().toLowerCase();
   const bytes = await readBodyBytes(request, MAX_SCHEDULE_BODY_BYTES);
-  const requestHash = hashRequest([type, url.searchParams.toString(), bytes]);
-  return runIdempotent(submitter.organizationId, request.headers.get("idempotency-key"), requestHash, async () => {
+  const hashThisRequest = () => hashRequest([type, url.searchParams.toString(), bytes]);
+  return runIdempotent(submitter.organizationId, request.headers.get("idempotency-key"), hashThisRequest, async () => {
     const submission = await buildSubmission(fullType, type, bytes, url.searchParams);
     const created = await submitSchedule({ ...submitter, ...submission, callbackEndpointId: url.searchParams.get("callbackEndpointId") });
     return { status: 202, body: { ...created, links: scheduleLinks(created.id) } };
