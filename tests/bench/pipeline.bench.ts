@@ -1,6 +1,6 @@
 // bench:pipeline: POST a generated 100,000-member schedule (invented scenario), time it from the
 // POST to the last result stored, read the peak resident memory of the web and worker processes,
-// and time a raw PostgreSQL COPY of the same result rows (read back afterwards) for comparison. Run it through
+// and time a raw PostgreSQL COPY of the same result rows, outcomes and checks (read back afterwards), for comparison. Run it through
 // `npm run bench:pipeline`, which starts the services it needs.
 import { execFileSync } from "node:child_process";
 import { readFileSync } from "node:fs";
@@ -49,30 +49,51 @@ function groupPeakRssMb(pidFile: string): number {
   return Math.round(peakKb / 1024);
 }
 
-const CHECK_COLUMNS = ["schedule_id", "member_index", "check_key", "combination_id", "span_index", "span_kind", "deflection_mm", "at_mm", "allowed_mm", "utilization", "factor_of_safety", "pass"] as const;
-type CheckRow = readonly (string | number | boolean | null)[];
+type Row = readonly (string | number | boolean | null)[];
+interface ResultTable {
+  table: "member_outcomes" | "member_checks";
+  columns: readonly string[];
+  order: string;
+}
 
-/** The check rows the pipeline stored, read back after the run (untimed), in member order. */
-async function readStoredChecks(scheduleId: string): Promise<CheckRow[]> {
-  const rows = await getSql().unsafe(`select ${CHECK_COLUMNS.join(", ")} from member_checks where schedule_id = $1 order by member_index, check_key`, [scheduleId]);
-  return rows.map((r) => CHECK_COLUMNS.map((column) => r[column] as string | number | boolean | null));
+// Every result row the pipeline writes: one outcome per member, one row per member and check.
+const RESULT_TABLES: ResultTable[] = [
+  { table: "member_outcomes", columns: ["schedule_id", "member_index", "mark", "category", "pass", "governing_check", "utilization", "factor_of_safety", "detail"], order: "member_index" },
+  {
+    table: "member_checks",
+    columns: ["schedule_id", "member_index", "check_key", "combination_id", "span_index", "span_kind", "deflection_mm", "at_mm", "allowed_mm", "utilization", "factor_of_safety", "pass"],
+    order: "member_index, check_key",
+  },
+];
+
+/** The rows the pipeline stored in one result table, read back after the run (untimed). */
+async function readStoredRows(scheduleId: string, { table, columns, order }: ResultTable): Promise<Row[]> {
+  // detail is json: read it as its text, as the workers wrote it
+  const list = columns.map((column) => (column === "detail" ? "detail::text as detail" : column)).join(", ");
+  const rows = await getSql().unsafe(`select ${list} from ${table} where schedule_id = $1 order by ${order}`, [scheduleId]);
+  return rows.map((r) => columns.map((column) => r[column] as string | number | boolean | null));
 }
 
 /**
- * The same rows, values and all, written by one plain COPY (the same copyRows path the workers
- * use) into a logged table shaped like member_checks (same primary key): the floor for storing
- * this schedule's results.
+ * The same rows, values and all, written by plain COPY (the same copyRows path the workers use)
+ * into logged tables shaped like the result tables (same keys and indexes): the floor for
+ * storing this schedule's results. Seconds per table.
  */
-async function timeRawCopy(rows: CheckRow[]): Promise<number> {
+async function timeRawCopy(stored: { table: ResultTable; rows: Row[] }[]): Promise<number[]> {
   const sql = getSql();
-  await sql`drop table if exists bench_raw_copy`;
-  await sql`create table bench_raw_copy (like member_checks including all)`;
-  const start = performance.now();
-  await sql.begin((tx) => copyRows(tx, "bench_raw_copy", CHECK_COLUMNS, rows));
-  const seconds = (performance.now() - start) / 1000;
-  await sql`drop table bench_raw_copy`;
+  const seconds: number[] = [];
+  for (const { table, rows } of stored) {
+    const copy = `bench_raw_${table.table}`;
+    await sql.unsafe(`drop table if exists ${copy}; create table ${copy} (like ${table.table} including all)`);
+    const start = performance.now();
+    await sql.begin((tx) => copyRows(tx, copy, table.columns, rows));
+    seconds.push((performance.now() - start) / 1000);
+    await sql.unsafe(`drop table ${copy}`);
+  }
   return seconds;
 }
+
+const median = (values: number[]) => [...values].sort((x, y) => x - y)[Math.floor(values.length / 2)]!;
 
 const { secret } = await createApiKey({ organizationId: demoOrganizations.engineering.id, name: "bench", scopes: ["schedules:write", "results:read"], createdBy: { commandLine: true } });
 const body = JSON.stringify({
@@ -97,17 +118,21 @@ for (;;) {
   await new Promise((r) => setTimeout(r, 50));
 }
 const seconds = (performance.now() - start) / 1000;
-const [counts] = await sql`select count(*)::int as n from member_checks where schedule_id = ${id}`;
-const resultRows = counts!.n as number;
+const stored = [];
+for (const table of RESULT_TABLES) stored.push({ table, rows: await readStoredRows(id, table) });
+const [outcomeRows, checkRows] = stored.map((s) => s.rows.length) as [number, number];
+if (outcomeRows !== MEMBERS) throw new Error(`read back ${outcomeRows} outcome rows for ${MEMBERS} members`);
 // Median of three: one COPY of about a second is at the mercy of whatever else the machine does.
-const copyRuns: number[] = [];
-const storedChecks = await readStoredChecks(id);
-if (storedChecks.length !== resultRows) throw new Error(`read back ${storedChecks.length} check rows of ${resultRows}`);
-for (let run = 0; run < 3; run++) copyRuns.push(await timeRawCopy(storedChecks));
-const copySeconds = [...copyRuns].sort((x, y) => x - y)[1]!;
+const copyRuns: number[][] = [];
+for (let run = 0; run < 3; run++) copyRuns.push(await timeRawCopy(stored));
+const copySeconds = median(copyRuns.map((run) => run[0]! + run[1]!));
+const checksOnlySeconds = median(copyRuns.map((run) => run[1]!));
 const webRss = groupPeakRssMb("web.pid");
 const workerRss = Math.max(groupPeakRssMb("worker.pid"), groupPeakRssMb("worker-2.pid"));
 await closeDb();
-console.log(`accepted (202) after ${accepted.toFixed(2)} s; all ${MEMBERS} members checked and ${resultRows} check rows stored after ${seconds.toFixed(2)} s`);
-console.log(`raw COPY of ${resultRows} result rows: ${copyRuns.map((x) => x.toFixed(2)).join(", ")} s (median ${copySeconds.toFixed(2)} s)`);
+console.log(`accepted (202) after ${accepted.toFixed(2)} s; all ${MEMBERS} members checked, ${outcomeRows} outcome and ${checkRows} check rows stored after ${seconds.toFixed(2)} s`);
+console.log(
+  `raw COPY of the same ${outcomeRows + checkRows} result rows: ${copyRuns.map((run) => (run[0]! + run[1]!).toFixed(2)).join(", ")} s (median ${copySeconds.toFixed(2)} s); ` +
+    `of the ${checkRows} check rows alone: median ${checksOnlySeconds.toFixed(2)} s, ratio ${(seconds / checksOnlySeconds).toFixed(1)}`,
+);
 console.log(`bench:pipeline members=${MEMBERS} seconds=${seconds.toFixed(2)} copy_seconds=${copySeconds.toFixed(2)} ratio=${(seconds / copySeconds).toFixed(1)} web_rss_mb=${webRss} worker_rss_mb=${workerRss}`);
