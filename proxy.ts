@@ -1,7 +1,8 @@
 import { NextResponse, type NextRequest } from "next/server";
 
 import { isSameOrigin } from "@/lib/server/auth/origin";
-import { badOriginProblem, problemResponse, PROBLEM_BASE } from "@/lib/server/http/problem";
+import { DomainError } from "@/lib/server/errors";
+import { badOriginProblem, toProblem } from "@/lib/server/http/problem";
 
 /** Forms and actions carry a few kilobytes; Next's own limit would answer 500, this answers 413. */
 const MAX_FORM_BODY_BYTES = 1_000_000;
@@ -13,12 +14,7 @@ const MAX_FORM_BODY_BYTES = 1_000_000;
 export function proxy(request: NextRequest) {
   // A malformed percent-escape would make Next fail decoding route parameters with a 500.
   if (!isDecodablePath(request.nextUrl.pathname)) {
-    return problemResponse({
-      type: PROBLEM_BASE + "bad-request",
-      title: "Malformed request",
-      status: 400,
-      detail: "The address contains a malformed percent-escape.",
-    });
+    return toProblem(new DomainError("bad_request", "The address contains a malformed percent-escape."));
   }
   const safe = ["GET", "HEAD", "OPTIONS"].includes(request.method);
   // API-key routes carry no cookies: the origin rule is not theirs (they reach here only without a body).
@@ -26,13 +22,7 @@ export function proxy(request: NextRequest) {
   const instance = request.nextUrl.pathname;
   if (!isSameOrigin(request.headers)) return badOriginProblem(instance);
   if (Number(request.headers.get("content-length") ?? "0") > MAX_FORM_BODY_BYTES) {
-    return problemResponse({
-      type: PROBLEM_BASE + "too-large",
-      title: "Request too large",
-      status: 413,
-      detail: `Forms accept at most ${MAX_FORM_BODY_BYTES} bytes.`,
-      instance,
-    });
+    return toProblem(new DomainError("too_large", `Forms accept at most ${MAX_FORM_BODY_BYTES} bytes.`), instance);
   }
   return NextResponse.next();
 }

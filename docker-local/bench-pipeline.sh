@@ -28,6 +28,6 @@ build_web_if_needed "$SAGLINE_DIST_DIR"
 # Two worker processes, one per core, as README's scaling section describes.
 start_process worker "$RUN" "$LOCAL_DIR/logs/bench-worker.log" npx tsx workers/index.ts
 start_process worker-2 "$RUN" "$LOCAL_DIR/logs/bench-worker-2.log" npx tsx workers/index.ts
-START_PORT="${APP_URL##*:}" start_process web "$RUN" "$LOCAL_DIR/logs/bench-web.log" npx next start -H 127.0.0.1 -p "$BENCH_APP_PORT"
-wait_for_url "$APP_URL/api/health" 60
+START_PORT="$BENCH_APP_PORT" start_process web "$RUN" "$LOCAL_DIR/logs/bench-web.log" npx next start -H 127.0.0.1 -p "$BENCH_APP_PORT"
+wait_for_url "$APP_URL/api/health" 60 || { log "the web app did not become healthy; see $LOCAL_DIR/logs/bench-web.log"; tail -30 "$LOCAL_DIR/logs/bench-web.log"; exit 1; }
 npx tsx tests/bench/pipeline.bench.ts

@@ -1,8 +1,10 @@
-# Starting and stopping Sagline's own processes by pid file. Sourced by start.sh, stop.sh, test.sh.
+# Starting and stopping Sagline's own processes by pid file. Sourced by start.sh, stop.sh, test.sh,
+# bench-pipeline.sh.
 
 # start_process NAME RUN_DIR LOG COMMAND...: starts in the background unless already running.
-# With START_PORT set, refuses to start when something else already listens there, so a health
-# check can never be answered by a stranger's server.
+# With START_PORT set (the port the process itself listens on, not APP_URL's, which may name a
+# proxy), refuses to start when something else already listens there, so a health check can never
+# be answered by a stranger's server.
 start_process() {
   local name="$1" run_dir="$2" logfile="$3"
   shift 3

@@ -29,10 +29,9 @@ if [ "$SAGLINE_FAKES" = "1" ]; then
   start_process smtp-fake "$RUN" "$LOCAL_DIR/logs/smtp-fake.log" npx tsx docker-local/fakes/smtp-fake.ts
   start_process partner-fake "$RUN" "$LOCAL_DIR/logs/partner-fake.log" npx tsx docker-local/fakes/partner-fake.ts
 fi
-for script in workers/index.ts; do
-  [ -f "$script" ] && start_process worker "$RUN" "$LOCAL_DIR/logs/worker.log" npx tsx "$script"
-done
-START_PORT="${APP_URL##*:}" start_process web "$RUN" "$LOCAL_DIR/logs/web.log" npx next start -H 127.0.0.1 -p "$APP_PORT"
+start_process worker "$RUN" "$LOCAL_DIR/logs/worker.log" npx tsx workers/index.ts
+# The port check is on the port next listens on; APP_URL may name a proxy in front of it.
+START_PORT="$APP_PORT" start_process web "$RUN" "$LOCAL_DIR/logs/web.log" npx next start -H 127.0.0.1 -p "$APP_PORT"
 
 wait_for_url "$APP_URL/api/health" 60 || { log "the web app did not become healthy; see $LOCAL_DIR/logs/web.log"; tail -20 "$LOCAL_DIR/logs/web.log"; exit 1; }
 echo

@@ -55,10 +55,8 @@ npx tsx db/seed.ts >/dev/null
 build_web_if_needed "$SAGLINE_DIST_DIR"
 start_process smtp-fake "$RUN" "$LOCAL_DIR/logs/$TEST_DB-smtp-fake.log" npx tsx docker-local/fakes/smtp-fake.ts
 start_process partner-fake "$RUN" "$LOCAL_DIR/logs/$TEST_DB-partner-fake.log" npx tsx docker-local/fakes/partner-fake.ts
-for script in workers/index.ts; do
-  [ -f "$script" ] && start_process worker "$RUN" "$LOCAL_DIR/logs/$TEST_DB-worker.log" npx tsx "$script"
-done
-START_PORT="${APP_URL##*:}" start_process web "$RUN" "$LOCAL_DIR/logs/$TEST_DB-web.log" npx next start -H 127.0.0.1 -p "$TEST_APP_PORT"
+start_process worker "$RUN" "$LOCAL_DIR/logs/$TEST_DB-worker.log" npx tsx workers/index.ts
+START_PORT="$TEST_APP_PORT" start_process web "$RUN" "$LOCAL_DIR/logs/$TEST_DB-web.log" npx next start -H 127.0.0.1 -p "$TEST_APP_PORT"
 wait_for_url "$APP_URL/api/health" 60 || { tail -30 "$LOCAL_DIR/logs/$TEST_DB-web.log"; exit 1; }
 wait_for_url "$MAIL_UI_URL" 30
 wait_for_url "http://127.0.0.1:$PARTNER_PORT/" 30

@@ -9,6 +9,9 @@ export type PeriodicTask = { name: string; everyMs: number; run: () => Promise<v
 
 export const periodicTasks: PeriodicTask[] = [
   { name: "reconcile-schedules", everyMs: Number(process.env.RECONCILE_EVERY_MS ?? 10_000), run: async () => void (await reconcileSchedules()) },
+  // Webhooks: fan the outbox out every second; re-queue overdue delivery attempts (Redis lost them).
+  { name: "dispatch-outbox", everyMs: Number(process.env.OUTBOX_DISPATCH_EVERY_MS ?? 1_000), run: async () => void (await dispatchOutboxUntilEmpty()) },
+  { name: "reconcile-deliveries", everyMs: Number(process.env.DELIVERY_RECONCILE_EVERY_MS ?? 15_000), run: async () => void (await reconcileDeliveries()) },
 ];
 
 export function startPeriodicTasks(): () => void {
@@ -27,9 +30,3 @@ export function startPeriodicTasks(): () => void {
   });
   return () => timers.forEach(clearInterval);
 }
-
-// Webhooks: fan the outbox out every second; re-queue overdue delivery attempts (Redis lost them).
-periodicTasks.push(
-  { name: "dispatch-outbox", everyMs: Number(process.env.OUTBOX_DISPATCH_EVERY_MS ?? 1_000), run: async () => void (await dispatchOutboxUntilEmpty()) },
-  { name: "reconcile-deliveries", everyMs: Number(process.env.DELIVERY_RECONCILE_EVERY_MS ?? 15_000), run: async () => void (await reconcileDeliveries()) },
-);

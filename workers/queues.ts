@@ -8,7 +8,6 @@ import { createProducerConnection } from "./connection";
 export const queueNames = {
   checkMembers: "check-members",
   deliverWebhook: "deliver-webhook",
-  dispatchOutbox: "dispatch-outbox",
 } as const;
 
 export type QueueName = (typeof queueNames)[keyof typeof queueNames];

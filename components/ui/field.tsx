@@ -1,13 +1,18 @@
-import type { InputHTMLAttributes } from "react";
+import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from "react";
 
 export type FieldProps = InputHTMLAttributes<HTMLInputElement> & { label: string; name: string; error?: string };
+
+/** The small upper-case caption above every form control. */
+function FieldLabel({ children }: { children: ReactNode }) {
+  return <span className="mb-1 block text-xs font-medium uppercase tracking-wide text-ink-soft">{children}</span>;
+}
 
 /** A labelled input whose error is announced and tied to it for screen readers. */
 export function Field({ label, name, error, className = "", ...props }: FieldProps) {
   const errorId = error ? `${name}-error` : undefined;
   return (
     <label className={`block ${className}`}>
-      <span className="mb-1 block text-xs font-medium uppercase tracking-wide text-ink-soft">{label}</span>
+      <FieldLabel>{label}</FieldLabel>
       <input
         name={name}
         aria-invalid={error ? true : undefined}
@@ -20,6 +25,27 @@ export function Field({ label, name, error, className = "", ...props }: FieldPro
           {error}
         </span>
       ) : null}
+    </label>
+  );
+}
+
+export const SELECT_CLASS = "rounded border border-rule bg-sheet px-2 py-1.5 text-sm";
+
+export type SelectFieldProps = SelectHTMLAttributes<HTMLSelectElement> & {
+  label: string;
+  /** Shown under the select, inside the label. */
+  hint?: ReactNode;
+};
+
+/** A labelled select with Field's caption; `className` replaces the select's own classes. */
+export function SelectField({ label, hint, className = SELECT_CLASS, children, ...props }: SelectFieldProps) {
+  return (
+    <label className="block">
+      <FieldLabel>{label}</FieldLabel>
+      <select {...props} className={className}>
+        {children}
+      </select>
+      {hint}
     </label>
   );
 }

@@ -1,3 +1,5 @@
+import type { Sql, TransactionSql } from "postgres";
+
 import { getSql } from "@/db/client";
 
 export interface ScheduleRow {
@@ -24,11 +26,29 @@ const scheduleColumns = `s.id, s.name, s.reference, s.status, s.failure_reason, 
   case when s.status in ('completed', 'failed') then s.fail_count else p.fail_count end as fail_count,
   case when s.status in ('completed', 'failed') then s.error_count else p.error_count end as error_count,
   s.created_at, s.completed_at`;
-const scheduleSource = `schedules s cross join lateral (
-  select coalesce(sum(c.member_count) filter (where c.done_at is not null), 0)::int as checked_count,
+/** A schedule's progress summed from its chunks (alias c): the one definition of it. */
+const CHUNK_TOTALS_COLUMNS = `count(c.done_at)::int as chunks_done, (count(*) filter (where c.done_at is null))::int as open_chunks,
+    coalesce(sum(c.member_count) filter (where c.done_at is not null), 0)::int as checked_count,
     coalesce(sum(c.pass_count), 0)::int as pass_count, coalesce(sum(c.fail_count), 0)::int as fail_count,
-    coalesce(sum(c.error_count), 0)::int as error_count
-  from schedule_chunks c where c.schedule_id = s.id) p`;
+    coalesce(sum(c.error_count), 0)::int as error_count`;
+// Ended schedules use their own totals (scheduleColumns): the lateral skips their chunks.
+const scheduleSource = `schedules s cross join lateral (
+  select ${CHUNK_TOTALS_COLUMNS} from schedule_chunks c where c.schedule_id = s.id and s.status not in ('completed', 'failed')) p`;
+
+export interface ChunkTotals {
+  chunks_done: number;
+  open_chunks: number;
+  checked_count: number;
+  pass_count: number;
+  fail_count: number;
+  error_count: number;
+}
+
+/** The schedule's totals summed from its chunks, with `sql` or inside a transaction. */
+export async function getChunkTotals(sql: Sql | TransactionSql, scheduleId: string): Promise<ChunkTotals> {
+  const [totals] = await sql.unsafe(`select ${CHUNK_TOTALS_COLUMNS} from schedule_chunks c where c.schedule_id = $1`, [scheduleId]);
+  return totals as unknown as ChunkTotals;
+}
 
 function toScheduleRow(r: Record<string, unknown>): ScheduleRow {
   const profile = r.profile as { id: string; label: string; source: string };

@@ -11,10 +11,10 @@ import { checkSchedule, type CheckScheduleResult } from "../engine/check-schedul
 import type { CatalogueSection, InputIssue, MemberResult } from "../engine/model";
 import { listPresetIds } from "../engine/presets";
 import { convertFromInternal } from "../engine/units";
-import { mapIssueToCsvRow, parseScheduleCsv, type CsvDelimiter, type CsvRowError, type CsvRowPlace } from "../schedule-csv";
+import { CSV_DELIMITER_CHARS, isCsvDelimiter, mapIssueToCsvRow, parseScheduleCsv, stripBom, type CsvDelimiter, type CsvRowError, type CsvRowPlace } from "../schedule-csv";
 
-export const CAUTION = "Screening and review aid: the engineer of record and the governing local codes decide.";
-export const RESULTS_FORMAT = "sagline.results/v1";
+const CAUTION = "Screening and review aid: the engineer of record and the governing local codes decide.";
+const RESULTS_FORMAT = "sagline.results/v1";
 
 class UsageError extends Error {}
 
@@ -40,8 +40,9 @@ function parseArgs(argv: string[]): CliArgs {
     if (arg === "--json") args.json = true;
     else if (arg === "--delimiter") {
       const value = next();
-      const delimiter = value === "tab" || value === "\\t" ? "\t" : value;
-      if (delimiter !== "," && delimiter !== ";" && delimiter !== "\t") throw new UsageError('--delimiter must be ",", ";" or tab');
+      // Only "tab" is spelled out: "comma" and "semicolon" are not CLI spellings.
+      const delimiter = value === "tab" || value === "\\t" ? CSV_DELIMITER_CHARS.tab : value;
+      if (!isCsvDelimiter(delimiter)) throw new UsageError('--delimiter must be ",", ";" or tab');
       args.delimiter = delimiter;
     } else if (arg === "--profile") args.profile = next();
     else if (arg === "--catalogue") args.catalogue = next();
@@ -65,12 +66,12 @@ function isJsonFile(path: string, text: string): boolean {
   const ext = extname(path).toLowerCase();
   if (ext === ".json") return true;
   if (ext === ".csv" || ext === ".tsv" || ext === ".txt") return false;
-  return text.replace(/^\uFEFF/, "").trimStart().startsWith("{");
+  return stripBom(text).trimStart().startsWith("{");
 }
 
 function parseJson(text: string, label: string): unknown {
   try {
-    return JSON.parse(text.replace(/^\uFEFF/, ""));
+    return JSON.parse(stripBom(text));
   } catch (error) {
     throw new UsageError(`${label}: not valid JSON (${(error as Error).message})`);
   }
@@ -134,7 +135,7 @@ function formatTable(outcome: Extract<CheckScheduleResult, { ok: true }>): strin
 }
 
 /** The results document printed by --json (api-schemas/v1/result.schema.json). */
-export function createResultsDocument(outcome: Extract<CheckScheduleResult, { ok: true }>): Record<string, unknown> {
+function createResultsDocument(outcome: Extract<CheckScheduleResult, { ok: true }>): Record<string, unknown> {
   const { schedule, results, summary } = outcome;
   return {
     format: RESULTS_FORMAT,

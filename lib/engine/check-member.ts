@@ -14,7 +14,7 @@ const localPositions = new Float64Array(SHAPE_POINTS_PER_SPAN);
  * The deflected shape for diagrams: SHAPE_POINTS_PER_SPAN evenly spaced points per span (the
  * support nodes included), deflection in mm (+ down) per combination id.
  */
-export function sampleShape(solution: MemberSolution, combinationIds: string[], combinationFactors: CaseFactors[]): ShapeSample[] {
+function sampleShape(solution: MemberSolution, combinationIds: string[], combinationFactors: CaseFactors[]): ShapeSample[] {
   const samples: ShapeSample[] = [];
   const intervals = SHAPE_POINTS_PER_SPAN - 1;
   const combinationCount = combinationIds.length;

@@ -1,9 +1,9 @@
 import { STANDARD_GRAVITY_M_PER_S2, type FrequencyResult, type Load, type LimitProfile, type Member } from "./model";
-import { deflectionAt, resetCaseFactors } from "./solver/deflection-field";
+import { deflectionAt } from "./solver/deflection-field";
 import { EngineInputError } from "./solver/engine-input-error";
-import { solveMember } from "./solver/solve-member";
-import { assertMemberValid, POSITION_TOLERANCE_RATIO } from "./solver/validate-member";
-import { getSpanJudgements } from "./checks/span-groups";
+import { findSpanAt, getSelfWeightNPerMm, solveValidatedMember } from "./solver/solve-member";
+import { POSITION_TOLERANCE_RATIO } from "./solver/validate-member";
+import { getSpanJudgements, type SpanJudgement } from "./checks/span-groups";
 
 /**
  * First-mode eigenvalues beta*L of a uniform Euler-Bernoulli beam (from memory, Roark's Formulas
@@ -60,7 +60,7 @@ function collectMassModel(member: Member, massFactors: Record<string, number>): 
   if (member.selfWeightCase !== undefined) {
     let x0 = 0;
     for (const span of member.spans) {
-      const w = (span.areaMm2 ?? 0) * (span.densityKgPerM3 ?? 0) * 1e-9 * STANDARD_GRAVITY_M_PER_S2;
+      const w = getSelfWeightNPerMm(span);
       segments.push({ startMm: x0, endMm: x0 + span.lengthMm, wStartNPerMm: w, wEndNPerMm: w });
       x0 += span.lengthMm;
     }
@@ -122,18 +122,14 @@ function getMassIntensity(model: MassModel, xMm: number): number {
  * y in mm the ratio is in N/(kg mm) = 1000 / s^2. 6-point Gauss-Legendre per load-continuous
  * piece is exact for these polynomial integrands (degree <= 11).
  */
-function getRayleighOmegaSquared(model: MassModel, member: Member, groupSigns: number[] | null): number {
-  const judgements = getSpanJudgements(member);
+function getRayleighOmegaSquared(model: MassModel, member: Member, judgements: SpanJudgement[], groupSigns: number[] | null): number {
   const getSpanSign = (span: number): number => (groupSigns === null ? 1 : (groupSigns[judgements[span]!.groupIndex % 2] as number));
   const loads: Load[] = [];
-  let x0 = 0;
-  const spanStart: number[] = [];
-  for (const span of member.spans) {
-    spanStart.push(x0);
-    x0 += span.lengthMm;
-  }
+  // node positions as solveValidatedMember builds them, so findSpanAt agrees with the solution
+  const nodeXMm: number[] = [0];
+  for (let e = 0; e < member.spans.length; e++) nodeXMm.push((nodeXMm[e] as number) + member.spans[e]!.lengthMm);
   for (let e = 0; e < member.spans.length; e++) {
-    const a = spanStart[e] as number;
+    const a = nodeXMm[e] as number;
     const b = a + member.spans[e]!.lengthMm;
     const sign = getSpanSign(e);
     for (const s of model.segments) {
@@ -146,13 +142,13 @@ function getRayleighOmegaSquared(model: MassModel, member: Member, groupSigns: n
   }
   const pointSigns: number[] = [];
   for (const p of model.points) {
-    let span = member.spans.length - 1;
-    for (let e = 0; e < member.spans.length - 1; e++) if (p.atMm < (spanStart[e + 1] as number)) { span = e; break; }
+    const span = findSpanAt(nodeXMm, p.atMm);
     pointSigns.push(getSpanSign(span));
     loads.push({ kind: "point", loadCase: "mass", atMm: p.atMm, pN: getSpanSign(span) * p.pN });
   }
-  const solution = solveMember({ ...member, loads, selfWeightCase: undefined });
-  const factors = resetCaseFactors(solution.caseNames.length).map(() => 1);
+  // still valid: the mass loads lie inside the validated member's loads and spans
+  const solution = solveValidatedMember({ ...member, loads, selfWeightCase: undefined });
+  const factors = solution.caseNames.map(() => 1);
   let work = 0;
   let inertia = 0;
   for (let e = 0; e < solution.spanCount; e++) {
@@ -190,11 +186,12 @@ function getRayleighOmegaSquared(model: MassModel, member: Member, groupSigns: n
  * from memory); otherwise the Rayleigh quotient of the static deflected shape under the mass's
  * weight (an upper bound), taking the lower of all spans loaded downward and adjacent spans
  * loaded in alternate directions. Returns null when the profile has no frequency limit.
+ * Takes a member already validated (assertMemberValid or assertMemberAndProfileValid): it does
+ * not check the member again.
  */
 export function computeFrequency(member: Member, profile: LimitProfile): FrequencyResult | null {
   const limit = profile.frequency;
   if (limit === undefined) return null;
-  assertMemberValid(member);
   const model = collectMassModel(member, limit.massFactors);
   const betaL = getStandardBetaL(member);
   const span = member.spans[0]!;
@@ -206,9 +203,10 @@ export function computeFrequency(member: Member, profile: LimitProfile): Frequen
     hz = ((betaL * betaL) / (2 * Math.PI * span.lengthMm * span.lengthMm)) * Math.sqrt((1000 * span.eMpa * span.iMm4) / uniformMass);
     method = "exact";
   } else {
-    let omegaSquared = getRayleighOmegaSquared(model, member, null);
-    const groupCount = new Set(getSpanJudgements(member).map((j) => j.groupIndex)).size;
-    if (groupCount > 1) omegaSquared = Math.min(omegaSquared, getRayleighOmegaSquared(model, member, [1, -1]));
+    const judgements = getSpanJudgements(member);
+    let omegaSquared = getRayleighOmegaSquared(model, member, judgements, null);
+    const groupCount = new Set(judgements.map((j) => j.groupIndex)).size;
+    if (groupCount > 1) omegaSquared = Math.min(omegaSquared, getRayleighOmegaSquared(model, member, judgements, [1, -1]));
     hz = Math.sqrt(omegaSquared) / (2 * Math.PI);
     method = "rayleigh";
   }

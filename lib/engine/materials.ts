@@ -4,6 +4,7 @@
  * named publication, which is said in the `source` field; check against the publication before
  * relying on it.
  */
+import { PSI } from "./units/unit-table";
 
 export type MaterialFamily = "steel" | "aluminium" | "concrete" | "timber" | "custom";
 
@@ -20,7 +21,7 @@ export interface Material {
   source: string;
 }
 
-const KSI_TO_MPA = 6.894757293168361; // 1000 lbf / in^2 (NIST SP 811 Appendix B; exact from lbf and in)
+const KSI_TO_MPA = 1000 * PSI; // 1000 lbf / in^2 (NIST SP 811 Appendix B; exact from lbf and in)
 
 const AISC_STEEL_SOURCE =
   "AISC 360-16 / Steel Construction Manual: E = 29,000 ksi, G = 11,200 ksi (from memory); density 7,850 kg/m3 (490 lb/ft3, from memory)";

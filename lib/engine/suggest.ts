@@ -1,6 +1,7 @@
 import type { CatalogueSection, InputIssue, LimitProfile, Member } from "./model";
 import { evaluateValidatedMember, getStiffnessDemandRatio, type MemberEvaluation } from "./checks/evaluate-member";
 import { EngineInputError } from "./solver/engine-input-error";
+import { isPositiveFinite } from "./solver/validate-member";
 
 export interface SectionSuggestion {
   /** Second moment (mm^4), the same in every span, at which the governing demand is exactly 1. */
@@ -36,7 +37,7 @@ const MAX_I_GROWTH = 4 ** 10;
  * deflection does not scale with I: then bisect on log I. Null when even MAX_I_GROWTH times the
  * current I fails (the shear deflection alone governs).
  */
-export function findMinimumI(member: Member, profile: LimitProfile, current?: MemberEvaluation): number | null {
+function findMinimumI(member: Member, profile: LimitProfile, current?: MemberEvaluation): number | null {
   const referenceI = Math.max(...member.spans.map((span) => span.iMm4));
   const demand = current !== undefined && isUniformI(member) ? getStiffnessDemandRatio(current) : getDemandAtI(member, profile, referenceI);
   if (member.includeShearDeformation !== true) return referenceI * demand;
@@ -57,16 +58,37 @@ export function findMinimumI(member: Member, profile: LimitProfile, current?: Me
 
 function collectCatalogueIssues(catalogue: CatalogueSection[]): InputIssue[] {
   const issues: InputIssue[] = [];
-  const positive = (value: unknown): boolean => typeof value === "number" && Number.isFinite(value) && value > 0;
   catalogue.forEach((section, index) => {
     const path = `catalogue[${index}]`;
     if (typeof section.name !== "string" || section.name === "") issues.push({ path: `${path}.name`, message: "a catalogue section needs a name" });
-    if (!positive(section.iMm4)) issues.push({ path: `${path}.iMm4`, message: "second moment must be a positive finite number (mm^4)" });
-    if (!positive(section.areaMm2)) issues.push({ path: `${path}.areaMm2`, message: "area must be a positive finite number (mm^2)" });
-    if (!positive(section.massKgPerM)) issues.push({ path: `${path}.massKgPerM`, message: "mass per metre must be a positive finite number (kg/m)" });
-    if (section.shearAreaMm2 !== undefined && !positive(section.shearAreaMm2)) issues.push({ path: `${path}.shearAreaMm2`, message: "shear area must be a positive finite number (mm^2)" });
+    if (!isPositiveFinite(section.iMm4)) issues.push({ path: `${path}.iMm4`, message: "second moment must be a positive finite number (mm^4)" });
+    if (!isPositiveFinite(section.areaMm2)) issues.push({ path: `${path}.areaMm2`, message: "area must be a positive finite number (mm^2)" });
+    if (!isPositiveFinite(section.massKgPerM)) issues.push({ path: `${path}.massKgPerM`, message: "mass per metre must be a positive finite number (kg/m)" });
+    if (section.shearAreaMm2 !== undefined && !isPositiveFinite(section.shearAreaMm2)) issues.push({ path: `${path}.shearAreaMm2`, message: "shear area must be a positive finite number (mm^2)" });
   });
   return issues;
+}
+
+interface PreparedCatalogue {
+  issues: InputIssue[];
+  /** Ascending massKgPerM, catalogue order on ties. */
+  ordered: CatalogueSection[];
+}
+
+// one schedule shares one catalogue array across its failing members: validate and sort it once
+const preparedCatalogues = new WeakMap<CatalogueSection[], PreparedCatalogue>();
+
+function getPreparedCatalogue(catalogue: CatalogueSection[]): PreparedCatalogue {
+  let prepared = preparedCatalogues.get(catalogue);
+  if (prepared === undefined) {
+    const issues = collectCatalogueIssues(catalogue);
+    const ordered = issues.length > 0
+      ? []
+      : catalogue.map((section, index) => ({ section, index })).sort((a, b) => a.section.massKgPerM - b.section.massKgPerM || a.index - b.index).map((entry) => entry.section);
+    prepared = { issues, ordered };
+    preparedCatalogues.set(catalogue, prepared);
+  }
+  return prepared;
 }
 
 function createSectionMember(member: Member, section: CatalogueSection): Member {
@@ -88,11 +110,11 @@ function createSectionMember(member: Member, section: CatalogueSection): Member 
  * area (density and E stay the member's). Sections without a shear area are skipped when the
  * member includes shear deformation. Throws EngineInputError for an invalid catalogue entry.
  */
-export function findLightestPassingSection(member: Member, profile: LimitProfile, catalogue: CatalogueSection[]): string | null {
-  const issues = collectCatalogueIssues(catalogue);
-  if (issues.length > 0) throw new EngineInputError(issues);
-  const ordered = catalogue.map((section, index) => ({ section, index })).sort((a, b) => a.section.massKgPerM - b.section.massKgPerM || a.index - b.index);
-  for (const { section } of ordered) {
+function findLightestPassingSection(member: Member, profile: LimitProfile, catalogue: CatalogueSection[]): string | null {
+  const { issues, ordered } = getPreparedCatalogue(catalogue);
+  // fresh issue objects per error: callers may keep or rewrite them
+  if (issues.length > 0) throw new EngineInputError(issues.map((issue) => ({ ...issue })));
+  for (const section of ordered) {
     if (member.includeShearDeformation === true && section.shearAreaMm2 === undefined) continue;
     if (evaluateValidatedMember(createSectionMember(member, section), profile).pass) return section.name;
   }

@@ -1,7 +1,9 @@
 export { createCsvRowMapper } from "./row-mapper";
 export type { CsvMapperOptions, CsvRowError, CsvRowMapper, CreateMapperResult, PublicMember } from "./row-mapper";
-export { CSV_DELIMITERS, mapIssueToCsvRow, parseScheduleCsv } from "./parse-schedule-csv";
-export type { CsvDelimiter, CsvRowPlace, ParseScheduleCsvOptions, ParseScheduleCsvResult } from "./parse-schedule-csv";
+export { CSV_DELIMITER_CHARS, CSV_DELIMITERS, findDelimiterInSingleColumnHeader, isCsvDelimiter } from "./delimiters";
+export type { CsvDelimiter, CsvDelimiterName } from "./delimiters";
+export { mapCsvRecordsToSchedule, mapIssueToCsvRow, parseScheduleCsv } from "./parse-schedule-csv";
+export type { CsvMemberRecord, CsvRowPlace, CsvScheduleFields, MapCsvRecord, ParseScheduleCsvOptions, ParseScheduleCsvResult } from "./parse-schedule-csv";
 export { buildCsvTemplate } from "./template";
 export { stripBom, tokenizeCsv, type CsvRecord } from "./tokenize-csv";
 export { FIXED_COLUMNS, LOAD_COLUMNS } from "./columns";

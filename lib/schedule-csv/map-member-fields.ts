@@ -11,7 +11,7 @@ const SHAPE_COLUMNS: Record<string, string[]> = {
   i_plate: ["bf", "tf", "d", "tw"],
   explicit: ["second_moment", "area", "shear_area"],
 };
-const SECTION_COLUMNS = ["b", "h", "t", "d", "bf", "tf", "tw", "area", "second_moment", "shear_area"];
+export const SECTION_COLUMNS = ["b", "h", "t", "d", "bf", "tf", "tw", "area", "second_moment", "shear_area"];
 const CUSTOM_MATERIAL_COLUMNS = ["e", "g", "density"];
 
 /** CSV section column -> public section field, per shape (columns not listed keep their name). */
@@ -91,11 +91,10 @@ export function mapSection(cells: Cells, member: PublicMember, readQuantity: Rea
     const cell = cells.get(name);
     if (cell && !used.includes(name)) fail(cell.column.header, "not_applicable", `${name} does not apply to section ${shape}`);
   }
-  const rename: Record<string, Record<string, string>> = SECTION_FIELD_NAMES;
   const out: Record<string, unknown> = { shape };
   for (const name of used) {
     const value = readQuantity(name);
-    if (value) out[rename[shape]?.[name] ?? name] = value;
+    if (value) out[SECTION_FIELD_NAMES[shape]?.[name] ?? name] = value;
     else if (!cells.has(name) && !(shape === "explicit" && name !== "second_moment")) {
       fail(section.column.header, "missing_value", `section ${shape} needs the ${name} column`);
     }

@@ -1,10 +1,8 @@
+import { SCHEDULE_FORMAT } from "../engine/intake";
 import type { InputIssue } from "../engine/model";
-import { SCHEDULE_FORMAT } from "../engine/intake/parse-schedule";
-import { createCsvRowMapper, type CsvMapperOptions, type CsvRowError, type PublicMember } from "./row-mapper";
+import { isCsvDelimiter, type CsvDelimiter } from "./delimiters";
+import { createCsvRowMapper, type CsvMapperOptions, type CsvRowError, type CsvRowMapper, type PublicMember } from "./row-mapper";
 import { tokenizeCsv } from "./tokenize-csv";
-
-export const CSV_DELIMITERS = [",", ";", "\t"] as const;
-export type CsvDelimiter = (typeof CSV_DELIMITERS)[number];
 
 export interface ParseScheduleCsvOptions extends CsvMapperOptions {
   /** Field delimiter, taken from the caller and never guessed. Default ",". */
@@ -33,7 +31,7 @@ export type ParseScheduleCsvResult =
  */
 export function parseScheduleCsv(text: string, options: ParseScheduleCsvOptions): ParseScheduleCsvResult {
   const delimiter = options.delimiter ?? ",";
-  if (!(CSV_DELIMITERS as readonly string[]).includes(delimiter)) {
+  if (!isCsvDelimiter(delimiter)) {
     return { ok: false, errors: [{ row: 0, column: "", code: "invalid_delimiter", message: 'the delimiter must be ",", ";" or a tab' }] };
   }
   const tokens = tokenizeCsv(text, delimiter);
@@ -42,26 +40,59 @@ export function parseScheduleCsv(text: string, options: ParseScheduleCsvOptions)
   if (!header) return { ok: false, errors: [{ row: 1, line: 1, column: "", code: "empty_file", message: "the file has no header row" }] };
   const created = createCsvRowMapper(header.fields, options);
   if (!created.ok) return { ok: false, errors: created.errors.map((e) => ({ ...e, line: header.line })) };
+  const rows = records.map((record, index) => ({ fields: record.fields, row: index + 2, line: record.line }));
+  return mapCsvRecordsToSchedule(rows, (record, where) => created.mapper.mapRow(record.fields, where), {
+    name: options.name,
+    reference: options.reference,
+    units: options.units ?? {},
+    limits: options.limits,
+  });
+}
+
+/** One data record of a CSV schedule: its fields, spreadsheet row and starting line. */
+export interface CsvMemberRecord {
+  fields: readonly string[];
+  row: number;
+  line: number;
+}
+
+export type MapCsvRecord = (record: CsvMemberRecord, where: { row: number; line: number }) => ReturnType<CsvRowMapper["mapRow"]>;
+
+export interface CsvScheduleFields {
+  name: string;
+  /** Left out of the document when undefined. */
+  reference?: string;
+  units: NonNullable<CsvMapperOptions["units"]>;
+  limits: unknown;
+}
+
+/**
+ * Maps every data record to a member (blank records give none) and writes the public-format
+ * document around them. Every row error is collected before giving up; a file without a single
+ * member is an error of its own. Shared by parseScheduleCsv and the upload page, whose
+ * `mapRecord` first checks the record against the file as the person wrote it.
+ */
+export function mapCsvRecordsToSchedule(records: Iterable<CsvMemberRecord>, mapRecord: MapCsvRecord, schedule: CsvScheduleFields): ParseScheduleCsvResult {
   const members: PublicMember[] = [];
   const places: CsvRowPlace[] = [];
   const errors: CsvRowError[] = [];
-  records.forEach((record, index) => {
-    const where = { row: index + 2, line: record.line };
-    const mapped = created.mapper.mapRow(record.fields, where);
+  for (const record of records) {
+    const where = { row: record.row, line: record.line };
+    const mapped = mapRecord(record, where);
     if (!mapped.ok) errors.push(...mapped.errors);
     else if (mapped.member) {
       members.push(mapped.member);
       places.push(mapped.sources ? { ...where, sources: mapped.sources } : where);
     }
-  });
+  }
   if (errors.length > 0) return { ok: false, errors };
   if (members.length === 0) return { ok: false, errors: [{ row: 2, column: "", code: "no_rows", message: "the file has no member rows" }] };
   const doc: Record<string, unknown> = {
     format: SCHEDULE_FORMAT,
-    name: options.name,
-    ...(options.reference === undefined ? {} : { reference: options.reference }),
-    units: options.units ?? {},
-    limits: options.limits,
+    name: schedule.name,
+    ...(schedule.reference === undefined ? {} : { reference: schedule.reference }),
+    units: schedule.units,
+    limits: schedule.limits,
     members,
   };
   return { ok: true, doc, places };

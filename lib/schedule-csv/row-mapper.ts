@@ -1,13 +1,16 @@
 /**
  * Streaming-friendly CSV mapping: check the header once, then map each data row to one member
  * of the public schedule format (every quantity written as {"value", "unit"} with the column's
- * unit), or to row errors naming row, line and column. The API streams rows through papaparse
- * and calls mapRow; parseScheduleCsv does the same for a whole text.
+ * unit), or to row errors naming row, line and column. parseScheduleCsv (API uploads, the CLI)
+ * feeds it the records of tokenizeCsv; the upload page feeds it the rows papaparse splits in the
+ * browser, so both check every row the same way.
  */
 import { QUANTITY_KIND_LABELS, SYSTEM_DEFAULT_UNITS, findUnit, type QuantityKind, type UnitSystem } from "../engine/units";
 import { getColumnRole, splitHeader, type HeaderColumn } from "./columns";
-import { mapGeometry, mapLoads, mapMaterial, mapSection, SECTION_FIELD_NAMES, type Cells } from "./map-member-fields";
+import { findDelimiterInSingleColumnHeader } from "./delimiters";
+import { mapGeometry, mapLoads, mapMaterial, mapSection, SECTION_COLUMNS, SECTION_FIELD_NAMES, type Cells } from "./map-member-fields";
 import { parseCellBoolean, parseCellNumber, splitCellList } from "./row-values";
+import { stripBom } from "./tokenize-csv";
 
 export interface CsvRowError {
   /** Spreadsheet row: the header is row 1, the first data row is row 2. */
@@ -49,14 +52,13 @@ export function createCsvRowMapper(headerRow: readonly string[], options: CsvMap
   const errors: CsvRowError[] = [];
   const columns: HeaderColumn[] = [];
   const seen = new Map<string, string>();
-  const only = headerRow.length === 1 ? (headerRow[0] ?? "") : "";
-  const other = [";", "\t", ","].find((d) => only.includes(d));
-  if (other !== undefined) {
+  const other = findDelimiterInSingleColumnHeader(headerRow, [";", "\t", ","]);
+  if (other !== null) {
     const shown = other === "\t" ? "a tab" : `"${other}"`;
     return { ok: false, errors: [{ row: 1, column: "", code: "wrong_delimiter", message: `the header is a single column containing ${shown}: pass that delimiter (e.g. --delimiter ${other === "\t" ? "tab" : other})` }] };
   }
   headerRow.forEach((rawHeader, index) => {
-    const header = index === 0 ? rawHeader.replace(/^\uFEFF/, "") : rawHeader;
+    const header = index === 0 ? stripBom(rawHeader) : rawHeader;
     const fail = (code: string, message: string) => errors.push({ row: 1, column: header, code, message });
     const parts = splitHeader(header);
     if (!parts || parts.name === "") return fail("invalid_header", `column ${index + 1}: header "${header}" is not a column name with an optional [unit]`);
@@ -137,7 +139,7 @@ function mapRow(columns: HeaderColumn[], width: number, fields: readonly string[
     return values;
   };
   const member: PublicMember = {};
-  for (const name of ["mark", "category", "quantity", "material", "section", "span_1", "supports"]) {
+  for (const name of REQUIRED_COLUMNS) {
     if (!cells.has(name)) fail(columns.find((c) => c.name === name)?.header ?? name, "missing_value", `${name} is required`);
   }
   const mark = readText("mark");
@@ -200,7 +202,7 @@ function describeSources(cells: Cells, member: PublicMember, loadSources: Record
   const section = member.section;
   if (typeof section === "object" && section !== null) {
     const shape = String((section as Record<string, unknown>).shape);
-    for (const name of ["b", "h", "t", "d", "bf", "tf", "tw", "second_moment", "area", "shear_area"]) {
+    for (const name of SECTION_COLUMNS) {
       const header = headerOf(name);
       if (header) sources[`section.${SECTION_FIELD_NAMES[shape]?.[name] ?? name}`] = header;
     }

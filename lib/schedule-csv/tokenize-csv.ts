@@ -1,5 +1,5 @@
 /**
- * RFC 4180 tokenizer for the CLI and tests: quoted fields may hold the delimiter, doubled quotes
+ * RFC 4180 tokenizer behind parseScheduleCsv (API uploads and the CLI): quoted fields may hold the delimiter, doubled quotes
  * and newlines, so each record keeps the line it starts on (a record's row number and its line
  * number differ once a quoted field spans lines). A UTF-8 BOM is dropped; CRLF, LF and CR end lines.
  */

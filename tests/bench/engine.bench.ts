@@ -7,17 +7,7 @@
  */
 import { checkMember } from "../../lib/engine/check-member";
 import type { LimitProfile, Member } from "../../lib/engine/model";
-
-function createRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { createRandom } from "../unit/lib/engine/solver/random";
 
 const floorProfile: LimitProfile = {
   id: "bench-floor",

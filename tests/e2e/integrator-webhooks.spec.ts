@@ -60,7 +60,10 @@ describe("webhooks in the integrator console", () => {
     expect(text).toMatch(/#1 · HTTP 200 · \d+ ms/);
 
     // Filtering by status hides it under "failed".
-    await page.goto(`${APP_URL}/integrations/webhooks/deliveries?status=failed`);
+    const filtered = await page.goto(`${APP_URL}/integrations/webhooks/deliveries?status=failed`);
+    // The delivery log itself rendered, so a count of 0 means the filter hid the row.
+    expect(filtered?.ok()).toBe(true);
+    await page.getByRole("heading", { name: "Webhook deliveries" }).waitFor();
     await expect(page.getByTestId("delivery-row").filter({ hasText: url }).count()).resolves.toBe(0);
     await page.close();
   });

@@ -3,6 +3,10 @@
 import { spawn, type ChildProcess } from "node:child_process";
 
 import { getSql } from "@/db/client";
+import { getChunkTotals } from "@/db/queries/schedules";
+import { demoOrganizations } from "@/db/seed-data";
+
+import { createBeam, createScheduleDoc } from "./schedules";
 
 export function createDrill(name: string) {
   const prefix = `sagline-${name}-${Date.now().toString(36)}`;
@@ -46,13 +50,26 @@ export function createDrill(name: string) {
   return { prefix, startWorker, killHard, killAll };
 }
 
+/**
+ * Submits a drill schedule of simply supported beams (marks `${markPrefix}-0`, ...) straight to the
+ * intake, in 100-member chunks on the drill's queue prefix. Both are set before submit-schedule is
+ * first imported, because it reads the chunk size and the queues read the prefix when they load.
+ * Returns the schedule id.
+ */
+export async function submitDrillSchedule(drill: { prefix: string }, input: { markPrefix: string; memberCount: number; label: string }): Promise<string> {
+  process.env.REDIS_PREFIX = drill.prefix;
+  process.env.CHECK_CHUNK_SIZE = "100";
+  const { submitSchedule } = await import("@/lib/server/schedules/submit-schedule");
+  const members = Array.from({ length: input.memberCount }, (_, i) => createBeam(`${input.markPrefix}-${i}`, 3 + (i % 7), 5 + (i % 5)));
+  const doc = createScheduleDoc(members, `${input.label} ${drill.prefix}`);
+  return (await submitSchedule({ organizationId: demoOrganizations.engineering.id, source: "api-json", doc })).id;
+}
+
 export async function getScheduleProgress(id: string) {
   // Progress as the chunks record it (the schedule's own totals are written when it ends).
-  const [row] = await getSql()`
-    select s.status, s.chunk_count, count(c.done_at)::int as chunks_done,
-      coalesce(sum(c.member_count) filter (where c.done_at is not null), 0)::int as checked_count
-    from schedules s join schedule_chunks c on c.schedule_id = s.id where s.id = ${id} group by s.id`;
-  return row as { status: string; chunks_done: number; chunk_count: number; checked_count: number };
+  const [row] = await getSql()`select status, chunk_count from schedules where id = ${id}`;
+  const totals = await getChunkTotals(getSql(), id);
+  return { status: row!.status as string, chunk_count: row!.chunk_count as number, chunks_done: totals.chunks_done, checked_count: totals.checked_count };
 }
 
 export async function waitForProgress(id: string, test: (p: Awaited<ReturnType<typeof getScheduleProgress>>) => boolean, timeoutMs: number) {

@@ -4,7 +4,7 @@ import { SafetyCaution } from "@/components/ui/safety-caution";
 import { getEnv } from "@/lib/env";
 import { API_KEY_SCAN_PATTERN } from "@/lib/server/api-keys/key-format";
 import { apiKeyScopes, scopeDescriptions } from "@/lib/server/api-keys/scopes";
-import { buildOpenApiDocument, getApiLimits } from "@/lib/server/openapi/build-openapi";
+import { getApiLimits, getOpenApiDocument } from "@/lib/server/openapi/build-openapi";
 import { listProblemTypes } from "@/lib/server/openapi/problem-types";
 
 import { getRateLimits } from "../../api/v1/_lib/rate-limit";
@@ -18,7 +18,7 @@ export const dynamic = "force-dynamic";
 // Public (pageAccess "/api-docs"): partner developers read it before they have an account.
 export default function ApiDocsPage() {
   const limits = getApiLimits(getRateLimits());
-  const document = buildOpenApiDocument({ serverUrl: getEnv().APP_URL, limits });
+  const document = getOpenApiDocument({ serverUrl: getEnv().APP_URL, limits });
   const groups = readEndpointsByTag(document);
   const bodyMb = Math.round(limits.maxBodyBytes / (1024 * 1024));
   return (

@@ -3,21 +3,16 @@
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 
-import { runAction, type ActionResult } from "@/lib/server/auth/guards";
+import { getActionOrganizationId, runAction, type ActionResult } from "@/lib/server/auth/guards";
 import { inviteMember as invite } from "@/lib/server/people/invite-member";
 import { changeMemberRole as changeRole, removeMember as remove, revokeInvitation as revoke } from "@/lib/server/people/manage-members";
 import { emailSchema, idSchema, roleSchema } from "@/lib/server/validation";
-
-// runAction has checked the session and the people:manage permission before any body runs.
-function organizationOf(context: { active: { organizationId: string } | null } | null): string {
-  return context!.active!.organizationId;
-}
 
 const inviteSchema = z.object({ email: emailSchema, role: roleSchema });
 
 export async function inviteMember(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
   return runAction("people/inviteMember", inviteSchema, formData, async ({ email, role }, context) => {
-    await invite({ organizationId: organizationOf(context), invitedBy: context!.user, email, role });
+    await invite({ organizationId: getActionOrganizationId(context), invitedBy: context!.user, email, role });
     revalidatePath("/people");
     return { ok: true, message: `Invitation sent to ${email}.` };
   });
@@ -27,7 +22,7 @@ const changeRoleSchema = z.object({ membershipId: idSchema("mem"), role: roleSch
 
 export async function changeMemberRole(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
   return runAction("people/changeMemberRole", changeRoleSchema, formData, async ({ membershipId, role }, context) => {
-    await changeRole({ organizationId: organizationOf(context), membershipId, role });
+    await changeRole({ organizationId: getActionOrganizationId(context), membershipId, role });
     revalidatePath("/people");
     return { ok: true, message: "Role changed. It applies from the person's next request." };
   });
@@ -37,7 +32,7 @@ const membershipSchema = z.object({ membershipId: idSchema("mem") });
 
 export async function removeMember(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
   return runAction("people/removeMember", membershipSchema, formData, async ({ membershipId }, context) => {
-    await remove({ organizationId: organizationOf(context), membershipId });
+    await remove({ organizationId: getActionOrganizationId(context), membershipId });
     revalidatePath("/people");
     return { ok: true, message: "Removed from the organization." };
   });
@@ -47,7 +42,7 @@ const invitationSchema = z.object({ invitationId: idSchema("inv") });
 
 export async function revokeInvitation(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
   return runAction("people/revokeInvitation", invitationSchema, formData, async ({ invitationId }, context) => {
-    await revoke({ organizationId: organizationOf(context), invitationId });
+    await revoke({ organizationId: getActionOrganizationId(context), invitationId });
     revalidatePath("/people");
     return { ok: true, message: "Invitation withdrawn." };
   });

@@ -5,6 +5,7 @@ import { listOpenInvitations } from "@/db/queries/invitations";
 import { requirePage } from "@/lib/server/auth/guards";
 import { roleLabels } from "@/lib/server/auth/permissions";
 
+import { formatDateTime } from "../_components/format-date-time";
 import { PageHeader } from "../_components/page-header";
 import { InviteForm } from "./_components/invite-form";
 import { MemberRow } from "./_components/member-row";
@@ -49,7 +50,7 @@ export default async function PeoplePage() {
               {invitations.map((i) => (
                 <li key={i.id} className="flex items-center justify-between gap-2 px-3 py-2">
                   <span>
-                    {i.email} <span className="text-ink-soft">· {roleLabels[i.role]} · expires {i.expiresAt.toISOString().slice(0, 16).replace("T", " ")} UTC</span>
+                    {i.email} <span className="text-ink-soft">· {roleLabels[i.role]} · expires {formatDateTime(i.expiresAt)}</span>
                   </span>
                   <RevokeInvitationButton invitationId={i.id} email={i.email} />
                 </li>

@@ -7,9 +7,9 @@ import { listSchedules } from "@/db/queries/schedules";
 import { requirePage } from "@/lib/server/auth/guards";
 import { can } from "@/lib/server/auth/request-context";
 
+import { formatDateTime } from "../_components/format-date-time";
 import { PageHeader } from "../_components/page-header";
 import { encodeCursor, isScheduleCursor, readPageCursor } from "./_components/cursor";
-import { formatDateTime } from "./_components/format";
 import { toQuery } from "./_components/result-filters";
 import { ScheduleListRow } from "./_components/schedule-list-row";
 

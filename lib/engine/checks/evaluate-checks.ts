@@ -1,7 +1,7 @@
 import type { CheckResult, Combination, LimitProfile, Member, RotationResult } from "../model";
-import { findSpanExtreme, getNodeRotation, resetCaseFactors, type CaseFactors, type SpanExtreme } from "../solver/deflection-field";
+import { createCaseFactors, findSpanExtreme, getNodeRotation, type CaseFactors, type SpanExtreme } from "../solver/deflection-field";
 import { EngineInputError } from "../solver/engine-input-error";
-import { getCaseIndexOf, type MemberSolution } from "../solver/solve-member";
+import type { MemberSolution } from "../solver/solve-member";
 import { getSpanJudgements, type SpanJudgement } from "./span-groups";
 import { getCreepFactor } from "./validate-profile";
 
@@ -10,21 +10,9 @@ import { getCreepFactor } from "./validate-profile";
  * solution.caseNames (Combination doc in model.ts). The internal self-weight case follows the
  * member's selfWeightCase.
  */
-export function createCombinationFactors(solution: MemberSolution, combination: Combination, creepFactor: number, out?: CaseFactors): CaseFactors {
-  const factors = resetCaseFactors(solution.caseNames.length, out);
-  for (const name in combination.factors) {
-    const index = getCaseIndexOf(solution, name);
-    if (index >= 0) factors[index] = (factors[index] as number) + (combination.factors[name] as number);
-  }
-  const sustained = combination.sustainedFactors;
-  if (sustained !== undefined && creepFactor !== 0) {
-    for (const name in sustained) {
-      const index = getCaseIndexOf(solution, name);
-      if (index >= 0) factors[index] = (factors[index] as number) + creepFactor * (sustained[name] as number);
-    }
-  }
-  if (solution.selfWeightCaseIndex >= 0) factors[solution.selfWeightCaseIndex] = factors[solution.selfWeightNamedCaseIndex] as number;
-  return factors;
+export function createCombinationFactors(solution: MemberSolution, combination: Combination, creepFactor: number): CaseFactors {
+  const sustained = creepFactor !== 0 ? combination.sustainedFactors : undefined;
+  return createCaseFactors(solution, combination.factors, sustained, creepFactor);
 }
 
 /**

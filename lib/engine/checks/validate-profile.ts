@@ -1,8 +1,5 @@
 import type { Combination, InputIssue, LimitProfile, Member } from "../model";
-
-function isPositiveFinite(value: unknown): value is number {
-  return typeof value === "number" && Number.isFinite(value) && value > 0;
-}
+import { isFiniteNumber, isPositiveFinite } from "../solver/validate-member";
 
 function collectFactorIssues(factors: Record<string, number> | undefined, parentPath: string, field: string, issues: InputIssue[]): void {
   if (factors === undefined) return;
@@ -13,7 +10,7 @@ function collectFactorIssues(factors: Record<string, number> | undefined, parent
   for (const name in factors) {
     const value = factors[name];
     // the path is built only for a bad value: this runs for every member
-    if (typeof value !== "number" || !Number.isFinite(value)) issues.push({ path: `${parentPath}.${field}.${name}`, message: "factor must be a finite number" });
+    if (!isFiniteNumber(value)) issues.push({ path: `${parentPath}.${field}.${name}`, message: "factor must be a finite number" });
   }
 }
 
@@ -55,7 +52,7 @@ export function collectProfileIssues(profile: LimitProfile, member: Member): Inp
     collectFactorIssues(combination.sustainedFactors, path, "sustainedFactors", issues);
     if (combination.creep === "material") {
       if (member.materialCreepFactor === undefined) issues.push({ path: `${path}.creep`, message: `combination "${combination.id}" uses the material's creep factor but the member has no materialCreepFactor` });
-    } else if (combination.creep !== undefined && !(typeof combination.creep === "number" && Number.isFinite(combination.creep) && combination.creep >= 0)) {
+    } else if (combination.creep !== undefined && !(isFiniteNumber(combination.creep) && combination.creep >= 0)) {
       issues.push({ path: `${path}.creep`, message: "creep factor must be \"material\" or a finite number >= 0" });
     }
   }

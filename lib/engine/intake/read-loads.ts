@@ -1,4 +1,5 @@
 import type { Load } from "../model";
+import { POSITION_TOLERANCE_RATIO } from "../solver/validate-member";
 import { CASE_NAME_PATTERN } from "./read-profile";
 import {
   childPath,
@@ -29,7 +30,7 @@ type UniformLoad = Extract<Load, { kind: "uniform" }>;
 
 /** Positions within this many mm of an end count as at the end (unit round-off). */
 function getPositionToleranceMm(totalMm: number): number {
-  return totalMm * 1e-9;
+  return totalMm * POSITION_TOLERANCE_RATIO;
 }
 
 function readPosition(ctx: ReadContext, value: unknown, path: FieldPath, totalMm: number): number | null {

@@ -56,7 +56,7 @@ const CREEP_FIELDS_BY_METHOD: Record<CreepSpec["method"], readonly string[]> = {
 };
 
 /** Reads a member's `creep`: `{ method: "en1995" | "nds" | "aci" | "factor", ... }`. */
-export function readCreepSpec(ctx: ReadContext, value: unknown, path: FieldPath): CreepSpec | null {
+function readCreepSpec(ctx: ReadContext, value: unknown, path: FieldPath): CreepSpec | null {
   const block = readObject(ctx, value, path, CREEP_SPEC_FIELDS);
   if (!block) return null;
   const method = readEnum(ctx, block.method, childPath(path, "method"), CREEP_METHODS);

@@ -1,5 +1,6 @@
 import type { Load, Member, MemberCategory, SpanSegment, Support } from "../model";
 import type { Material } from "../materials";
+import { isStableSupportSet } from "../solver/validate-member";
 import { MAX_LOADS_PER_MEMBER, readLoad } from "./read-loads";
 import { readMaterial, resolveCreepFactor } from "./read-material";
 import { readSection, type ResolvedSection } from "./read-section";
@@ -127,15 +128,6 @@ function readSupport(ctx: ReadContext, value: unknown, path: FieldPath): Support
   return springNPerMm === null ? null : { kind, springNPerMm };
 }
 
-/** A beam in bending is stable with a fixed node, or with two nodes restrained vertically. */
-function isStable(supports: readonly Support[]): boolean {
-  let vertical = 0;
-  for (const support of supports) {
-    if (support.kind === "fixed") return true;
-    if (support.kind !== "free") vertical += 1;
-  }
-  return vertical >= 2;
-}
 
 // Output objects are built by assignment, not conditional spreads (each spread allocates and
 // copies); the key order is the same as before so serialised results do not change. The usual
@@ -297,7 +289,7 @@ export function readMember(
     left === "none" && right === "none"
       ? listedSupports
       : [...(left === "none" ? [] : [{ kind: "free" as const }]), ...listedSupports, ...(right === "none" ? [] : [{ kind: "free" as const }])];
-  if (supports.length > 0 && allSupportsValid && !isStable(fullSupports)) {
+  if (supports.length > 0 && allSupportsValid && !isStableSupportSet(fullSupports)) {
     ctx.issues.add(supportsPath, "the member is unstable: it needs a fixed support, or at least two pinned, roller or spring supports");
   }
 

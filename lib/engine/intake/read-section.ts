@@ -1,5 +1,6 @@
 import type { CatalogueSection } from "../model";
 import { findSectionProblems, getSectionProperties, type SectionShape } from "../sections";
+import { isPositiveFinite } from "../solver/validate-member";
 import type { QuantityKind } from "../units";
 import {
   childPath,
@@ -71,10 +72,6 @@ function listInvalidCatalogueFields(section: CatalogueSection): string[] {
   if (!isPositiveFinite(section.areaMm2)) bad.push("areaMm2");
   if (section.shearAreaMm2 !== undefined && !isPositiveFinite(section.shearAreaMm2)) bad.push("shearAreaMm2");
   return bad;
-}
-
-function isPositiveFinite(value: unknown): boolean {
-  return typeof value === "number" && Number.isFinite(value) && value > 0;
 }
 
 function readCatalogueSection(ctx: ReadContext, value: unknown, path: FieldPath, findCatalogue: FindCatalogue): ResolvedSection | null {

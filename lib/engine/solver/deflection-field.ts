@@ -1,6 +1,6 @@
 import { getPower, type ElementTerms } from "./element-terms";
 import { evaluatePolynomial, findPolynomialAbsMax, type AbsMaxResult } from "./poly-extrema";
-import { getCaseIndexOf, type MemberSolution } from "./solve-member";
+import { findSpanAt, getCaseIndexOf, type MemberSolution } from "./solve-member";
 
 /**
  * Factor per load case of a linear combination, indexed like solution.caseNames. A plain array:
@@ -8,27 +8,36 @@ import { getCaseIndexOf, type MemberSolution } from "./solve-member";
  */
 export type CaseFactors = number[];
 
-/** `out` (or a new array) set to `count` zeros; filled by push so it stays a packed array. */
-export function resetCaseFactors(count: number, out?: CaseFactors): CaseFactors {
-  if (out === undefined) {
-    const factors: CaseFactors = [];
-    for (let i = 0; i < count; i++) factors.push(0);
-    return factors;
+/** `count` zeros, filled by push so the array stays packed. */
+function createZeroFactors(count: number): CaseFactors {
+  const factors: CaseFactors = [];
+  for (let i = 0; i < count; i++) factors.push(0);
+  return factors;
+}
+
+/** Adds scale * factorsByCase[name] to each named case the member loads (others add nothing). */
+function addScaledCaseFactors(solution: MemberSolution, factors: CaseFactors, factorsByCase: Record<string, number>, scale: number): void {
+  for (const name in factorsByCase) {
+    const index = getCaseIndexOf(solution, name);
+    // scale 1 leaves the factor's bits unchanged (1 * x === x in IEEE 754)
+    if (index >= 0) factors[index] = (factors[index] as number) + scale * (factorsByCase[name] as number);
   }
-  for (let i = 0; i < out.length; i++) out[i] = 0;
-  return out;
 }
 
 /**
- * Case factors of a linear combination, indexed like solution.caseNames. Names the member does
- * not load contribute nothing; the internal self-weight case follows the member's selfWeightCase.
+ * Case factors of a linear combination, indexed like solution.caseNames:
+ * factorsByCase[case] + scaledScale * scaledFactorsByCase[case]. Names the member does not load
+ * contribute nothing; the internal self-weight case follows the member's selfWeightCase.
  */
-export function createCaseFactors(solution: MemberSolution, factorsByCase: Record<string, number>, out?: CaseFactors): CaseFactors {
-  const factors = resetCaseFactors(solution.caseNames.length, out);
-  for (const name in factorsByCase) {
-    const index = getCaseIndexOf(solution, name);
-    if (index >= 0) factors[index] = (factors[index] as number) + (factorsByCase[name] as number);
-  }
+export function createCaseFactors(
+  solution: MemberSolution,
+  factorsByCase: Record<string, number>,
+  scaledFactorsByCase?: Record<string, number>,
+  scaledScale = 1,
+): CaseFactors {
+  const factors = createZeroFactors(solution.caseNames.length);
+  addScaledCaseFactors(solution, factors, factorsByCase, 1);
+  if (scaledFactorsByCase !== undefined) addScaledCaseFactors(solution, factors, scaledFactorsByCase, scaledScale);
   if (solution.selfWeightCaseIndex >= 0) factors[solution.selfWeightCaseIndex] = factors[solution.selfWeightNamedCaseIndex] as number;
   return factors;
 }
@@ -69,13 +78,6 @@ function getElementState(solution: MemberSolution, factors: CaseFactors, span: n
   return out;
 }
 
-/** Span index holding x (mm from the left end); x beyond the ends is clamped. */
-export function findSpanAt(solution: MemberSolution, xMm: number): number {
-  const last = solution.spanCount - 1;
-  for (let e = 0; e < last; e++) if (xMm < (solution.nodeXMm[e + 1] as number)) return e;
-  return last;
-}
-
 function evaluateLocal(solution: MemberSolution, factors: CaseFactors, span: number, s: number, wantRotation: boolean): number {
   const state = getElementState(solution, factors, span, stateScratch);
   const ei = solution.eiNmm2[span] as number;
@@ -103,7 +105,7 @@ function evaluateLocal(solution: MemberSolution, factors: CaseFactors, span: num
 
 /** Deflection at x (mm from the left end) under the combination, mm, positive downward. Exact. */
 export function deflectionAt(solution: MemberSolution, factors: CaseFactors, xMm: number): number {
-  const span = findSpanAt(solution, xMm);
+  const span = findSpanAt(solution.nodeXMm, xMm);
   return evaluateLocal(solution, factors, span, xMm - (solution.nodeXMm[span] as number), false);
 }
 
@@ -112,7 +114,7 @@ export function deflectionAt(solution: MemberSolution, factors: CaseFactors, xMm
  * shear deformation; with it, the slope also carries the shear strain V/(kGA)).
  */
 export function rotationAt(solution: MemberSolution, factors: CaseFactors, xMm: number): number {
-  const span = findSpanAt(solution, xMm);
+  const span = findSpanAt(solution.nodeXMm, xMm);
   return evaluateLocal(solution, factors, span, xMm - (solution.nodeXMm[span] as number), true);
 }
 

@@ -1,4 +1,4 @@
-import { STANDARD_GRAVITY_M_PER_S2, type Load, type Member } from "../model";
+import { STANDARD_GRAVITY_M_PER_S2, type Load, type Member, type SpanSegment } from "../model";
 import { factorBandedLdl, HALF_BANDWIDTH, solveBandedLdl } from "./banded-ldl";
 import { EngineInputError } from "./engine-input-error";
 import {
@@ -63,10 +63,24 @@ function getCaseIndex(names: string[], name: string): number {
   return names.length - 1;
 }
 
-/** Index of the element holding x (the last one for x at the right end). */
-function findElement(nodeXMm: number[], spanCount: number, xMm: number): number {
-  for (let e = 0; e < spanCount - 1; e++) if (xMm < (nodeXMm[e + 1] as number)) return e;
-  return spanCount - 1;
+/**
+ * Index of the span holding x (mm from the left end), given the node positions (spanCount + 1
+ * entries, ascending): x at an interior node belongs to the span on its right, x beyond the
+ * ends is clamped to the end spans.
+ */
+export function findSpanAt(nodeXMm: readonly number[], xMm: number): number {
+  const last = nodeXMm.length - 2;
+  for (let e = 0; e < last; e++) if (xMm < (nodeXMm[e + 1] as number)) return e;
+  return last;
+}
+
+/**
+ * Self-weight of a span as a uniform load, N/mm: A (mm^2) * rho (kg/m^3) * 1e-9 (m^3/mm^3) * g
+ * (m/s^2). The span must carry areaMm2 and densityKgPerM3 (a validated member with a
+ * selfWeightCase does).
+ */
+export function getSelfWeightNPerMm(span: SpanSegment): number {
+  return span.areaMm2! * span.densityKgPerM3! * 1e-9 * STANDARD_GRAVITY_M_PER_S2;
 }
 
 function findNode(nodeXMm: number[], xMm: number, tolMm: number): number {
@@ -111,7 +125,7 @@ function addConcentratedLoad(context: LoadContext, xMm: number, value: number, i
     addAt(nodal, 2 * node + (isCouple ? 1 : 0), value);
     return;
   }
-  const e = findElement(context.nodeXMm, context.spanCount, xMm);
+  const e = findSpanAt(context.nodeXMm, xMm);
   const local = xMm - (context.nodeXMm[e] as number);
   if (isCouple) addCoupleTerm(context.terms[e] as ElementTerms, local, value, caseIndex);
   else addPointTerm(context.terms[e] as ElementTerms, local, value, caseIndex);
@@ -179,7 +193,6 @@ export function solveMember(member: Member): MemberSolution {
   return solveValidatedMember(member);
 }
 
-/** solveMember without the input validation, for callers that already validated the member. */
 // read once: a module binding read inside loops costs a call under some loaders
 const BAND = HALF_BANDWIDTH;
 const BAND_ROW = BAND + 1;
@@ -188,7 +201,10 @@ let constrainedScratch = new Uint8Array(16);
 let fixedEndScratch = new Float64Array(32);
 let rhsScratch = new Float64Array(16);
 let shearScratch = new Float64Array(8);
+// k11, k12, k22, k24 per element, computed once and reused by every load case
+let stiffnessByElementScratch = new Float64Array(32);
 
+/** solveMember without the input validation, for callers that already validated the member. */
 export function solveValidatedMember(member: Member): MemberSolution {
   const spanCount = member.spans.length;
   const dofCount = 2 * (spanCount + 1);
@@ -216,9 +232,7 @@ export function solveValidatedMember(member: Member): MemberSolution {
     selfWeightNamedCaseIndex = getCaseIndex(caseNames, member.selfWeightCase);
     selfWeightCaseIndex = getCaseIndex(caseNames, SELF_WEIGHT_CASE_KEY);
     for (let e = 0; e < spanCount; e++) {
-      const span = member.spans[e]!;
-      // mm^2 * kg/m^3 * 1e-9 m^3/mm^3 = kg/mm; times g (m/s^2) gives N/mm.
-      const wNPerMm = span.areaMm2! * span.densityKgPerM3! * 1e-9 * STANDARD_GRAVITY_M_PER_S2;
+      const wNPerMm = getSelfWeightNPerMm(member.spans[e]!);
       addDistributedTerms(terms[e] as ElementTerms, lengthMm[e] as number, 0, lengthMm[e] as number, wNPerMm, wNPerMm, selfWeightCaseIndex);
     }
   }
@@ -229,6 +243,8 @@ export function solveValidatedMember(member: Member): MemberSolution {
   if (fixedEndScratch.length < 2 * caseCount * spanCount) fixedEndScratch = new Float64Array(4 * caseCount * spanCount);
   if (rhsScratch.length < dofCount) rhsScratch = new Float64Array(dofCount * 2);
   if (shearScratch.length < spanCount) shearScratch = new Float64Array(spanCount * 2);
+  if (stiffnessByElementScratch.length < 4 * spanCount) stiffnessByElementScratch = new Float64Array(8 * spanCount);
+  const stiffnessByElement = stiffnessByElementScratch;
   const band = bandScratch;
   const constrained = constrainedScratch;
   // plain loops: a fill() call per member costs more than clearing a few entries
@@ -236,6 +252,10 @@ export function solveValidatedMember(member: Member): MemberSolution {
   for (let i = 0; i < dofCount; i++) constrained[i] = 0;
   for (let e = 0; e < spanCount; e++) {
     const k = getElementStiffness(lengthMm[e] as number, eiNmm2[e] as number, inverseShearStiffness[e] as number, stiffnessScratch);
+    stiffnessByElement[4 * e] = k.k11;
+    stiffnessByElement[4 * e + 1] = k.k12;
+    stiffnessByElement[4 * e + 2] = k.k22;
+    stiffnessByElement[4 * e + 3] = k.k24;
     const base = 2 * e * 4;
     // rows v_e, theta_e, v_e+1, theta_e+1 of the symmetric element matrix, upper band only
     addAt(band, base, k.k11);
@@ -303,13 +323,16 @@ export function solveValidatedMember(member: Member): MemberSolution {
     solveBandedLdl(band, dofCount, rhs);
     for (let i = 0; i < dofCount; i++) caseStates.push(rhs[i] as number);
     for (let e = 0; e < spanCount; e++) {
-      const k = getElementStiffness(lengthMm[e] as number, eiNmm2[e] as number, inverseShearStiffness[e] as number, stiffnessScratch);
+      const k11 = stiffnessByElement[4 * e] as number;
+      const k12 = stiffnessByElement[4 * e + 1] as number;
+      const k22 = stiffnessByElement[4 * e + 2] as number;
+      const k24 = stiffnessByElement[4 * e + 3] as number;
       const v0 = rhs[2 * e] as number;
       const t0 = rhs[2 * e + 1] as number;
       const v1 = rhs[2 * e + 2] as number;
       const t1 = rhs[2 * e + 3] as number;
-      const forceLeft = k.k11 * v0 + k.k12 * t0 - k.k11 * v1 + k.k12 * t1;
-      const momentLeft = k.k12 * v0 + k.k22 * t0 - k.k12 * v1 + k.k24 * t1;
+      const forceLeft = k11 * v0 + k12 * t0 - k11 * v1 + k12 * t1;
+      const momentLeft = k12 * v0 + k22 * t0 - k12 * v1 + k24 * t1;
       caseStates.push(momentLeft + (fixedEnd[2 * (c * spanCount + e) + 1] as number));
       shearScratch[e] = -forceLeft + (fixedEnd[2 * (c * spanCount + e)] as number);
     }

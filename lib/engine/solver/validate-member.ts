@@ -1,4 +1,4 @@
-import type { InputIssue, Load, Member, SupportKind } from "../model";
+import type { InputIssue, Load, Member, Support, SupportKind } from "../model";
 import { EngineInputError } from "./engine-input-error";
 
 const SUPPORT_KINDS: ReadonlySet<string> = new Set<SupportKind>(["pinned", "roller", "fixed", "free", "spring"]);
@@ -6,12 +6,29 @@ const SUPPORT_KINDS: ReadonlySet<string> = new Set<SupportKind>(["pinned", "roll
 /** Positions closer than this fraction of the member length to a node count as on the node. */
 export const POSITION_TOLERANCE_RATIO = 1e-9;
 
-function isPositiveFinite(value: unknown): value is number {
+/** True for a number that is finite and > 0 (not NaN, not +-Infinity). */
+export function isPositiveFinite(value: unknown): value is number {
   return typeof value === "number" && Number.isFinite(value) && value > 0;
 }
 
-function isFiniteNumber(value: unknown): value is number {
+/** True for a number that is finite (not NaN, not +-Infinity). */
+export function isFiniteNumber(value: unknown): value is number {
   return typeof value === "number" && Number.isFinite(value);
+}
+
+/**
+ * The member is continuous (no internal hinges): it is stable exactly when the supports stop
+ * both rigid-body movements, vertical translation and rotation, i.e. with a fixed support or at
+ * least two vertical restraints (pinned, roller or spring). Assumes known kinds and, for springs,
+ * a valid stiffness.
+ */
+export function isStableSupportSet(supports: readonly Support[]): boolean {
+  let vertical = 0;
+  for (const support of supports) {
+    if (support.kind === "fixed") return true;
+    if (support.kind !== "free") vertical += 1;
+  }
+  return vertical >= 2;
 }
 
 function getTotalLengthMm(member: Member): number {
@@ -45,30 +62,21 @@ function collectSupportIssues(member: Member, issues: InputIssue[]): void {
     issues.push({ path: "supports", message: `a member with ${member.spans.length} span(s) needs ${member.spans.length + 1} supports (one per node), got ${member.supports.length}` });
     return;
   }
-  let verticalRestraints = 0;
-  let fixedSupports = 0;
   for (let index = 0; index < member.supports.length; index++) {
     const support = member.supports[index]!;
     if (!SUPPORT_KINDS.has(support.kind)) {
       issues.push({ path: `supports[${index}].kind`, message: `unknown support kind "${String(support.kind)}" (pinned, roller, fixed, free or spring)` });
       continue;
     }
-    if (support.kind === "spring") {
-      if (!isPositiveFinite(support.springNPerMm)) issues.push({ path: `supports[${index}].springNPerMm`, message: "a spring support needs a positive finite vertical stiffness (N/mm)" });
-      else verticalRestraints += 1;
-    } else if (support.kind === "fixed") {
-      fixedSupports += 1;
-      verticalRestraints += 1;
-    } else if (support.kind !== "free") {
-      verticalRestraints += 1;
+    if (support.kind === "spring" && !isPositiveFinite(support.springNPerMm)) {
+      issues.push({ path: `supports[${index}].springNPerMm`, message: "a spring support needs a positive finite vertical stiffness (N/mm)" });
     }
   }
-  // The member is continuous (no internal hinges): it is stable exactly when the supports stop
-  // both rigid-body movements, vertical translation and rotation.
-  if (issues.length === 0 && fixedSupports === 0 && verticalRestraints < 2) {
+  // with no issue so far every kind is known and every spring valid, as isStableSupportSet assumes
+  if (issues.length === 0 && !isStableSupportSet(member.supports)) {
     issues.push({
       path: "supports",
-      message: verticalRestraints === 0
+      message: member.supports.every((support) => support.kind === "free")
         ? "the member is unsupported (every support is free): it is a mechanism and cannot be analysed"
         : "the member is a mechanism: a single pinned, roller or spring support cannot stop it rotating; add a fixed support or a second support",
     });

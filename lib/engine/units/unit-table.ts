@@ -115,7 +115,8 @@ const STRESS_SI_UNITS: UnitDefinition[] = [
   { symbol: "Pa", aliases: ["N/m2"], toInternal: 1e-6 },
 ];
 
-const PSI = N_PER_LBF / (MM_PER_IN * MM_PER_IN);
+/** One psi (lbf/in^2) in MPa (N/mm^2), exact from the pound-force and the inch. */
+export const PSI = N_PER_LBF / (MM_PER_IN * MM_PER_IN);
 
 export const UNIT_TABLE: Record<QuantityKind, readonly UnitDefinition[]> = {
   length: LENGTH_UNITS,

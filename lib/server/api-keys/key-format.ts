@@ -1,5 +1,7 @@
-import { createHash, randomBytes } from "node:crypto";
+import { randomBytes } from "node:crypto";
 import { crc32 } from "node:zlib";
+
+import { hashToken } from "@/lib/server/ids";
 
 /**
  * API key format: `sgl_` + 32 base62 characters of randomness (32 * log2(62) = 190 bits) + a
@@ -72,7 +74,7 @@ export function isWellFormedApiKey(text: string): boolean {
 
 /** SHA-256 (hex) of the whole key: the only form the database holds. */
 export function hashApiKey(key: string): string {
-  return createHash("sha256").update(key, "utf8").digest("hex");
+  return hashToken(key);
 }
 
 export function displayPrefixOf(key: string): string {

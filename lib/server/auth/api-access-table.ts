@@ -3,8 +3,8 @@ import type { ApiKeyScope } from "@/db/schema";
 /**
  * Every public API route (app/api/v1) and the API-key scope it needs; "public" needs no key.
  * tests/integration/api/v1/api-access-matrix.test.ts fails when a route file exports a method that
- * is missing here, and checks every listed route's 401/403 answers against this table. Routes
- * listed before their file exists are skipped by that test until the file appears.
+ * is missing here, fails when an entry here has no route file exporting that method, and checks
+ * every listed route's 401/403 answers against this table.
  */
 export type ApiAccess = ApiKeyScope | "public";
 

@@ -79,6 +79,14 @@ export async function runAction<S extends z.ZodType, T = undefined>(
   }
 }
 
+/**
+ * The active organization inside a runAction body. runAction runs the body only after the access
+ * table has found a session with an active organization, so both are there.
+ */
+export function getActionOrganizationId(context: { active: { organizationId: string } | null } | null): string {
+  return context!.active!.organizationId;
+}
+
 // Programmatic callers may send a plain object; the schema still decides what is valid.
 function isPlainObject(value: unknown): value is Record<string, unknown> {
   return typeof value === "object" && value !== null && Object.getPrototypeOf(value) === Object.prototype;

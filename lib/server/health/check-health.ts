@@ -1,5 +1,6 @@
 import { getSql } from "@/db/client";
 import { getRedis, waitForRedis } from "@/lib/server/redis";
+import { withTimeout } from "@/lib/server/with-timeout";
 
 export type ComponentStatus = "up" | "down";
 
@@ -8,17 +9,9 @@ export interface HealthReport {
   components: { web: ComponentStatus; postgres: ComponentStatus; redis: ComponentStatus };
 }
 
-function withTimeout<T>(promise: Promise<T>, ms: number): Promise<T> {
-  let timer: ReturnType<typeof setTimeout> | undefined;
-  const timeout = new Promise<T>((_, reject) => {
-    timer = setTimeout(() => reject(new Error("timeout")), ms);
-  });
-  return Promise.race([promise, timeout]).finally(() => clearTimeout(timer));
-}
-
 async function probe(check: () => Promise<unknown>): Promise<ComponentStatus> {
   try {
-    await withTimeout(check(), 2_000);
+    await withTimeout(check(), 2_000, "timeout");
     return "up";
   } catch {
     return "down";

@@ -1,8 +1,13 @@
 import { randomUUID } from "node:crypto";
 
-import { DomainError, domainErrorCodes, type FieldError } from "@/lib/server/errors";
+import { DomainError, domainErrorCodes, type DomainErrorCode, type FieldError } from "@/lib/server/errors";
 
 export const PROBLEM_BASE = "https://sagline.dev/problems/";
+
+/** The problem `type` URI of a code, as toProblem writes it (and the OpenAPI document lists it). */
+export function problemTypeUri(code: DomainErrorCode | "internal"): string {
+  return PROBLEM_BASE + code.replaceAll("_", "-");
+}
 
 export interface ProblemBody {
   type: string;
@@ -30,7 +35,7 @@ export function toProblem(error: unknown, instance?: string): Response {
     if (error.retryAfterSeconds !== undefined) headers["retry-after"] = String(error.retryAfterSeconds);
     return problemResponse(
       {
-        type: PROBLEM_BASE + error.code.replaceAll("_", "-"),
+        type: problemTypeUri(error.code),
         title,
         status,
         detail: error.message,
@@ -44,7 +49,7 @@ export function toProblem(error: unknown, instance?: string): Response {
   const requestId = randomUUID();
   console.error(`[sagline] unexpected error, request ${requestId}`, error);
   return problemResponse({
-    type: PROBLEM_BASE + "internal",
+    type: problemTypeUri("internal"),
     title: "Internal error",
     status: 500,
     detail: "Something went wrong on our side. Quote the request id if you contact support.",
@@ -54,11 +59,5 @@ export function toProblem(error: unknown, instance?: string): Response {
 }
 
 export function badOriginProblem(instance: string): Response {
-  return problemResponse({
-    type: PROBLEM_BASE + "bad-origin",
-    title: "Cross-site request refused",
-    status: 403,
-    detail: "Cookie-authenticated writes must come from Sagline's own pages (Origin header).",
-    instance,
-  });
+  return toProblem(new DomainError("bad_origin", "Cookie-authenticated writes must come from Sagline's own pages (Origin header)."), instance);
 }

@@ -1,6 +1,7 @@
 import type { Mail } from "./send-mail";
 
-function escapeHtml(value: string): string {
+/** Escapes text for HTML element content and quoted attribute values. */
+export function escapeHtml(value: string): string {
   return value.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 }
 

@@ -116,3 +116,16 @@ export function buildOpenApiDocument(options: { serverUrl: string; limits: ApiLi
 }
 
 export type OpenApiDocument = ReturnType<typeof buildOpenApiDocument>;
+
+let builtDocument: { key: string; document: OpenApiDocument } | undefined;
+
+/**
+ * buildOpenApiDocument, built once per process: its inputs (APP_URL and the rate-limit settings)
+ * are read once per process, so every request would otherwise build the same document. A call
+ * with other options builds afresh. Callers must not change the returned document.
+ */
+export function getOpenApiDocument(options: { serverUrl: string; limits: ApiLimits }): OpenApiDocument {
+  const key = JSON.stringify(options);
+  if (builtDocument?.key !== key) builtDocument = { key, document: buildOpenApiDocument(options) };
+  return builtDocument.document;
+}

@@ -1,3 +1,5 @@
+import { RESULT_PAGE_DEFAULT, RESULT_PAGE_MAX, SCHEDULE_PAGE_DEFAULT, SCHEDULE_PAGE_MAX } from "@/lib/server/schedules/page-limits";
+
 import { jsonResponse, linkHeader, pageParameters, pathParameter, problemResponse, queryParameter, type Operation } from "./operations";
 
 const scheduleId = pathParameter("scheduleId", "The schedule's id (`sch_...`).");
@@ -63,7 +65,7 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
       tags: ["Schedules"],
       summary: "List schedules",
       description: "Newest first.",
-      parameters: pageParameters(100, 20),
+      parameters: pageParameters(SCHEDULE_PAGE_MAX, SCHEDULE_PAGE_DEFAULT),
       responses: { "200": jsonResponse("One page of schedules.", "ScheduleList", linkHeader) },
     },
     "GET /api/v1/schedules/[scheduleId]": {
@@ -83,7 +85,7 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
         queryParameter("format", "Answer format (or send Accept: text/csv).", { enum: ["json", "csv"], default: "json" }),
         queryParameter("status", "Only members with this outcome.", { enum: ["pass", "fail", "error"] }),
         queryParameter("category", "Only members of this category.", { type: "string" }),
-        ...pageParameters(1000, 100),
+        ...pageParameters(RESULT_PAGE_MAX, RESULT_PAGE_DEFAULT),
       ],
       responses: {
         "200": {

@@ -1,5 +1,5 @@
 import { domainErrorCodes, type DomainErrorCode } from "@/lib/server/errors";
-import { PROBLEM_BASE } from "@/lib/server/http/problem";
+import { problemTypeUri } from "@/lib/server/http/problem";
 
 export interface ProblemType {
   code: DomainErrorCode | "internal";
@@ -28,11 +28,6 @@ const descriptions: Partial<Record<DomainErrorCode | "internal", string>> = {
   insufficient_scope: "The key is valid but lacks the scope this route needs.",
   internal: "Our fault. The body carries a requestId to quote; no internals are ever included.",
 };
-
-/** The problem `type` URI of a code, exactly as toProblem writes it. */
-export function problemTypeUri(code: DomainErrorCode | "internal"): string {
-  return PROBLEM_BASE + code.replaceAll("_", "-");
-}
 
 /** Every problem type the API can answer with, derived from the one code table (plus `internal`). */
 export function listProblemTypes(): ProblemType[] {

@@ -9,9 +9,10 @@ import { completeScheduleIfDone, failSchedule } from "./finish-schedule";
 
 export const MAX_CHUNK_ATTEMPTS = 10;
 
-type Outcome = { index: number; mark: string; category: string; result: MemberResult | null; error: string | null };
+export type Outcome = { index: number; mark: string; category: string; result: MemberResult | null; error: string | null };
 
-function checkMembers(header: Record<string, unknown>, firstMember: number, inputs: unknown[]): Outcome[] {
+/** Parses one chunk's stored members with the schedule's header and checks each one; an engine input error becomes that member's error. */
+export function checkMembers(header: Record<string, unknown>, firstMember: number, inputs: unknown[]): Outcome[] {
   const parsed = parseSchedule({ ...header, members: inputs });
   // The whole schedule passed this at submission; failing now means stored data changed.
   if (!parsed.ok) throw new Error(`stored members no longer parse: ${parsed.issues[0]?.path}: ${parsed.issues[0]?.message}`);
@@ -37,7 +38,10 @@ export async function checkChunk(scheduleId: string, chunkIndex: number): Promis
     update schedule_chunks c set attempts = attempts + 1
     from schedules s
     where c.schedule_id = ${scheduleId} and c.chunk_index = ${chunkIndex} and s.id = c.schedule_id
-    returning c.done_at, c.first_member, c.member_count, c.attempts, c.members, s.status, s.header`;
+    returning c.done_at, c.first_member, c.member_count, c.attempts, s.status,
+      -- A chunk that will be skipped needs neither its members (about 0.5 MB) nor the header.
+      case when c.done_at is null and s.status not in ('completed', 'failed') then c.members end as members,
+      case when c.done_at is null and s.status not in ('completed', 'failed') then s.header end as header`;
   if (!chunk || chunk.done_at || chunk.status === "completed" || chunk.status === "failed") return "skipped";
   if (chunk.attempts > MAX_CHUNK_ATTEMPTS) {
     await failSchedule(scheduleId, `chunk ${chunkIndex} could not be checked after ${MAX_CHUNK_ATTEMPTS} attempts`);
@@ -78,7 +82,7 @@ export function checkKeyOf(combinationId: string, spanIndex: number): string {
   return `${combinationId}@${spanIndex}`;
 }
 
-function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
+export function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
   for (const o of outcomes) {
     const r = o.result;
     const governing = r?.governing ?? null;
@@ -99,7 +103,7 @@ function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
   }
 }
 
-function* checkRows(scheduleId: string, outcomes: Outcome[]) {
+export function* checkRows(scheduleId: string, outcomes: Outcome[]) {
   for (const o of outcomes) {
     for (const c of o.result?.checks ?? []) {
       yield [scheduleId, o.index, checkKeyOf(c.combinationId, c.spanIndex), c.combinationId, c.spanIndex, c.spanKind, c.deflectionMm, c.atMm, c.allowedMm, c.utilization, c.factorOfSafety, c.pass] as const;

@@ -1,24 +1,17 @@
 import type { TransactionSql } from "postgres";
 
 import { getSql } from "@/db/client";
+import { getChunkTotals } from "@/db/queries/schedules";
 import { createId } from "@/lib/server/ids";
-
-/** The schedule's totals summed from its chunks, as the schedules row keeps them once it ends. */
-const CHUNK_TOTALS = `
-  select count(done_at)::int as chunks_done, count(*) filter (where done_at is null)::int as open_chunks,
-    coalesce(sum(member_count) filter (where done_at is not null), 0)::int as checked_count,
-    coalesce(sum(pass_count), 0)::int as pass_count, coalesce(sum(fail_count), 0)::int as fail_count,
-    coalesce(sum(error_count), 0)::int as error_count
-  from schedule_chunks where schedule_id = $1`;
 
 /** Writes the chunk totals onto the schedule's row (inside the transaction that ends it). */
 async function writeFinalTotals(tx: TransactionSql, scheduleId: string) {
-  const [totals] = await tx.unsafe(CHUNK_TOTALS, [scheduleId]);
+  const totals = await getChunkTotals(tx, scheduleId);
   await tx`
-    update schedules set chunks_done = ${totals!.chunks_done}, checked_count = ${totals!.checked_count}, pass_count = ${totals!.pass_count},
-      fail_count = ${totals!.fail_count}, error_count = ${totals!.error_count}
+    update schedules set chunks_done = ${totals.chunks_done}, checked_count = ${totals.checked_count}, pass_count = ${totals.pass_count},
+      fail_count = ${totals.fail_count}, error_count = ${totals.error_count}
     where id = ${scheduleId}`;
-  return totals!;
+  return totals;
 }
 
 /**
@@ -29,8 +22,9 @@ async function writeFinalTotals(tx: TransactionSql, scheduleId: string) {
  */
 export async function completeScheduleIfDone(scheduleId: string): Promise<boolean> {
   const sql = getSql();
-  const [open] = await sql.unsafe(CHUNK_TOTALS, [scheduleId]);
-  if (!open || open.open_chunks > 0 || open.chunks_done === 0) return false;
+  // Cheap first look, without a lock: most chunks are not the last one.
+  const [open] = await sql`select exists (select 1 from schedule_chunks where schedule_id = ${scheduleId} and done_at is null) as any_open`;
+  if (open!.any_open) return false;
   return sql.begin(async (tx) => {
     const [s] = await tx`select organization_id, status, member_count from schedules where id = ${scheduleId} for no key update`;
     if (!s || s.status === "completed" || s.status === "failed") return false;

@@ -4,7 +4,7 @@ import { join } from "node:path";
 import Ajv2020 from "ajv/dist/2020.js";
 import addFormats from "ajv-formats";
 
-import { CSV_DELIMITERS, mapIssueToCsvRow, parseScheduleCsv, type CsvDelimiter } from "@/lib/schedule-csv";
+import { CSV_DELIMITER_CHARS, CSV_DELIMITERS, mapIssueToCsvRow, parseScheduleCsv, type CsvDelimiter } from "@/lib/schedule-csv";
 import type { InputIssue } from "@/lib/engine/model";
 import { DomainError, type FieldError } from "@/lib/server/errors";
 
@@ -59,7 +59,8 @@ export interface CsvParameters {
   units?: { system?: "SI" | "US" };
 }
 
-const delimiterNames: Record<string, CsvDelimiter> = { ",": ",", comma: ",", ";": ";", semicolon: ";", "\t": "\t", tab: "\t" };
+// Each delimiter by its name and as itself.
+const delimiterNames: Record<string, CsvDelimiter> = { ...Object.fromEntries(CSV_DELIMITERS.map((d) => [d, d])), ...CSV_DELIMITER_CHARS };
 
 /** Reads CSV options from query parameters or form fields, naming the parameter that is wrong. */
 export function readCsvParameters(get: (name: string) => string | null, fallbackName: string): CsvParameters {

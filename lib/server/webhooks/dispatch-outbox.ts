@@ -81,7 +81,7 @@ async function dispatchEvent(tx: TransactionSql, event: PendingEvent): Promise<{
   return deliveries;
 }
 
-/** Drains the outbox (several batches), for the periodic task and the dispatch-outbox job. */
+/** Drains the outbox (several batches), for the periodic task. */
 export async function dispatchOutboxUntilEmpty(maxBatches = 20): Promise<number> {
   let total = 0;
   for (let i = 0; i < maxBatches; i += 1) {

@@ -27,13 +27,16 @@ const jobOptions = {
 export async function enqueueDeliveries(jobs: DeliveryJob[]): Promise<void> {
   if (jobs.length === 0) return;
   const queue = getQueue(queueNames.deliverWebhook);
-  for (const job of jobs) {
-    const existing = await queue.getJob(deliveryJobId(job.deliveryId, job.attemptNumber));
-    if (!existing) continue;
-    const state = await existing.getState();
-    if (state === "delayed" && !job.delayMs) await existing.promote();
-    else if (state === "completed" || state === "failed") await existing.remove();
-  }
+  // Callers pass distinct delivery ids, so the jobs' lookups are independent of each other.
+  await Promise.all(
+    jobs.map(async (job) => {
+      const existing = await queue.getJob(deliveryJobId(job.deliveryId, job.attemptNumber));
+      if (!existing) return;
+      const state = await existing.getState();
+      if (state === "delayed" && !job.delayMs) await existing.promote();
+      else if (state === "completed" || state === "failed") await existing.remove();
+    }),
+  );
   await queue.addBulk(
     jobs.map((job) => ({
       name: "deliver-webhook",

@@ -5,16 +5,13 @@ import { memberships, organizations, roles, users, type EndpointDisabledReason }
 import { getEnv } from "@/lib/env";
 import { hasPermission } from "@/lib/server/auth/permissions";
 import { sendMail, type Mail } from "@/lib/server/mail/send-mail";
+import { escapeHtml } from "@/lib/server/mail/templates";
 
 const reasonText: Record<EndpointDisabledReason, string> = {
   manual: "It was disabled by hand.",
   gone: "The receiver answered 410 Gone, which says the endpoint no longer exists.",
   failing: "Every attempt of the published retry schedule failed.",
 };
-
-function escapeHtml(value: string): string {
-  return value.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
-}
 
 export function buildEndpointDisabledMail(input: {
   to: string;

@@ -1,14 +1,11 @@
 // /api/v1/webhook-endpoints with an API key holding webhooks:manage: create (secret once, SSRF
 // refused with a pointer), read, change, test, rotate, delete; another organization's ids are 404.
-import { readFileSync } from "node:fs";
-
-import Ajv2020 from "ajv/dist/2020.js";
-import addFormats from "ajv-formats";
 import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { APP_URL } from "@/tests/helpers/app";
 import { createTestKey } from "@/tests/helpers/api-keys";
+import { compileApiSchema } from "@/tests/helpers/schemas";
 
 import { configurePartner, createTestOrganization, PARTNER_URL, readPartner, verifyWith, waitFor } from "./support";
 
@@ -31,9 +28,7 @@ const api = (k = key) => ({
   delete: (path: string) => request(APP_URL).delete(path).set("authorization", `Bearer ${k}`),
 });
 
-const ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true });
-addFormats(ajv);
-const validateEndpoint = ajv.compile(JSON.parse(readFileSync("api-schemas/v1/webhook-endpoint.schema.json", "utf8")));
+const validateEndpoint = compileApiSchema("webhook-endpoint", { strict: true, allowUnionTypes: true });
 
 describe("/api/v1/webhook-endpoints", () => {
   it("creates an endpoint, returning the secret once, and serves it without the secret after", async () => {

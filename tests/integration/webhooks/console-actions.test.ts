@@ -128,6 +128,9 @@ describe("registering an endpoint from the console", () => {
       expect(theirs.result, key).toEqual(none.result);
     }
     const page = await outsider.get(`/integrations/webhooks/deliveries?endpoint=${endpoint!.id}`);
+    // The delivery log itself answered (not a redirect or an error page), so the absence below means something.
+    expect(page.status).toBe(200);
+    expect(page.text).toContain("Webhook deliveries");
     expect(page.text).not.toContain(endpoint!.url);
   });
 });

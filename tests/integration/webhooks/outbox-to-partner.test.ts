@@ -1,10 +1,6 @@
 // The whole path on the running worker: an outbox event (inserted directly, as the schedule
 // pipeline writes it) is dispatched, signed, delivered to the fake partner (which verifies with the
 // independent `standardwebhooks` package), retried while the partner is down, and processed once.
-import { readFileSync } from "node:fs";
-
-import Ajv2020 from "ajv/dist/2020.js";
-import addFormats from "ajv-formats";
 import { and, eq } from "drizzle-orm";
 import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -18,6 +14,7 @@ import { resendDelivery, resendFailedSince } from "@/lib/server/webhooks/resend"
 import { createTestKey } from "@/tests/helpers/api-keys";
 import { APP_URL } from "@/tests/helpers/app";
 import { waitForMail } from "@/tests/helpers/mail";
+import { compileApiSchema } from "@/tests/helpers/schemas";
 import { createBeam, createScheduleDoc, waitForSchedule } from "@/tests/helpers/schedules";
 import { closeQueues } from "@/workers/queues";
 
@@ -116,9 +113,7 @@ describe("dispatch", () => {
       return s.processed.includes(eventId) ? s : null;
     });
     const body = JSON.parse(state.deliveries.find((d) => d.webhookId === eventId)!.body);
-    const ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true });
-    addFormats(ajv);
-    const validate = ajv.compile(JSON.parse(readFileSync("api-schemas/v1/events/schedule.completed.schema.json", "utf8")));
+    const validate = compileApiSchema("events/schedule.completed", { strict: true, allowUnionTypes: true });
     expect(validate(body), JSON.stringify(validate.errors)).toBe(true);
     expect(body.data.rows).toEqual([
       { mark: "R-01", governingCheck: "live", utilization: 0.64, factorOfSafety: 1.56, pass: true },

@@ -6,20 +6,14 @@ import { execFileSync } from "node:child_process";
 import { Redis } from "ioredis";
 import { afterAll, describe, expect, it } from "vitest";
 
-import { demoOrganizations } from "@/db/seed-data";
-import { countResults, createDrill, waitForProgress } from "@/tests/helpers/drill";
-import { createBeam, createScheduleDoc } from "@/tests/helpers/schedules";
+import { countResults, createDrill, submitDrillSchedule, waitForProgress } from "@/tests/helpers/drill";
 
 const drill = createDrill("faults");
 const MEMBERS = 6_000;
 afterAll(() => drill.killAll());
 
-async function submit(label: string) {
-  process.env.REDIS_PREFIX = drill.prefix;
-  process.env.CHECK_CHUNK_SIZE = "100";
-  const { submitSchedule } = await import("@/lib/server/schedules/submit-schedule");
-  const members = Array.from({ length: MEMBERS }, (_, i) => createBeam(`F-${i}`, 3 + (i % 7), 5 + (i % 5)));
-  return (await submitSchedule({ organizationId: demoOrganizations.engineering.id, source: "api-json", doc: createScheduleDoc(members, `${label} ${drill.prefix}`) })).id;
+function submit(label: string) {
+  return submitDrillSchedule(drill, { markPrefix: "F", memberCount: MEMBERS, label });
 }
 
 async function expectComplete(id: string) {
@@ -52,9 +46,11 @@ describe("service faults during a schedule", () => {
   it("PostgreSQL restarted: jobs retry, nothing lost or doubled", { timeout: 240_000 }, async () => {
     const id = await submit("PostgreSQL restart drill");
     await waitForProgress(id, (p) => p.chunks_done >= 3, 60_000);
-    const dir = `${process.env.LOCAL_DIR ?? ".local"}/postgres/data`;
-    const restart = ["-u", "postgres", "--", "/usr/lib/postgresql/15/bin/pg_ctl", "-D", dir, "-m", "fast", "-w", "restart"];
-    execFileSync(process.getuid?.() === 0 ? "runuser" : restart[3]!, process.getuid?.() === 0 ? restart : restart.slice(4), { stdio: "ignore" });
+    // The same script npm test started the cluster with: same data folder, port and server options
+    // (lib.sh derives them from the SAGLINE_* environment this process inherited).
+    const database = new URL(process.env.DATABASE_URL!).pathname.slice(1);
+    execFileSync("bash", ["docker-local/postgres.sh", "stop"], { stdio: "ignore" });
+    execFileSync("bash", ["docker-local/postgres.sh", "start", database], { stdio: "ignore" });
     await expectComplete(id);
   });
 });

@@ -2,9 +2,7 @@
 // schedule. The schedule completes with exactly one result per member and check.
 import { afterAll, describe, expect, it } from "vitest";
 
-import { demoOrganizations } from "@/db/seed-data";
-import { countResults, createDrill, getScheduleProgress, waitForProgress } from "@/tests/helpers/drill";
-import { createBeam, createScheduleDoc } from "@/tests/helpers/schedules";
+import { countResults, createDrill, getScheduleProgress, submitDrillSchedule, waitForProgress } from "@/tests/helpers/drill";
 
 const drill = createDrill("kill");
 const MEMBERS = 12_000;
@@ -15,11 +13,7 @@ afterAll(() => drill.killAll());
 describe("workers killed with SIGKILL", () => {
   it("lose and double nothing", { timeout: 300_000 }, async () => {
     // This test's jobs live under their own queue prefix, so only the workers it starts (and kills) see them.
-    process.env.REDIS_PREFIX = drill.prefix;
-    process.env.CHECK_CHUNK_SIZE = "100";
-    const { submitSchedule } = await import("@/lib/server/schedules/submit-schedule");
-    const members = Array.from({ length: MEMBERS }, (_, i) => createBeam(`K-${i}`, 3 + (i % 7), 5 + (i % 5)));
-    const { id } = await submitSchedule({ organizationId: demoOrganizations.engineering.id, source: "api-json", doc: createScheduleDoc(members, `Kill drill ${drill.prefix}`) });
+    const id = await submitDrillSchedule(drill, { markPrefix: "K", memberCount: MEMBERS, label: "Kill drill" });
 
     let kills = 0;
     let victim = drill.startWorker();

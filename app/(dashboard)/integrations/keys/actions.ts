@@ -7,15 +7,10 @@ import { createApiKey as create } from "@/lib/server/api-keys/create-api-key";
 import { API_KEY_EXPIRES_DAYS_MAX, API_KEY_NAME_MAX_LENGTH } from "@/lib/server/api-keys/limits";
 import { revokeApiKey as revoke } from "@/lib/server/api-keys/revoke-api-key";
 import { apiKeyScopes } from "@/lib/server/api-keys/scopes";
-import { runAction, type ActionResult } from "@/lib/server/auth/guards";
+import { getActionOrganizationId, runAction, type ActionResult } from "@/lib/server/auth/guards";
 import { idSchema } from "@/lib/server/validation";
 
 import { scopeFieldName } from "./scope-fields";
-
-// runAction has checked the session and integrations:manage before any body runs.
-function organizationOf(context: { active: { organizationId: string } | null } | null): string {
-  return context!.active!.organizationId;
-}
 
 const scopeFields = Object.fromEntries(apiKeyScopes.map((s) => [scopeFieldName(s), z.literal("on").optional()]));
 
@@ -50,7 +45,7 @@ export type CreatedKey = { secret: string; name: string; prefix: string };
 
 export async function createApiKey(_prev: ActionResult<CreatedKey> | null, formData: FormData): Promise<ActionResult<CreatedKey>> {
   return runAction("keys/createApiKey", createSchema, formData, async ({ name, scopes, expiresInDays }, context) => {
-    const { apiKey, secret } = await create({ organizationId: organizationOf(context), name, scopes, expiresInDays, createdBy: { userId: context!.user.id } });
+    const { apiKey, secret } = await create({ organizationId: getActionOrganizationId(context), name, scopes, expiresInDays, createdBy: { userId: context!.user.id } });
     revalidatePath("/integrations/keys");
     return { ok: true, message: `Key "${apiKey.name}" created.`, data: { secret, name: apiKey.name, prefix: apiKey.prefix } };
   });
@@ -60,7 +55,7 @@ const revokeSchema = z.object({ keyId: idSchema("key") });
 
 export async function revokeApiKey(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
   return runAction("keys/revokeApiKey", revokeSchema, formData, async ({ keyId }, context) => {
-    const key = await revoke({ organizationId: organizationOf(context), keyId });
+    const key = await revoke({ organizationId: getActionOrganizationId(context), keyId });
     revalidatePath("/integrations/keys");
     return { ok: true, message: `Key "${key.name}" revoked. Requests with it are refused from now on.` };
   });

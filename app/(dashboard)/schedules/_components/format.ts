@@ -35,14 +35,14 @@ export function formatCheckKey(key: string | null): string {
   return Number.isInteger(span) ? `${key.slice(0, at)}, span ${span + 1}` : key;
 }
 
-export function formatDateTime(date: Date | null): string {
-  if (!date) return "—";
-  return `${date.toISOString().slice(0, 16).replace("T", " ")} UTC`;
-}
-
 export function formatPercent(fraction: number): string {
   if (!Number.isFinite(fraction)) return "0%";
   return `${Math.floor(Math.min(1, Math.max(0, fraction)) * 100)}%`;
+}
+
+/** Completed or failed: the workers are done with the schedule either way. */
+export function isScheduleFinished(status: string): boolean {
+  return status === "completed" || status === "failed";
 }
 
 export const scheduleStatusLabels: Record<string, string> = {

@@ -3,7 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useEffect, useState } from "react";
 
-import { scheduleStatusLabels } from "./format";
+import { isScheduleFinished, scheduleStatusLabels } from "./format";
 import { ProgressBar } from "./progress-bar";
 
 export type LiveProgressProps = {
@@ -16,7 +16,6 @@ export type LiveProgressProps = {
 type Progress = { status: string; progress: { members: number; checked: number } };
 
 const POLL_MS = 800;
-const finished = (status: string) => status === "completed" || status === "failed";
 
 /** Polls the schedule's progress while the workers check it, then moves on. */
 export function LiveProgress({ scheduleId, initial, finishedHref }: LiveProgressProps) {
@@ -35,7 +34,7 @@ export function LiveProgress({ scheduleId, initial, finishedHref }: LiveProgress
         if (stopped) return;
         setProblem(null);
         setState({ status: body.status, checked: body.progress.checked, members: body.progress.members });
-        if (finished(body.status)) {
+        if (isScheduleFinished(body.status)) {
           if (finishedHref) router.push(finishedHref);
           else router.refresh();
           return;
@@ -45,7 +44,7 @@ export function LiveProgress({ scheduleId, initial, finishedHref }: LiveProgress
       }
       if (!stopped) timer = setTimeout(poll, POLL_MS);
     };
-    timer = setTimeout(poll, finished(initial.status) ? 0 : POLL_MS);
+    timer = setTimeout(poll, isScheduleFinished(initial.status) ? 0 : POLL_MS);
     return () => {
       stopped = true;
       if (timer) clearTimeout(timer);

@@ -2,9 +2,7 @@ import type { MemberCheckRow } from "@/lib/server/schedules/get-member-report";
 import { formatMm, formatNumber, formatRatio } from "./format";
 import { OutcomeLabel } from "./outcome-label";
 
-export type MemberCheck = MemberCheckRow;
-
-export type MemberChecksTableProps = { checks: MemberCheck[]; governingKey: string | null };
+export type MemberChecksTableProps = { checks: MemberCheckRow[]; governingKey: string | null };
 
 export function MemberChecksTable({ checks, governingKey }: MemberChecksTableProps) {
   if (checks.length === 0) return <p className="text-ink-soft">No checks were recorded for this member.</p>;

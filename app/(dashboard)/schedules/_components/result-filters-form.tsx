@@ -2,10 +2,12 @@ import type { ResultStatus } from "@/db/queries/schedules";
 import { MEMBER_CATEGORIES } from "@/lib/engine/intake";
 
 import { categoryLabels } from "./format";
+import { RESULT_STATUSES } from "./result-filters";
 
 export type ResultFiltersFormProps = { action: string; status?: ResultStatus; category?: string };
 
 const selectClass = "rounded border border-rule bg-sheet px-2 py-1.5 text-sm";
+const statusLabels: Record<ResultStatus, string> = { pass: "Pass", fail: "Fail", error: "Error" };
 
 /** A plain GET form: filters live in the address, so a filtered table can be bookmarked or shared. */
 export function ResultFiltersForm({ action, status, category }: ResultFiltersFormProps) {
@@ -15,9 +17,11 @@ export function ResultFiltersForm({ action, status, category }: ResultFiltersFor
         <span className="mb-1 block font-medium uppercase tracking-wide text-ink-soft">Outcome</span>
         <select name="status" defaultValue={status ?? ""} className={selectClass}>
           <option value="">All</option>
-          <option value="pass">Pass</option>
-          <option value="fail">Fail</option>
-          <option value="error">Error</option>
+          {RESULT_STATUSES.map((s) => (
+            <option key={s} value={s}>
+              {statusLabels[s]}
+            </option>
+          ))}
         </select>
       </label>
       <label className="text-xs">

@@ -2,7 +2,8 @@ import type { ReactNode } from "react";
 
 import type { ScheduleRow } from "@/db/queries/schedules";
 
-import { formatDateTime } from "./format";
+import { formatDateTime } from "../../_components/format-date-time";
+import { isScheduleFinished } from "./format";
 import { LiveProgress } from "./live-progress";
 import { ProgressBar } from "./progress-bar";
 import { StatusBadge } from "./status-badge";
@@ -21,7 +22,7 @@ function Item({ term, children }: { term: string; children: ReactNode }) {
 const sourceLabels: Record<string, string> = { upload: "CSV upload", "api-csv": "API (CSV)", "api-json": "API (JSON)" };
 
 export function ScheduleSummary({ schedule: s }: ScheduleSummaryProps) {
-  const running = s.status !== "completed" && s.status !== "failed";
+  const running = !isScheduleFinished(s.status);
   return (
     <section aria-label="Summary" className="mt-4 rounded border border-rule bg-sheet p-4">
       <dl className="grid gap-x-6 gap-y-3 sm:grid-cols-2 lg:grid-cols-4">

@@ -1,4 +1,4 @@
-export type ShapeSample = { xMm: number; deflectionMm: Record<string, number> };
+import type { ShapeSample } from "@/lib/engine/model";
 
 export type ShapeDiagramProps = {
   shape: ShapeSample[];

@@ -3,6 +3,7 @@ import { z } from "zod";
 import { getEnv } from "@/lib/env";
 import { DomainError } from "@/lib/server/errors";
 import { getRedis } from "@/lib/server/redis";
+import { withTimeout } from "@/lib/server/with-timeout";
 
 /**
  * Fixed one-minute windows per API key and per organization, counted in Redis (INCR + PEXPIRE).
@@ -65,22 +66,6 @@ export interface RateLimitDecision {
   counted: boolean;
 }
 
-function withTimeout<T>(promise: Promise<T>, ms: number): Promise<T> {
-  return new Promise((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`no answer within ${ms} ms`)), ms);
-    promise.then(
-      (value) => {
-        clearTimeout(timer);
-        resolve(value);
-      },
-      (error: unknown) => {
-        clearTimeout(timer);
-        reject(error);
-      },
-    );
-  });
-}
-
 let lastFailOpenLogMs = 0;
 
 function logFailOpen(error: unknown, nowMs: number): void {
@@ -101,7 +86,7 @@ export async function assertWithinRateLimit(
   const resetSeconds = Math.max(1, Math.ceil((windowEndsAtMs - nowMs) / 1000));
   let counts: number[];
   try {
-    counts = await withTimeout((options.increment ?? incrementRedisCounters)([keyCounter, organizationCounter], RATE_LIMIT_WINDOW_MS * 2), REDIS_TIMEOUT_MS);
+    counts = await withTimeout((options.increment ?? incrementRedisCounters)([keyCounter, organizationCounter], RATE_LIMIT_WINDOW_MS * 2), REDIS_TIMEOUT_MS, `no answer within ${REDIS_TIMEOUT_MS} ms`);
   } catch (error) {
     logFailOpen(error, nowMs);
     return { limit: limits.perKeyPerMinute, remaining: limits.perKeyPerMinute, resetSeconds, counted: false };

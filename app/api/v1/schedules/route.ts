@@ -1,6 +1,7 @@
 import { withApiKey } from "@/app/api/v1/_lib/with-api-key";
 import { listSchedules } from "@/db/queries/schedules";
 import { decodeCursor, encodeCursor, nextLink, readLimit } from "@/lib/server/http/cursor";
+import { SCHEDULE_PAGE_DEFAULT, SCHEDULE_PAGE_MAX } from "@/lib/server/schedules/page-limits";
 import { representSchedule } from "@/lib/server/schedules/represent";
 import { submitScheduleRequest } from "@/lib/server/schedules/submit-from-request";
 import { warmUpScheduleIntakeAtServerStart } from "@/lib/server/schedules/warm-up";
@@ -23,7 +24,7 @@ const isScheduleCursor = (v: unknown): v is { createdAt: string; id: string } =>
 // GET /api/v1/schedules: the organization's schedules, newest first, cursor-paginated.
 export const GET = withApiKey("results:read", async (request, key) => {
   const url = new URL(request.url);
-  const limit = readLimit(url.searchParams.get("limit"), 100, 20);
+  const limit = readLimit(url.searchParams.get("limit"), SCHEDULE_PAGE_MAX, SCHEDULE_PAGE_DEFAULT);
   const after = decodeCursor(url.searchParams.get("cursor"), isScheduleCursor);
   const { rows, hasMore } = await listSchedules(key.organizationId, { limit, after });
   const last = rows.at(-1);

@@ -1,9 +1,5 @@
 // /api/v1/api-keys over real HTTP: create (the secret once), list with keyset pages, revoke taking
 // effect on the next request, tenant isolation, body validation, coarse last-used, rate limits.
-import { readFileSync } from "node:fs";
-
-import Ajv2020 from "ajv/dist/2020.js";
-import addFormats from "ajv-formats";
 import { eq } from "drizzle-orm";
 import { Redis } from "ioredis";
 import request from "supertest";
@@ -17,15 +13,13 @@ import { createApiKey } from "@/lib/server/api-keys/create-api-key";
 import { hashApiKey, isWellFormedApiKey } from "@/lib/server/api-keys/key-format";
 import { createId } from "@/lib/server/ids";
 import { APP_URL } from "@/tests/helpers/app";
+import { compileApiSchema } from "@/tests/helpers/schemas";
 
 const PROBLEMS = "https://sagline.dev/problems/";
-const readSchema = (name: string) => JSON.parse(readFileSync(`api-schemas/v1/${name}.schema.json`, "utf8"));
-const ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true });
-addFormats(ajv);
-ajv.addSchema(readSchema("api-key"));
-const validateCreated = ajv.compile(readSchema("api-key-created"));
-const validateList = ajv.compile(readSchema("api-key-list"));
-const validateProblem = ajv.compile(readSchema("problem"));
+const schemaOptions = { strict: true, allowUnionTypes: true, references: ["api-key"] };
+const validateCreated = compileApiSchema("api-key-created", schemaOptions);
+const validateList = compileApiSchema("api-key-list", schemaOptions);
+const validateProblem = compileApiSchema("problem", schemaOptions);
 
 async function createOrganization(): Promise<string> {
   const id = createId("org");

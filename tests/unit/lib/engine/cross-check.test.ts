@@ -11,7 +11,7 @@ import { Matrix, solve } from "ml-matrix";
 import { describe, expect, it } from "vitest";
 import type { Load, Member, Support, SupportKind } from "../../../../lib/engine/model";
 import { createCaseFactors, findSpanExtreme, rotationAt, deflectionAt, solveMember } from "../../../../lib/engine/solver";
-import { createRandom } from "./solver/fixtures";
+import { createRandom } from "./solver/random";
 
 interface Action {
   kind: "point" | "couple" | "linear";

@@ -69,21 +69,22 @@ describe("geometry problems", () => {
 });
 
 describe("catalogue lookup", () => {
+  // Invented test rows, not catalogue data: only the names matter to the lookup.
   const catalogue: CatalogueSection[] = [
-    { name: "W12x26", iMm4: 84.9e6, areaMm2: 4935, massKgPerM: 38.7 },
-    { name: "W12x30", iMm4: 99.9e6, areaMm2: 5710, massKgPerM: 44.6 },
+    { name: "TEST-C12x26", iMm4: 84.9e6, areaMm2: 4935, massKgPerM: 38.7 },
+    { name: "TEST-C12x30", iMm4: 99.9e6, areaMm2: 5710, massKgPerM: 44.6 },
   ];
   it("matches ignoring case and spaces", () => {
     const find = createCatalogueIndex(catalogue);
-    const found = find("w12 X 26");
-    expect(found.ok && found.section.name).toBe("W12x26");
+    const found = find("test-c12 X 26");
+    expect(found.ok && found.section.name).toBe("TEST-C12x26");
   });
   it("reports an unknown name", () => {
     const found = createCatalogueIndex(catalogue)("W99x1");
     expect(found).toEqual({ ok: false, message: 'unknown catalogue section "W99x1"' });
   });
   it("says when no catalogue was given", () => {
-    const found = createCatalogueIndex([])("W12x26");
+    const found = createCatalogueIndex([])("TEST-C12x26");
     expect(found.ok).toBe(false);
     if (!found.ok) expect(found.message).toContain("no catalogue was given");
   });

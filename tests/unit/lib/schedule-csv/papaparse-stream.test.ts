@@ -7,7 +7,7 @@ import { createCsvRowMapper, parseScheduleCsv, type PublicMember } from "@/lib/s
 
 const exampleCsv = readFileSync(new URL("../../../../examples/harrowgate-mews-block-c-joists.csv", import.meta.url), "utf8");
 
-/** What the API layer does: papaparse row by row, the header once, then mapRow per record. */
+/** What the upload page does in the browser: papaparse row by row, the header once, then mapRow per record. */
 function mapWithPapaparse(text: string, delimiter: string): PublicMember[] {
   const rows: string[][] = [];
   Papa.parse<string[]>(text, { delimiter, skipEmptyLines: "greedy", step: (result) => void rows.push(result.data) });

@@ -1,5 +1,6 @@
 import type { ApiKeyView } from "@/lib/server/api-keys/api-key-view";
 
+import { formatDateTime } from "../../../_components/format-date-time";
 import { RevokeKeyButton } from "./revoke-key-button";
 
 export type KeyTableProps = { keys: ApiKeyView[] };
@@ -12,8 +13,9 @@ const statusTones: Record<ApiKeyView["status"], string> = {
 
 const statusLabels: Record<ApiKeyView["status"], string> = { active: "Active", expired: "Expired", revoked: "Revoked" };
 
+// The view carries toISOString() text, so parsing it back gives the same instant.
 function formatUtcMinute(iso: string | null, empty: string): string {
-  return iso ? `${iso.slice(0, 16).replace("T", " ")} UTC` : empty;
+  return iso ? formatDateTime(new Date(iso)) : empty;
 }
 
 function describeCreator(key: ApiKeyView): string {

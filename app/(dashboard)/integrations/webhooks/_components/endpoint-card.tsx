@@ -1,5 +1,6 @@
 import type { EndpointView } from "@/lib/server/webhooks/endpoints";
 
+import { formatDateTime } from "../../../_components/format-date-time";
 import { deleteEndpoint, rotateSecret, sendTestEvent, setEndpointEnabled } from "../actions";
 import { EndpointButton } from "./endpoint-button";
 import { EndpointForm } from "./endpoint-form";
@@ -11,10 +12,6 @@ const disabledText = {
   failing: "disabled after sustained failure",
 } as const;
 
-function formatUtc(date: Date): string {
-  return `${date.toISOString().slice(0, 16).replace("T", " ")} UTC`;
-}
-
 export type EndpointCardProps = { endpoint: EndpointView };
 
 export function EndpointCard({ endpoint }: EndpointCardProps) {
@@ -25,13 +22,13 @@ export function EndpointCard({ endpoint }: EndpointCardProps) {
         <p className="break-all font-medium">{endpoint.url}</p>
         <span className={endpoint.enabled ? "text-xs text-pass" : "text-xs text-fail"} data-testid="endpoint-status">
           {status}
-          {endpoint.disabledAt && !endpoint.enabled ? ` · ${formatUtc(endpoint.disabledAt)}` : ""}
+          {endpoint.disabledAt && !endpoint.enabled ? ` · ${formatDateTime(endpoint.disabledAt)}` : ""}
         </span>
       </div>
       {endpoint.description ? <p className="text-sm text-ink-soft">{endpoint.description}</p> : null}
       <p className="mt-1 text-xs text-ink-soft">
         <code>{endpoint.id}</code> · {endpoint.eventTypes.join(", ")}
-        {endpoint.rotationEndsAt ? ` · rotating: both secrets sign until ${formatUtc(endpoint.rotationEndsAt)}` : ""}
+        {endpoint.rotationEndsAt ? ` · rotating: both secrets sign until ${formatDateTime(endpoint.rotationEndsAt)}` : ""}
       </p>
       <div className="mt-3 flex flex-wrap items-start gap-2">
         <EndpointButton action={sendTestEvent} label={`Send a test event to ${endpoint.url}`} fields={{ endpointId: endpoint.id }} tone="primary">

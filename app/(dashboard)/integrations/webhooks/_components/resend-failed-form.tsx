@@ -3,6 +3,7 @@
 import { ActionForm } from "@/components/forms/action-form";
 import { FormField } from "@/components/forms/form-field";
 import { SubmitButton } from "@/components/forms/submit-button";
+import { SelectField } from "@/components/ui/field";
 
 import { resendFailedSince } from "../actions";
 
@@ -12,17 +13,14 @@ export function ResendFailedForm({ endpoints, defaultSince }: ResendFailedFormPr
   return (
     <ActionForm action={resendFailedSince} label="Resend failed deliveries" className="flex flex-wrap items-end gap-3 rounded border border-rule bg-sheet p-3">
       <FormField label="Failed since (UTC)" name="since" type="datetime-local" defaultValue={defaultSince} />
-      <label className="block">
-        <span className="mb-1 block text-xs font-medium uppercase tracking-wide text-ink-soft">Endpoint</span>
-        <select name="endpointId" defaultValue="" className="rounded border border-rule bg-sheet px-2 py-1.5 text-sm">
-          <option value="">All endpoints</option>
-          {endpoints.map((e) => (
-            <option key={e.id} value={e.id}>
-              {e.url}
-            </option>
-          ))}
-        </select>
-      </label>
+      <SelectField label="Endpoint" name="endpointId" defaultValue="">
+        <option value="">All endpoints</option>
+        {endpoints.map((e) => (
+          <option key={e.id} value={e.id}>
+            {e.url}
+          </option>
+        ))}
+      </SelectField>
       <SubmitButton tone="quiet" pendingLabel="Resending…">
         Resend failed
       </SubmitButton>

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 
+import { SelectField } from "@/components/ui/field";
 import { deliveryStatuses } from "@/db/schema";
 import { requirePage } from "@/lib/server/auth/guards";
 import { listEndpoints } from "@/lib/server/webhooks/endpoints";
@@ -19,8 +20,6 @@ function single(value: string | string[] | undefined): string | undefined {
   const v = Array.isArray(value) ? value[0] : value;
   return v && v.length <= 64 ? v : undefined;
 }
-
-const selectClass = "rounded border border-rule bg-sheet px-2 py-1.5 text-sm";
 
 export default async function WebhookDeliveriesPage({ searchParams }: { searchParams: SearchParams }) {
   const context = await requirePage("/integrations/webhooks/deliveries");
@@ -41,39 +40,30 @@ export default async function WebhookDeliveriesPage({ searchParams }: { searchPa
         </Link>
       </PageHeader>
       <form method="get" aria-label="Filter deliveries" className="mb-4 flex flex-wrap items-end gap-3">
-        <label className="block">
-          <span className="mb-1 block text-xs font-medium uppercase tracking-wide text-ink-soft">Endpoint</span>
-          <select name="endpoint" defaultValue={endpointId ?? ""} className={selectClass}>
-            <option value="">All</option>
-            {endpoints.map((e) => (
-              <option key={e.id} value={e.id}>
-                {e.url}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="block">
-          <span className="mb-1 block text-xs font-medium uppercase tracking-wide text-ink-soft">Status</span>
-          <select name="status" defaultValue={isDeliveryStatus(status) ? status : ""} className={selectClass}>
-            <option value="">All</option>
-            {deliveryStatuses.map((s) => (
-              <option key={s} value={s}>
-                {s}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="block">
-          <span className="mb-1 block text-xs font-medium uppercase tracking-wide text-ink-soft">Event</span>
-          <select name="event" defaultValue={eventType ?? ""} className={selectClass}>
-            <option value="">All</option>
-            {allEventTypes.map((t) => (
-              <option key={t} value={t}>
-                {t}
-              </option>
-            ))}
-          </select>
-        </label>
+        <SelectField label="Endpoint" name="endpoint" defaultValue={endpointId ?? ""}>
+          <option value="">All</option>
+          {endpoints.map((e) => (
+            <option key={e.id} value={e.id}>
+              {e.url}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField label="Status" name="status" defaultValue={isDeliveryStatus(status) ? status : ""}>
+          <option value="">All</option>
+          {deliveryStatuses.map((s) => (
+            <option key={s} value={s}>
+              {s}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField label="Event" name="event" defaultValue={eventType ?? ""}>
+          <option value="">All</option>
+          {allEventTypes.map((t) => (
+            <option key={t} value={t}>
+              {t}
+            </option>
+          ))}
+        </SelectField>
         <button type="submit" className="rounded border border-rule bg-sheet px-3 py-1.5 text-sm">
           Filter
         </button>

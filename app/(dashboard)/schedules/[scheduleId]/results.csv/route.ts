@@ -1,12 +1,13 @@
 import { getSchedule, listResults } from "@/db/queries/schedules";
+import { MAX_MEMBERS } from "@/lib/engine/intake";
 import { withSessionRoute } from "@/lib/server/auth/guards";
 import { DomainError, assertFound } from "@/lib/server/errors";
 import { resultsToCsv } from "@/lib/server/schedules/represent";
 
 import { readResultFilters } from "../../_components/result-filters";
 
-/** A schedule holds at most 100,000 members (lib/engine/intake MAX_MEMBERS): one page is all of them. */
-const EXPORT_LIMIT = 100_000;
+/** A schedule holds at most MAX_MEMBERS members: one page is all of them. */
+const EXPORT_LIMIT = MAX_MEMBERS;
 
 // GET /schedules/{scheduleId}/results.csv: the results table as CSV for the dashboard (cookie session), formula prefixes neutralised.
 export const GET = withSessionRoute<{ scheduleId: string }>("GET /schedules/[scheduleId]/results.csv", async (request, context, params) => {

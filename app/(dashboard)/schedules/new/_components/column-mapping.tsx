@@ -3,11 +3,11 @@
 import type { UnitSystem } from "@/lib/engine/units";
 import { listAcceptedUnits } from "@/lib/engine/units";
 
-import { IGNORE, describeDefaultUnit, getColumnKind, type HeaderInfo, type MappingChoices } from "./csv-model";
+import { IGNORE, describeDefaultUnit, getColumnKind, type ColumnChoices, type HeaderInfo } from "./csv-model";
 
 export type ColumnMappingProps = {
   headers: HeaderInfo[];
-  choices: MappingChoices;
+  choices: ColumnChoices;
   targetGroups: { group: string; names: string[] }[];
   onTarget: (index: number, target: string) => void;
   onUnit: (index: number, unit: string) => void;

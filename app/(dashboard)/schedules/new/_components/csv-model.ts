@@ -8,14 +8,24 @@ import Papa from "papaparse";
 import { parseSchedule } from "@/lib/engine/intake";
 import { getPreset, listProfileLoadCases } from "@/lib/engine/presets";
 import { QUANTITY_KIND_LABELS, SYSTEM_DEFAULT_UNITS, type QuantityKind, type UnitSystem } from "@/lib/engine/units";
-import { createCsvRowMapper, mapIssueToCsvRow, stripBom, type CsvRowError, type CsvRowPlace, type PublicMember } from "@/lib/schedule-csv";
+import {
+  CSV_DELIMITER_CHARS,
+  createCsvRowMapper,
+  findDelimiterInSingleColumnHeader,
+  mapCsvRecordsToSchedule,
+  mapIssueToCsvRow,
+  stripBom,
+  type CsvDelimiter,
+  type CsvDelimiterName,
+  type CsvRowError,
+} from "@/lib/schedule-csv";
 import { FIXED_COLUMNS, LOAD_COLUMNS, getColumnRole, splitHeader } from "@/lib/schedule-csv/columns";
 
-export type DelimiterName = "comma" | "semicolon" | "tab";
-export const DELIMITERS: Record<DelimiterName, { char: "," | ";" | "\t"; label: string }> = {
-  comma: { char: ",", label: "Comma ( , )" },
-  semicolon: { char: ";", label: "Semicolon ( ; )" },
-  tab: { char: "\t", label: "Tab" },
+export type DelimiterName = CsvDelimiterName;
+export const DELIMITERS: Record<DelimiterName, { char: CsvDelimiter; label: string }> = {
+  comma: { char: CSV_DELIMITER_CHARS.comma, label: "Comma ( , )" },
+  semicolon: { char: CSV_DELIMITER_CHARS.semicolon, label: "Semicolon ( ; )" },
+  tab: { char: CSV_DELIMITER_CHARS.tab, label: "Tab" },
 };
 
 export interface CsvRecord {
@@ -125,6 +135,9 @@ export interface MappingChoices {
   system: UnitSystem | null;
 }
 
+/** What the person picks per column; the unit system is chosen with the schedule options. */
+export type ColumnChoices = Omit<MappingChoices, "system">;
+
 export interface MappedHeader {
   header: string[];
   /** Original column index of each mapped column. */
@@ -180,8 +193,9 @@ export type ValidationResult = { ok: true; memberCount: number } | { ok: false; 
  * first checks the server makes); every problem is listed with row, line and column.
  */
 export function validateSchedule({ parsed, mapped, system, presetId, name, reference }: ValidationInput): ValidationResult {
-  const only = parsed.header.fields.length === 1 ? (parsed.header.fields[0] ?? "") : "";
-  const other = (Object.keys(DELIMITERS) as DelimiterName[]).find((d) => only.includes(DELIMITERS[d].char));
+  const names = Object.keys(DELIMITERS) as DelimiterName[];
+  const found = findDelimiterInSingleColumnHeader(parsed.header.fields, names.map((d) => DELIMITERS[d].char));
+  const other = names.find((d) => DELIMITERS[d].char === found);
   if (other) {
     const message = `the header is a single column containing ${other === "tab" ? "tabs" : `"${DELIMITERS[other].char}"`}: choose ${DELIMITERS[other].label.toLowerCase()} as the delimiter`;
     return { ok: false, errors: [{ row: 1, line: 1, column: "", code: "wrong_delimiter", message }] };
@@ -191,30 +205,23 @@ export function validateSchedule({ parsed, mapped, system, presetId, name, refer
   const units = system ? { system } : {};
   const created = createCsvRowMapper(mapped.header, { units });
   if (!created.ok) return { ok: false, errors: created.errors.map((e) => ({ ...e, line: parsed.header.line })) };
-  const errors: CsvRowError[] = [];
-  const members: PublicMember[] = [];
-  const places: CsvRowPlace[] = [];
-  for (const record of parsed.records) {
-    if (record.fields.every((f) => f.trim() === "")) continue;
-    // Counted on the file as written: dropping ignored columns must not hide a short row.
-    if (record.fields.length !== width) {
-      errors.push({ row: record.row, line: record.line, column: "", code: "field_count", message: `the row has ${record.fields.length} fields but the header has ${width}` });
-      continue;
-    }
-    const where = { row: record.row, line: record.line };
-    const result = created.mapper.mapRow(mapped.keep.map((i) => record.fields[i] ?? ""), where);
-    if (!result.ok) errors.push(...result.errors);
-    else if (result.member) {
-      members.push(result.member);
-      places.push(result.sources ? { ...where, sources: result.sources } : where);
-    }
-  }
-  if (errors.length > 0) return { ok: false, errors };
-  if (members.length === 0) return { ok: false, errors: [{ row: 2, column: "", code: "no_rows", message: "the file has no member rows" }] };
-  const doc = { format: "sagline.schedule/v1", name, ...(reference ? { reference } : {}), units, limits: { preset: presetId }, members };
-  const intake = parseSchedule(doc);
-  if (!intake.ok) return { ok: false, errors: intake.issues.map((issue) => mapIssueToCsvRow(issue, places)) };
-  return { ok: true, memberCount: members.length };
+  const built = mapCsvRecordsToSchedule(
+    parsed.records,
+    (record, where) => {
+      if (record.fields.every((f) => f.trim() === "")) return { ok: true, member: null };
+      // Counted on the file as written: dropping ignored columns must not hide a short row.
+      if (record.fields.length !== width) {
+        return { ok: false, errors: [{ ...where, column: "", code: "field_count", message: `the row has ${record.fields.length} fields but the header has ${width}` }] };
+      }
+      return created.mapper.mapRow(mapped.keep.map((i) => record.fields[i] ?? ""), where);
+    },
+    { name, reference: reference || undefined, units, limits: { preset: presetId } },
+  );
+  if (!built.ok) return { ok: false, errors: built.errors };
+  const intake = parseSchedule(built.doc);
+  if (!intake.ok) return { ok: false, errors: intake.issues.map((issue) => mapIssueToCsvRow(issue, built.places)) };
+  // One place per member.
+  return { ok: true, memberCount: built.places.length };
 }
 
 /**

@@ -19,8 +19,8 @@ import {
   suggestDelimiter,
   validateSchedule,
   writeMappedCsv,
+  type ColumnChoices,
   type DelimiterName,
-  type MappingChoices,
 } from "./csv-model";
 import { FilePicker } from "./file-picker";
 import { PreviewTable } from "./preview-table";
@@ -31,6 +31,7 @@ import { UploadOptions, type PresetOption, type UnitsChoice } from "./upload-opt
 export type UploadWizardProps = { presets: PresetOption[]; maxBytes: number };
 
 const PREVIEW_ROWS = 10;
+const EMPTY_CHOICES: ColumnChoices = { targets: {}, units: {} };
 
 type Loaded = { name: string; text: string; sizeBytes: number };
 type Submitted = { id: string; memberCount: number };
@@ -54,7 +55,7 @@ export function UploadWizard({ presets, maxBytes }: UploadWizardProps) {
   const [file, setFile] = useState<Loaded | null>(null);
   const [loadError, setLoadError] = useState<string | null>(null);
   const [delimiter, setDelimiter] = useState<DelimiterName>("comma");
-  const [choices, setChoices] = useState<MappingChoices>({ targets: {}, units: {}, system: null });
+  const [choices, setChoices] = useState<ColumnChoices>(EMPTY_CHOICES);
   const [unitsChoice, setUnitsChoice] = useState<UnitsChoice>("");
   const [presetId, setPresetId] = useState("");
   const [name, setName] = useState("");
@@ -77,6 +78,13 @@ export function UploadWizard({ presets, maxBytes }: UploadWizardProps) {
     setRefusal(null);
   };
 
+  // Another delimiter splits other columns, so earlier column choices no longer apply.
+  const chooseDelimiter = (d: DelimiterName) => {
+    changed();
+    setChoices(EMPTY_CHOICES);
+    setDelimiter(d);
+  };
+
   const onFile = async (picked: File) => {
     changed();
     setFile(null);
@@ -90,7 +98,7 @@ export function UploadWizard({ presets, maxBytes }: UploadWizardProps) {
       return;
     }
     setLoadError(null);
-    setChoices({ targets: {}, units: {}, system: null });
+    setChoices(EMPTY_CHOICES);
     setFile({ name: picked.name, text: decoded.text, sizeBytes: picked.size });
     setName((current) => current || picked.name.replace(/\.[^.]+$/, ""));
   };
@@ -159,11 +167,7 @@ export function UploadWizard({ presets, maxBytes }: UploadWizardProps) {
                   name="delimiter"
                   value={d}
                   checked={delimiter === d}
-                  onChange={() => {
-                    changed();
-                    setChoices({ targets: {}, units: {}, system: null });
-                    setDelimiter(d);
-                  }}
+                  onChange={() => chooseDelimiter(d)}
                 />
                 {DELIMITERS[d].label}
               </label>
@@ -172,15 +176,7 @@ export function UploadWizard({ presets, maxBytes }: UploadWizardProps) {
           {suggestion && suggestion !== delimiter ? (
             <p className="text-sm text-caution" data-testid="delimiter-suggestion">
               The first line looks {DELIMITERS[suggestion].label.toLowerCase()}-separated.{" "}
-              <button
-                type="button"
-                className="text-action underline"
-                onClick={() => {
-                  changed();
-                  setChoices({ targets: {}, units: {}, system: null });
-                  setDelimiter(suggestion);
-                }}
-              >
+              <button type="button" className="text-action underline" onClick={() => chooseDelimiter(suggestion)}>
                 Use {DELIMITERS[suggestion].label.toLowerCase()}
               </button>
             </p>

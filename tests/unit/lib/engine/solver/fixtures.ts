@@ -38,15 +38,3 @@ export function expectRelative(actual: number, expected: number, tol = 1e-9): vo
     throw new Error(`expected ${expected}, got ${actual} (relative error ${error / Math.abs(expected)} > ${tol})`);
   }
 }
-
-/** Deterministic PRNG (mulberry32) for generated cases. */
-export function createRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}

@@ -50,7 +50,10 @@ describe("Standard Webhooks signing", () => {
 
     const after = new Date(now.getTime() + 3_600_001);
     expect(listSigningSecrets(endpoint, after)).toEqual([newSecret]);
-    const later = signDelivery({ messageId: "evt_rot", at: after, body, secrets: listSigningSecrets(endpoint, after) });
-    expect(() => verifyWith(oldSecret, { ...later, "webhook-timestamp": String(Math.floor(Date.now() / 1000)) })).toThrow();
+    // Signed at `now` (inside the verifier's 5-minute window) but with the secrets chosen after
+    // expiry, so only the missing old signature can make the old secret fail.
+    const later = signDelivery({ messageId: "evt_rot", at: now, body, secrets: listSigningSecrets(endpoint, after) });
+    expect(() => verifyWith(oldSecret, { ...later })).toThrow();
+    expect(verifyWith(newSecret, { ...later })).toBeTruthy();
   });
 });

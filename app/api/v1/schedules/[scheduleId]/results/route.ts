@@ -3,6 +3,7 @@ import { getSchedule, listResults, type ResultStatus } from "@/db/queries/schedu
 import { DomainError, assertFound } from "@/lib/server/errors";
 import { decodeCursor, encodeCursor, nextLink, readLimit } from "@/lib/server/http/cursor";
 import { SAFETY_CAUTION } from "@/lib/safety";
+import { RESULT_PAGE_DEFAULT, RESULT_PAGE_MAX } from "@/lib/server/schedules/page-limits";
 import { representResult, resultsToCsv } from "@/lib/server/schedules/represent";
 
 const statuses: ResultStatus[] = ["pass", "fail", "error"];
@@ -25,7 +26,7 @@ export const GET = withApiKey<{ scheduleId: string }>("results:read", async (req
     throw new DomainError("bad_request", 'status must be "pass", "fail" or "error".', [{ pointer: "/query/status", message: "pass, fail or error" }]);
   }
   const csv = wantsCsv(request, url);
-  const limit = readLimit(url.searchParams.get("limit"), csv ? 100_000 : 1000, csv ? 100_000 : 100);
+  const limit = readLimit(url.searchParams.get("limit"), csv ? 100_000 : RESULT_PAGE_MAX, csv ? 100_000 : RESULT_PAGE_DEFAULT);
   const cursor = decodeCursor(url.searchParams.get("cursor"), isIndexCursor);
   const { rows, hasMore } = await listResults(schedule.id, {
     limit,
