@@ -44,7 +44,11 @@ export interface ParsedSchedule {
   origins: MemberOrigins[];
 }
 
-export type ParseScheduleResult = { ok: true; schedule: ParsedSchedule } | { ok: false; issues: InputIssue[] };
+/**
+ * On failure, `issues` ends with a "N more issues not listed" line when the cap was reached, and
+ * `unlistedCount` is that N (0 otherwise), for callers that report the total themselves.
+ */
+export type ParseScheduleResult = { ok: true; schedule: ParsedSchedule } | { ok: false; issues: InputIssue[]; unlistedCount: number };
 
 /**
  * Validates a public schedule document (already JSON-parsed) and converts it to the engine
@@ -56,7 +60,7 @@ export function parseSchedule(doc: unknown, options: ParseScheduleOptions = {}):
   const issues = new IssueCollector(options.maxIssues ?? DEFAULT_MAX_ISSUES);
   const ctx: ReadContext = { issues, units: { system: null, byKind: {} } };
   const root = readObject(ctx, doc, "", ROOT_SPEC);
-  if (!root) return { ok: false, issues: finishIssues(issues) };
+  if (!root) return fail(issues);
   if (root.format !== undefined && root.format !== SCHEDULE_FORMAT) issues.add("format", `must be "${SCHEDULE_FORMAT}"`);
   const name = root.name === undefined ? null : readString(ctx, root.name, "name", 200);
   const reference = root.reference === undefined ? null : readString(ctx, root.reference, "reference", 200);
@@ -97,7 +101,7 @@ export function parseSchedule(doc: unknown, options: ParseScheduleOptions = {}):
       }
     }
   }
-  if (issues.count > 0 || !profile || name === null) return { ok: false, issues: finishIssues(issues) };
+  if (issues.count > 0 || !profile || name === null) return fail(issues);
   return {
     ok: true,
     schedule: {
@@ -113,9 +117,9 @@ export function parseSchedule(doc: unknown, options: ParseScheduleOptions = {}):
   };
 }
 
-function finishIssues(issues: IssueCollector): InputIssue[] {
+function fail(issues: IssueCollector): Extract<ParseScheduleResult, { ok: false }> {
   const list = [...issues.issues];
   if (issues.dropped > 0) list.push({ path: "", message: `${issues.dropped} more issues not listed` });
   if (list.length === 0) list.push({ path: "", message: "the schedule is not valid" });
-  return list;
+  return { ok: false, issues: list, unlistedCount: issues.dropped };
 }

@@ -44,7 +44,7 @@ export interface CheckedSchedule {
  * Each member is checked as soon as it is read and then dropped: holding the model of 100,000
  * members only to validate them would cost memory and garbage-collection time.
  */
-export function collectScheduleIssues(doc: unknown): ({ ok: true } & CheckedSchedule) | { ok: false; issues: InputIssue[] } {
+export function collectScheduleIssues(doc: unknown): ({ ok: true } & CheckedSchedule) | { ok: false; issues: InputIssue[]; unlistedCount: number } {
   const engineIssues: InputIssue[] = [];
   const marks: string[] = [];
   const parsed = parseSchedule(doc, {
@@ -62,7 +62,7 @@ export function collectScheduleIssues(doc: unknown): ({ ok: true } & CheckedSche
   });
   // Intake problems first: engine checks of members that did not read cleanly say little.
   if (!parsed.ok) return parsed;
-  return engineIssues.length > 0 ? { ok: false, issues: engineIssues } : { ok: true, schedule: parsed.schedule, marks };
+  return engineIssues.length > 0 ? { ok: false, issues: engineIssues, unlistedCount: 0 } : { ok: true, schedule: parsed.schedule, marks };
 }
 
 function findMembersWithNul(members: unknown[]): InputIssue[] {
@@ -96,11 +96,11 @@ export function throwInvalidSchedule(errors: FieldError[], total: number): never
 export async function submitSchedule(input: SubmitScheduleInput): Promise<SubmittedSchedule> {
   const checked = collectScheduleIssues(input.doc);
   if (!checked.ok) {
-    // Intake stops listing at the cap and ends with a "N more issues not listed" line.
-    const more = checked.issues.map((i) => /^(\d+) more issues not listed$/.exec(i.message)).find((m) => m !== null);
-    const listedIssues = checked.issues.filter((i) => !/^\d+ more issues not listed$/.test(i.message));
+    // Intake stops listing at the cap and ends with its "N more issues not listed" line: the
+    // problem body states the total instead.
+    const listedIssues = checked.unlistedCount > 0 ? checked.issues.slice(0, -1) : checked.issues;
     const listed = input.toFieldErrors ? input.toFieldErrors(listedIssues) : issuesToFieldErrors(listedIssues);
-    throwInvalidSchedule(listed.slice(0, MAX_LISTED_ERRORS), listedIssues.length + (more ? Number(more[1]) : 0));
+    throwInvalidSchedule(listed.slice(0, MAX_LISTED_ERRORS), listedIssues.length + checked.unlistedCount);
   }
   const doc = input.doc as Record<string, unknown>;
   const members = doc.members as Record<string, unknown>[];

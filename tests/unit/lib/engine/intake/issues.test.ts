@@ -208,6 +208,9 @@ describe("schedule-level problems", () => {
     const issues = parseIssues(doc, { maxIssues: 10 });
     expect(issues).toHaveLength(11);
     expect(issues[10]).toEqual({ path: "", message: "20 more issues not listed" });
+    const result = parseSchedule(doc, { maxIssues: 10 });
+    expect(result.ok ? null : result.unlistedCount).toBe(20);
+    expect(parseSchedule(createDoc({ spans: [-1] }))).toMatchObject({ ok: false, unlistedCount: 0 });
   });
 
   it("rejects an empty members array", () => {
