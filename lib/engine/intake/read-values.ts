@@ -2,6 +2,7 @@
  * Small readers shared by intake: each reads one field of the public schedule, records an issue
  * naming the field's path when it is wrong, and returns null instead of guessing.
  */
+import { describeOutOfBounds } from "../input-bounds";
 import type { CatalogueSection, InputIssue } from "../model";
 import { findUnit, QUANTITY_KIND_LABELS, type QuantityKind, type UnitSystem } from "../units";
 
@@ -178,6 +179,7 @@ export function isQuantityObject(value: unknown): value is JsonObject {
 /**
  * Reads a quantity of the given kind and returns it in internal units. A bare number takes the
  * schedule's default unit for the kind; `{ "value", "unit" }` names its own. No unit, no value.
+ * A value outside its kind's physical range (input-bounds.ts) is refused on this field.
  */
 export function readQuantity(ctx: ReadContext, value: unknown, path: FieldPath, kind: QuantityKind, rule: NumberRule): number | null {
   const isObject = isQuantityObject(value);
@@ -219,7 +221,13 @@ export function readQuantity(ctx: ReadContext, value: unknown, path: FieldPath, 
     ctx.issues.add(path, "is too large");
     return null;
   }
-  return checkRule(ctx, internal, path, rule) ? internal : null;
+  if (!checkRule(ctx, internal, path, rule)) return null;
+  const outOfBounds = describeOutOfBounds(kind, internal, found.unit.symbol, rule === "any", (v) => v / found.unit.toInternal);
+  if (outOfBounds !== null) {
+    ctx.issues.add(path, outOfBounds);
+    return null;
+  }
+  return internal;
 }
 
 /** Resolves a catalogue name (see sections.ts createCatalogueIndex). */

@@ -1,4 +1,6 @@
 import type { InputIssue, Load, Member, Support, SupportKind } from "../model";
+import { describeOutOfBounds } from "../input-bounds";
+import { INTERNAL_UNITS, type QuantityKind } from "../units/unit-table";
 import { EngineInputError } from "./engine-input-error";
 
 const SUPPORT_KINDS: ReadonlySet<string> = new Set<SupportKind>(["pinned", "roller", "fixed", "free", "spring"]);
@@ -37,22 +39,44 @@ function getTotalLengthMm(member: Member): number {
   return total;
 }
 
+/** A size (span, E, I, ...): positive, finite and inside its physical range (input-bounds.ts). */
+function collectSizeIssue(path: string, value: unknown, kind: QuantityKind, what: string, issues: InputIssue[]): void {
+  const unit = INTERNAL_UNITS[kind];
+  if (!isPositiveFinite(value)) {
+    issues.push({ path, message: `${what} must be a positive finite number (${unit})` });
+    return;
+  }
+  const outOfBounds = describeOutOfBounds(kind, value, unit);
+  if (outOfBounds !== null) issues.push({ path, message: `${what} ${outOfBounds}` });
+}
+
+/** A signed value (load intensity, force, moment): finite and not beyond its physical range. */
+function collectSignedIssue(path: string, value: unknown, kind: QuantityKind, what: string, issues: InputIssue[]): void {
+  const unit = INTERNAL_UNITS[kind];
+  if (!isFiniteNumber(value)) {
+    issues.push({ path, message: `${what} must be a finite number (${unit})` });
+    return;
+  }
+  const outOfBounds = describeOutOfBounds(kind, value, unit, true);
+  if (outOfBounds !== null) issues.push({ path, message: `${what} ${outOfBounds}` });
+}
+
 function collectSpanIssues(member: Member, issues: InputIssue[]): void {
   for (let index = 0; index < member.spans.length; index++) {
     const span = member.spans[index]!;
     const path = `spans[${index}]`;
-    if (!isPositiveFinite(span.lengthMm)) issues.push({ path: `${path}.lengthMm`, message: "span length must be a positive finite number (mm)" });
-    if (!isPositiveFinite(span.eMpa)) issues.push({ path: `${path}.eMpa`, message: "modulus of elasticity must be a positive finite number (MPa)" });
-    if (!isPositiveFinite(span.iMm4)) issues.push({ path: `${path}.iMm4`, message: "second moment of area must be a positive finite number (mm^4)" });
-    if (span.areaMm2 !== undefined && !isPositiveFinite(span.areaMm2)) issues.push({ path: `${path}.areaMm2`, message: "area must be a positive finite number (mm^2)" });
-    if (span.densityKgPerM3 !== undefined && !isPositiveFinite(span.densityKgPerM3)) issues.push({ path: `${path}.densityKgPerM3`, message: "density must be a positive finite number (kg/m^3)" });
+    collectSizeIssue(`${path}.lengthMm`, span.lengthMm, "length", "span length", issues);
+    collectSizeIssue(`${path}.eMpa`, span.eMpa, "modulus", "modulus of elasticity", issues);
+    collectSizeIssue(`${path}.iMm4`, span.iMm4, "secondMoment", "second moment of area", issues);
+    if (span.areaMm2 !== undefined) collectSizeIssue(`${path}.areaMm2`, span.areaMm2, "area", "area", issues);
+    if (span.densityKgPerM3 !== undefined) collectSizeIssue(`${path}.densityKgPerM3`, span.densityKgPerM3, "density", "density", issues);
     if (member.selfWeightCase !== undefined) {
       if (span.areaMm2 === undefined) issues.push({ path: `${path}.areaMm2`, message: `self-weight (case "${member.selfWeightCase}") needs the section area` });
       if (span.densityKgPerM3 === undefined) issues.push({ path: `${path}.densityKgPerM3`, message: `self-weight (case "${member.selfWeightCase}") needs the material density` });
     }
     if (member.includeShearDeformation === true) {
-      if (!isPositiveFinite(span.shearAreaMm2)) issues.push({ path: `${path}.shearAreaMm2`, message: "shear deformation is requested: the shear area k*A must be a positive finite number (mm^2)" });
-      if (!isPositiveFinite(span.gMpa)) issues.push({ path: `${path}.gMpa`, message: "shear deformation is requested: the shear modulus must be a positive finite number (MPa)" });
+      collectSizeIssue(`${path}.shearAreaMm2`, span.shearAreaMm2, "area", "shear deformation is requested: the shear area k*A", issues);
+      collectSizeIssue(`${path}.gMpa`, span.gMpa, "modulus", "shear deformation is requested: the shear modulus", issues);
     }
   }
 }
@@ -68,8 +92,8 @@ function collectSupportIssues(member: Member, issues: InputIssue[]): void {
       issues.push({ path: `supports[${index}].kind`, message: `unknown support kind "${String(support.kind)}" (pinned, roller, fixed, free or spring)` });
       continue;
     }
-    if (support.kind === "spring" && !isPositiveFinite(support.springNPerMm)) {
-      issues.push({ path: `supports[${index}].springNPerMm`, message: "a spring support needs a positive finite vertical stiffness (N/mm)" });
+    if (support.kind === "spring") {
+      collectSizeIssue(`supports[${index}].springNPerMm`, support.springNPerMm, "springStiffness", "a spring support's vertical stiffness", issues);
     }
   }
   // with no issue so far every kind is known and every spring valid, as isStableSupportSet assumes
@@ -94,7 +118,7 @@ function collectLoadIssues(load: Load, index: number, totalMm: number, issues: I
   if (typeof load.loadCase !== "string" || load.loadCase === "") issues.push({ path: `${path}.loadCase`, message: "a load needs a load case name" });
   switch (load.kind) {
     case "uniform": {
-      if (!isFiniteNumber(load.wNPerMm)) issues.push({ path: `${path}.wNPerMm`, message: "load intensity must be a finite number (N/mm)" });
+      collectSignedIssue(`${path}.wNPerMm`, load.wNPerMm, "distributedLoad", "load intensity", issues);
       if (load.startMm !== undefined) collectPositionIssue(`${path}.startMm`, load.startMm, totalMm, tolMm, issues);
       if (load.endMm !== undefined) collectPositionIssue(`${path}.endMm`, load.endMm, totalMm, tolMm, issues);
       const start = load.startMm ?? 0;
@@ -103,19 +127,19 @@ function collectLoadIssues(load: Load, index: number, totalMm: number, issues: I
       return;
     }
     case "linear": {
-      if (!isFiniteNumber(load.wStartNPerMm)) issues.push({ path: `${path}.wStartNPerMm`, message: "load intensity must be a finite number (N/mm)" });
-      if (!isFiniteNumber(load.wEndNPerMm)) issues.push({ path: `${path}.wEndNPerMm`, message: "load intensity must be a finite number (N/mm)" });
+      collectSignedIssue(`${path}.wStartNPerMm`, load.wStartNPerMm, "distributedLoad", "load intensity", issues);
+      collectSignedIssue(`${path}.wEndNPerMm`, load.wEndNPerMm, "distributedLoad", "load intensity", issues);
       collectPositionIssue(`${path}.startMm`, load.startMm, totalMm, tolMm, issues);
       collectPositionIssue(`${path}.endMm`, load.endMm, totalMm, tolMm, issues);
       if (isFiniteNumber(load.startMm) && isFiniteNumber(load.endMm) && !(load.endMm > load.startMm)) issues.push({ path: `${path}.endMm`, message: "a linearly varying load must end after it starts" });
       return;
     }
     case "point":
-      if (!isFiniteNumber(load.pN)) issues.push({ path: `${path}.pN`, message: "point load must be a finite number (N)" });
+      collectSignedIssue(`${path}.pN`, load.pN, "force", "point load", issues);
       collectPositionIssue(`${path}.atMm`, load.atMm, totalMm, tolMm, issues);
       return;
     case "moment":
-      if (!isFiniteNumber(load.mNmm)) issues.push({ path: `${path}.mNmm`, message: "applied moment must be a finite number (N*mm)" });
+      collectSignedIssue(`${path}.mNmm`, load.mNmm, "moment", "applied moment", issues);
       collectPositionIssue(`${path}.atMm`, load.atMm, totalMm, tolMm, issues);
       return;
     default:

@@ -86,6 +86,21 @@ describe("POST /api/v1/schedules", () => {
     expect(after.body.data.length).toBe(before.body.data.length);
   });
 
+  it("refuses a 1e308 mm span on its own pointer with the reason, not as a singular matrix (range: lib/engine/input-bounds.ts)", async () => {
+    const bad = createScheduleDoc([{ ...createBeam("HUGE-1"), spans: [{ value: 1e308, unit: "mm" }] }]);
+    const response = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).send(bad);
+    expect(response.status).toBe(422);
+    expect(response.body.errors).toEqual([{ pointer: "/members/0/spans/0", message: expect.stringMatching(/^must be at most 1,000,000 mm: /) }]);
+  });
+
+  it("refuses the same out-of-range span in CSV on its row and column", async () => {
+    const csv = "mark,category,quantity,material,section,bf [mm],tf [mm],d [mm],tw [mm],span_1 [mm],supports,dead_uniform [kN/m],live_uniform [kN/m]\r\nC-1,floor_beam,1,steel-s355,i_plate,150,10.7,300,7.1,1e308,pinned roller,3,7.5\r\n";
+    const response = await api().post("/api/v1/schedules?limits=ibc-2021-floor").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send(csv);
+    expect(response.status).toBe(422);
+    expect(response.body.errors).toHaveLength(1);
+    expect(response.body.errors[0]).toMatchObject({ row: 2, column: "span_1 [mm]", message: expect.stringMatching(/at most 1,000,000 mm/) });
+  });
+
   it("reports CSV row errors with row, line, column and code", async () => {
     const csv = 'mark,category,quantity,material,section,bf [mm],tf [mm],d [mm],tw [mm],span_1 [m],supports,dead_uniform [kN/m],live_uniform [kN/m],notes\r\nC-1,floor_beam,1,steel-s355,i_plate,150,10.7,300,7.1,4,pinned roller,3,7.5,"two\r\nlines"\r\nC-2,floor_beam,1,steel-s355,i_plate,150,10.7,300,7.1,abc,pinned roller,3,7.5,\r\n';
     const response = await api().post("/api/v1/schedules?limits=ibc-2021-floor").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send(csv);

@@ -239,3 +239,38 @@ describe("hostile or broken input", () => {
     expect(formatIssues(parseIssues(doc))).toEqual(["members: must be an array of 1 to 100000 members"]);
   });
 });
+
+describe("values outside their physical range are refused on their own field (lib/engine/input-bounds.ts, common practice)", () => {
+  it("a 1e308 mm span names spans[0], not a singular matrix", () => {
+    expect(getMessages({ spans: [{ value: 1e308, unit: "mm" }] })).toEqual([
+      "members[0].spans[0]: must be at most 1,000,000 mm: expected a member length, position or width from 1 mm to 1 km",
+    ]);
+  });
+
+  it("states the limit in the unit the schedule used (a 5,000 ft span)", () => {
+    expect(getMessages({ spans: [5000] }, { units: { system: "US" } })).toContain(
+      "members[0].spans[0]: must be at most 3,280.84 ft: expected a member length, position or width from 1 mm to 1 km",
+    );
+  });
+
+  it("a custom E of 13.8 read as MPa is refused with the likely slip named", () => {
+    expect(getMessages({ material: { name: "LVL", E: 13.8 } })).toEqual([
+      "members[0].material.E: must be at least 100 MPa: expected a structural modulus from 100 MPa to 1,000,000 MPa (1,000 GPa); a smaller number is usually GPa written without its unit",
+    ]);
+  });
+
+  it("the same E written as 13.8 GPa is accepted", () => {
+    expect(parseSchedule(createDoc({ material: { name: "LVL", E: { value: 13.8, unit: "GPa" } } })).ok).toBe(true);
+  });
+
+  it.each([
+    ["an explicit I of 1e30 mm^4", { section: { shape: "explicit", I: 1e30 } }, /^members\[0\]\.section\.I: must be at most 1e15 mm\^4/],
+    ["a spring of 1e12 kN/mm", { supports: ["pinned", { kind: "spring", stiffness: 1e12 }] }, /^members\[0\]\.supports\[1\]\.stiffness: must be at most 1e7 kN\/mm: .*use pinned/],
+    ["a line load of 1e9 kN/m", { loads: [{ case: "live", type: "uniform", w: -1e9 }] }, /^members\[0\]\.loads\[0\]\.w: must be at most 100,000 kN\/m in magnitude/],
+    ["a density of 1e6 kg/m^3", { material: { name: "X", E: 1000, density: 1e6 } }, /^members\[0\]\.material\.density: must be at most 25,000 kg\/m\^3/],
+  ])("%s names its field", (_name, member, message) => {
+    const messages = getMessages(member);
+    expect(messages).toHaveLength(1);
+    expect(messages[0]).toMatch(message);
+  });
+});

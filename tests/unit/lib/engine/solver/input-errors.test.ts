@@ -38,9 +38,17 @@ describe("mechanisms and unsupported members", () => {
     expect(() => solveMember(createMember(createSpans([3000, 1000]), createSupports("free", "fixed", "free"), [uniform]))).not.toThrow();
   });
 
-  it("a spring too soft to register against the beam stiffness is reported as singular, not NaN", () => {
-    // a pin and a 1e-20 N/mm spring: the rotation about the pin is restrained only below round-off
+  it("a spring softer than 1 N/mm is refused on its own field (input-bounds.ts range, common practice)", () => {
     const member = createMember(createSpans([3000]), [{ kind: "pinned" }, { kind: "spring", springNPerMm: 1e-20 }], [uniform]);
+    const issues = getIssues(member);
+    expect(issues.map((issue) => issue.path)).toEqual(["supports[1].springNPerMm"]);
+    expect(issues[0]!.message).toMatch(/at least 1 N\/mm/);
+  });
+
+  it("a spring too soft to register against the beam stiffness is still reported as singular, not NaN", () => {
+    // Every value is inside its range, yet a 1 N/mm spring under a 1 mm span with EI = 1e21 N*mm^2
+    // restrains the rotation about the pin only below round-off.
+    const member = createMember([{ lengthMm: 1, eMpa: 1e6, iMm4: 1e15 }], [{ kind: "pinned" }, { kind: "spring", springNPerMm: 1 }], [uniform]);
     const issues = getIssues(member);
     expect(issues[0]!.path).toMatch(/^supports\[\d\]$/);
     expect(issues[0]!.message).toMatch(/singular/);
@@ -48,7 +56,7 @@ describe("mechanisms and unsupported members", () => {
 
   it("a very soft segment is still solved with finite numbers", () => {
     const member = createMember(
-      [{ lengthMm: 3000, eMpa: 200000, iMm4: 1e8 }, { lengthMm: 3000, eMpa: 200000, iMm4: 1e-6 }],
+      [{ lengthMm: 3000, eMpa: 200000, iMm4: 1e8 }, { lengthMm: 3000, eMpa: 200000, iMm4: 1 }],
       createSupports("fixed", "free", "free"),
       [{ kind: "point", loadCase: "A", atMm: 6000, pN: 1000 }],
     );
@@ -109,11 +117,42 @@ describe("invalid fields", () => {
   });
 });
 
-describe("overflow", () => {
-  it("loads so large that results leave double precision are an input error, not Infinity", () => {
-    const member = createMember(createSpans([3000]), createSupports("pinned", "roller"), [{ kind: "uniform", loadCase: "A", wNPerMm: 1e300 }]);
+describe("physical ranges (lib/engine/input-bounds.ts, common practice)", () => {
+  it.each<[string, Partial<Member["spans"][number]>, string, RegExp]>([
+    ["a 1e308 mm span", { lengthMm: 1e308 }, "spans[0].lengthMm", /span length must be at most 1,000,000 mm/],
+    ["E = 13.8 MPa (GPa written bare)", { eMpa: 13.8 }, "spans[0].eMpa", /at least 100 MPa.*GPa/],
+    ["E = 2e8 MPa (GPa taken for MPa twice)", { eMpa: 2e8 }, "spans[0].eMpa", /at most 1,000,000 MPa/],
+    ["I = 1e300 mm^4", { iMm4: 1e300 }, "spans[0].iMm4", /at most 1e15 mm\^4/],
+    ["I = 1e-6 mm^4", { iMm4: 1e-6 }, "spans[0].iMm4", /at least 1 mm\^4/],
+  ])("%s is refused on its own field, not as a singular matrix", (_name, patch, path, message) => {
+    const member = createMember([{ ...createSpans([3000])[0]!, ...patch }], createSupports("pinned", "roller"), [uniform]);
     const issues = getIssues(member);
-    expect(issues[0]!.path).toBe("loads");
-    expect(issues[0]!.message).toMatch(/double precision/);
+    expect(issues.map((issue) => issue.path)).toEqual([path]);
+    expect(issues[0]!.message).toMatch(message);
+    expect(issues[0]!.message).not.toMatch(/singular/);
+  });
+
+  it("a spring stiffer than 1e10 N/mm is refused, pointing to a pinned support", () => {
+    const member = createMember(createSpans([3000]), [{ kind: "pinned" }, { kind: "spring", springNPerMm: 1e15 }], [uniform]);
+    const issues = getIssues(member);
+    expect(issues.map((issue) => issue.path)).toEqual(["supports[1].springNPerMm"]);
+    expect(issues[0]!.message).toMatch(/use pinned/);
+  });
+
+  it("loads beyond any building member's are refused on their own field, whatever their sign", () => {
+    const member = createMember(createSpans([3000]), createSupports("pinned", "roller"), [
+      { kind: "uniform", loadCase: "A", wNPerMm: 1e300 },
+      { kind: "point", loadCase: "A", atMm: 1000, pN: -1e12 },
+      { kind: "moment", loadCase: "A", atMm: 1000, mNmm: 1e15 },
+      { kind: "point", loadCase: "A", atMm: 1000, pN: 1e-9 },
+    ]);
+    const issues = getIssues(member);
+    expect(issues.map((issue) => issue.path)).toEqual(["loads[0].wNPerMm", "loads[1].pN", "loads[2].mNmm"]);
+    expect(issues[1]!.message).toMatch(/point load must be at most 1e9 N in magnitude/);
+  });
+
+  it("the largest values inside every range still solve to finite numbers", () => {
+    const member = createMember([{ lengthMm: 1e6, eMpa: 100, iMm4: 1 }], createSupports("pinned", "roller"), [{ kind: "uniform", loadCase: "A", wNPerMm: 1e5 }]);
+    expect(Array.from(solveMember(member).caseStates).every(Number.isFinite)).toBe(true);
   });
 });
