@@ -25,8 +25,11 @@ const KSI_TO_MPA = 1000 * PSI; // 1000 lbf / in^2 (NIST SP 811 Appendix B; exact
 
 const AISC_STEEL_SOURCE =
   "AISC 360-16 / Steel Construction Manual: E = 29,000 ksi, G = 11,200 ksi (from memory); density 7,850 kg/m3 (490 lb/ft3, from memory)";
+// EN 1993-1-1 3.2.6 gives E and G only; the density is EN 1991-1-1 Table A.4's. That table gives
+// steel a range, 77.0 to 78.5 kN/m3 (from memory): 7,850 kg/m3 is 77.0 kN/m3 at g = 9.81 m/s2, the
+// lower end and the nominal density of steel (common practice).
 const EN_STEEL_SOURCE =
-  "EN 1993-1-1:2005 3.2.6: E = 210,000 MPa, G = 81,000 MPa; density 7,850 kg/m3 (EN 1991-1-1 Table A.4, 77 to 78.5 kN/m3) (from memory)";
+  "EN 1993-1-1:2005 3.2.6: E = 210,000 MPa, G = 81,000 MPa (from memory); density 7,850 kg/m3, EN 1991-1-1:2002 Table A.4 (77.0 to 78.5 kN/m3; 7,850 kg/m3 is its lower end, from memory)";
 
 function createSteel(id: string, label: string, standard: "AISC" | "EN"): Material {
   return standard === "AISC"
@@ -44,13 +47,15 @@ interface TimberGrade {
 }
 
 // EN 338:2016 Table 1 and EN 14080:2013 Table 5 (from memory). Mean values: deflection uses
-// E0,mean and Gmean (EN 1995-1-1 2.2.3(2)), and self-weight the mean density.
+// E0,mean and Gmean (EN 1995-1-1 2.2.3(2)), and self-weight the mean density rho_mean.
+// EN 338:2016 changed some densities from EN 338:2009: C27 is 430 kg/m3 (rho_k 360), where the
+// 2009 edition gave 450 (rho_k 370) (both from memory).
 const TIMBER_GRADES: TimberGrade[] = [
   { id: "timber-c16", label: "Softwood C16", e0MeanMpa: 8000, gMeanMpa: 500, densityMeanKgPerM3: 370, source: "EN 338:2016 Table 1 (from memory)" },
   { id: "timber-c18", label: "Softwood C18", e0MeanMpa: 9000, gMeanMpa: 560, densityMeanKgPerM3: 380, source: "EN 338:2016 Table 1 (from memory)" },
   { id: "timber-c22", label: "Softwood C22", e0MeanMpa: 10000, gMeanMpa: 630, densityMeanKgPerM3: 410, source: "EN 338:2016 Table 1 (from memory)" },
-  { id: "timber-c24", label: "Softwood C24", e0MeanMpa: 11000, gMeanMpa: 690, densityMeanKgPerM3: 420, source: "EN 338:2016 Table 1 (from memory; also Sagline ENGINEERING.md)" },
-  { id: "timber-c27", label: "Softwood C27", e0MeanMpa: 11500, gMeanMpa: 720, densityMeanKgPerM3: 450, source: "EN 338:2016 Table 1 (from memory)" },
+  { id: "timber-c24", label: "Softwood C24", e0MeanMpa: 11000, gMeanMpa: 690, densityMeanKgPerM3: 420, source: "EN 338:2016 Table 1 (from memory)" },
+  { id: "timber-c27", label: "Softwood C27", e0MeanMpa: 11500, gMeanMpa: 720, densityMeanKgPerM3: 430, source: "EN 338:2016 Table 1 (from memory)" },
   { id: "timber-c30", label: "Softwood C30", e0MeanMpa: 12000, gMeanMpa: 750, densityMeanKgPerM3: 460, source: "EN 338:2016 Table 1 (from memory)" },
   { id: "glulam-gl24h", label: "Glulam GL24h", e0MeanMpa: 11500, gMeanMpa: 650, densityMeanKgPerM3: 420, source: "EN 14080:2013 Table 5 (from memory)" },
   { id: "glulam-gl28h", label: "Glulam GL28h", e0MeanMpa: 12600, gMeanMpa: 650, densityMeanKgPerM3: 460, source: "EN 14080:2013 Table 5 (from memory)" },

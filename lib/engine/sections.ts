@@ -5,6 +5,16 @@
  * rectangle A = bh, I = bh^3/12; hollow rectangle I = (BH^3 - bh^3)/12; round I = pi d^4/64;
  * tube I = pi (D^4 - d^4)/64; doubly symmetric I from plates, fillets ignored,
  * I = [bf d^3 - (bf - tw)(d - 2tf)^3]/12. Bending is about the axis parallel to b (h, H, d vertical).
+ *
+ * Shear areas for shear deformation (load parallel to the depth), the smaller of the published
+ * choices since a smaller shear area gives the larger, conservative deflection:
+ * - i_plate (welded I from plates): the web between the flanges, Av = hw tw with hw = d - 2tf,
+ *   EN 1993-1-1:2005 6.2.6(3)(d) with eta = 1.0 (from memory; EN 1993-1-5 5.1 recommends 1.2,
+ *   which would give a larger area and a smaller, unconservative shear deflection).
+ * - hollow_rectangle: Av = A H / (B + H), EN 1993-1-1:2005 6.2.6(3)(f), rectangular hollow
+ *   sections of uniform thickness, load parallel to the depth (from memory).
+ * - rectangle k = 5/6 (Timoshenko), round about 0.9 and tube 0.5 (common practice; the tube's
+ *   0.5 A is below EN 1993-1-1 6.2.6(3)(g)'s 2A/pi, so it errs on the conservative side).
  */
 import type { CatalogueSection } from "./model";
 
@@ -76,8 +86,9 @@ export function getSectionProperties(section: SectionShape): SectionProperties {
     }
     case "hollow_rectangle": {
       const { outerBMm: bo, outerHMm: ho, innerBMm: bi, innerHMm: hi } = section;
-      // Shear carried by the two webs, total thickness B - b over the full depth H (common practice).
-      return { areaMm2: bo * ho - bi * hi, iMm4: (bo * ho ** 3 - bi * hi ** 3) / 12, shearAreaMm2: (bo - bi) * ho };
+      const areaMm2 = bo * ho - bi * hi;
+      // EN 1993-1-1:2005 6.2.6(3)(f): Av = A h / (b + h), load parallel to the depth (from memory).
+      return { areaMm2, iMm4: (bo * ho ** 3 - bi * hi ** 3) / 12, shearAreaMm2: (areaMm2 * ho) / (bo + ho) };
     }
     case "round": {
       const areaMm2 = (Math.PI * section.dMm ** 2) / 4;
@@ -95,8 +106,9 @@ export function getSectionProperties(section: SectionShape): SectionProperties {
       return {
         areaMm2: 2 * bfMm * tfMm + webClearMm * twMm,
         iMm4: (bfMm * dMm ** 3 - (bfMm - twMm) * webClearMm ** 3) / 12,
-        // AISC 360-16 G2.1: web shear area Aw = d tw (from memory).
-        shearAreaMm2: dMm * twMm,
+        // EN 1993-1-1:2005 6.2.6(3)(d), eta = 1.0: the web between the flanges, hw tw (from memory).
+        // AISC 360-16 G2.1's Aw = d tw is a strength area and overstates the shear stiffness.
+        shearAreaMm2: webClearMm * twMm,
       };
     }
     case "explicit":

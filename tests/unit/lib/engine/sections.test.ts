@@ -5,7 +5,7 @@ import { createCatalogueIndex, findSectionProblems, getSectionProperties } from 
 
 const IN_MM = 25.4; // NIST SP 811 Appendix B.8, exact
 
-describe("shape formulas (ENGINEERING.md, Section properties)", () => {
+describe("shape formulas (any mechanics-of-materials text, e.g. Gere and Goodno, Mechanics of Materials, appendix of plane-area properties, from memory)", () => {
   it("rectangle 47 x 200: A = bh = 9,400 mm2, I = bh^3/12 = 31,333,333 mm4, shear area 5/6 A", () => {
     const p = getSectionProperties({ shape: "rectangle", bMm: 47, hMm: 200 });
     expect(p.areaMm2).toBe(9400);
@@ -18,6 +18,12 @@ describe("shape formulas (ENGINEERING.md, Section properties)", () => {
     expect(p.iMm4).toBeCloseTo((100 * 200 ** 3 - 90 * 190 ** 3) / 12, 6);
     expect(p.areaMm2).toBe(100 * 200 - 90 * 190);
   });
+  it("hollow rectangle shear area A H / (B + H) = 2,900 x 200 / 300 = 1,933.3 mm2 (EN 1993-1-1:2005 6.2.6(3)(f), from memory)", () => {
+    const p = getSectionProperties({ shape: "hollow_rectangle", outerBMm: 100, outerHMm: 200, innerBMm: 90, innerHMm: 190 });
+    expect(p.shearAreaMm2).toBeCloseTo((2900 * 200) / 300, 9);
+    // the two webs over the full depth, (B - b) H = 2,000 mm2, would overstate the shear stiffness
+    expect(p.shearAreaMm2).toBeLessThan(2000);
+  });
   it("round d = 100: I = pi d^4 / 64 = 4,908,739 mm4", () => {
     const p = getSectionProperties({ shape: "round", dMm: 100 });
     expect(p.iMm4).toBeCloseTo(4908738.5, 0);
@@ -27,11 +33,14 @@ describe("shape formulas (ENGINEERING.md, Section properties)", () => {
     expect(p.iMm4).toBeCloseTo((Math.PI * (100 ** 4 - 90 ** 4)) / 64, 6);
     expect(p.areaMm2).toBeCloseTo((Math.PI * (100 ** 2 - 90 ** 2)) / 4, 9);
   });
-  it("i_plate: I = [bf d^3 - (bf - tw)(d - 2tf)^3]/12, shear area d tw", () => {
+  it("i_plate: I = [bf d^3 - (bf - tw)(d - 2tf)^3]/12", () => {
     const p = getSectionProperties({ shape: "i_plate", bfMm: 150, tfMm: 10, dMm: 300, twMm: 7 });
     expect(p.iMm4).toBeCloseTo((150 * 300 ** 3 - 143 * 280 ** 3) / 12, 6);
     expect(p.areaMm2).toBe(2 * 150 * 10 + 280 * 7);
-    expect(p.shearAreaMm2).toBe(2100);
+  });
+  it("i_plate shear area is the web between the flanges, (d - 2tf) tw = 280 x 7 = 1,960 mm2 (EN 1993-1-1:2005 6.2.6(3)(d), eta = 1.0, from memory)", () => {
+    const p = getSectionProperties({ shape: "i_plate", bfMm: 150, tfMm: 10, dMm: 300, twMm: 7 });
+    expect(p.shearAreaMm2).toBe(1960);
   });
 });
 
