@@ -100,6 +100,8 @@ export interface ResultRow {
   governingCheck: string | null;
   utilization: number | null;
   factorOfSafety: number | null;
+  /** The governing check's signed deflection, mm (+ downward, the engine's sign); null without one. */
+  governingDeflectionMm: number | null;
 }
 
 /** Members in schedule order, keyset-paginated on member_index, filtered by outcome and category. */
@@ -117,11 +119,13 @@ export async function listResults(
           ? sql`and detail->>'error' is not null`
           : sql``;
   const rows = await sql`
-    select member_index, mark, category, pass, governing_check, utilization, factor_of_safety, detail->>'error' as error
-    from member_outcomes
-    where schedule_id = ${scheduleId} and member_index > ${options.afterIndex ?? -1}
-      ${statusFilter} ${options.category ? sql`and category = ${options.category}` : sql``}
-    order by member_index
+    select o.member_index, o.mark, o.category, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.detail->>'error' as error,
+      (select c.deflection_mm from member_checks c
+        where c.schedule_id = o.schedule_id and c.member_index = o.member_index and c.check_key = o.governing_check) as governing_deflection_mm
+    from member_outcomes o
+    where o.schedule_id = ${scheduleId} and o.member_index > ${options.afterIndex ?? -1}
+      ${statusFilter} ${options.category ? sql`and o.category = ${options.category}` : sql``}
+    order by o.member_index
     limit ${options.limit + 1}`;
   const page = rows.slice(0, options.limit).map((r) => ({
     memberIndex: r.member_index as number,
@@ -131,6 +135,7 @@ export async function listResults(
     governingCheck: (r.governing_check as string | null) ?? null,
     utilization: (r.utilization as number | null) ?? null,
     factorOfSafety: (r.factor_of_safety as number | null) ?? null,
+    governingDeflectionMm: (r.governing_deflection_mm as number | null) ?? null,
   }));
   return { rows: page, hasMore: rows.length > options.limit };
 }

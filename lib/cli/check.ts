@@ -8,6 +8,7 @@ import { readFileSync } from "node:fs";
 import { basename, extname } from "node:path";
 
 import { checkSchedule, type CheckScheduleResult } from "../engine/check-schedule";
+import { getDeflectionDirection } from "../engine/deflection-direction";
 import type { CatalogueSection, InputIssue, MemberResult } from "../engine/model";
 import { listPresetIds } from "../engine/presets";
 import { convertFromInternal } from "../engine/units";
@@ -92,6 +93,25 @@ function formatNumber(value: number | null, digits: number): string {
   return value === null || !Number.isFinite(value) ? "-" : value.toFixed(digits);
 }
 
+/** A deflection's magnitude with its direction: "12.34 down", "0.52 up" (engine sign: + downward). */
+function formatSignedDeflection(value: number, toUnit: (mm: number) => number, digits: number): string {
+  const direction = getDeflectionDirection(value);
+  const magnitude = formatNumber(toUnit(Math.abs(value)), digits);
+  return direction === "none" ? magnitude : `${magnitude} ${direction}`;
+}
+
+/**
+ * The minimum I in the schedule's own system (in^4 for US, mm^4 otherwise), rounded up so the
+ * printed figure is never below the one that passes.
+ */
+function formatMinimumI(minIMm4: number, unitSystem: string | null): string {
+  if (unitSystem === "US") {
+    const converted = convertFromInternal(minIMm4, "secondMoment", "in^4");
+    if (converted.ok) return `${(Math.ceil(converted.value * 10) / 10).toLocaleString("en-US", { minimumFractionDigits: 1, maximumFractionDigits: 1 })} in^4`;
+  }
+  return `${Math.ceil(minIMm4).toLocaleString("en-US")} mm^4`;
+}
+
 function formatTable(outcome: Extract<CheckScheduleResult, { ok: true }>): string {
   const { schedule, results, summary } = outcome;
   const deflectionUnit = schedule.unitSystem === "US" ? "in" : "mm";
@@ -106,7 +126,7 @@ function formatTable(outcome: Extract<CheckScheduleResult, { ok: true }>): strin
     return [
       r.mark,
       g ? `${g.combinationId} span ${g.spanIndex + 1}${g.spanKind === "cantilever" ? " (cantilever)" : ""}` : r.frequency ? "frequency" : "-",
-      g ? formatNumber(toUnit(Math.abs(g.deflectionMm)), digits) : "-",
+      g ? formatSignedDeflection(g.deflectionMm, toUnit, digits) : "-",
       g ? formatNumber(toUnit(g.allowedMm), digits) : "-",
       g ? formatNumber(g.utilization, 3) : "-",
       g ? formatNumber(g.factorOfSafety, 2) : "-",
@@ -127,7 +147,7 @@ function formatTable(outcome: Extract<CheckScheduleResult, { ok: true }>): strin
   for (const r of results) {
     if (r.frequency && !r.frequency.pass) out.push(`${r.mark}: first frequency ${r.frequency.hz.toFixed(2)} Hz is below ${r.frequency.minHz} Hz`);
     if (r.suggestion) {
-      out.push(`${r.mark}: needs I >= ${Math.round(r.suggestion.minIMm4).toLocaleString("en-US")} mm^4${r.suggestion.sectionName ? `; lightest passing catalogue section ${r.suggestion.sectionName}` : ""}`);
+      out.push(`${r.mark}: needs I >= ${formatMinimumI(r.suggestion.minIMm4, schedule.unitSystem)}${r.suggestion.sectionName ? `; lightest passing catalogue section ${r.suggestion.sectionName}` : ""}`);
     }
   }
   out.push(`${summary.members} members: ${summary.passed} pass, ${summary.failed} fail.`, CAUTION);

@@ -175,6 +175,23 @@ describe("the progress route", () => {
   });
 });
 
+describe("deflection direction", () => {
+  it("shows an uplift as up on the results table and the member page, a sag as down", async () => {
+    // S355 100 x 200 rectangle, 4 m, live -5 kN/m (upward): 5wL^4/(384EI) = 5 x 5 x 4000^4 /
+    // (384 x 210,000 x 6.667e7) = 1.19 mm (AISC Manual Table 3-23 case 1; E per EN 1993-1-1 3.2.6; both from memory).
+    const upliftRow = [...beamRow("PG-U1", 100, 200).slice(0, -1), "-5"];
+    const created = await uploadCsv(submitter, toCsv([BEAM_HEADER, upliftRow, beamRow("PG-D1", 100, 200)]), { name: "Uplift schedule" });
+    expect(created.status).toBe(202);
+    await waitForSchedule(submitter, created.body.id);
+    const results = await viewer.get(`/schedules/${created.body.id}`);
+    expect(results.text).toContain("Deflection (mm)");
+    expect(results.text).toMatch(/PG-U1[^]*?1\.19 up[^]*?PG-D1[^]*?1\.19 down/);
+    const member = await viewer.get(`/schedules/${created.body.id}/members/PG-U1`);
+    expect(member.text).toContain("1.19 up");
+    expect(member.text).not.toContain("1.19 down");
+  });
+});
+
 describe("the CSV export", () => {
   it("exports every result with formula prefixes neutralised", async () => {
     const response = await viewer.get(`/schedules/${scheduleId}/results.csv`).buffer(true);

@@ -1,4 +1,5 @@
 /** Display formatting for the schedules screens: never prints NaN or Infinity. */
+import { getDeflectionDirection } from "@/lib/engine/deflection-direction";
 
 export function formatNumber(value: number | null | undefined, digits = 2): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return "—";
@@ -17,6 +18,17 @@ export function formatMm(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return "—";
   const digits = Math.abs(value) >= 100 ? 0 : Math.abs(value) >= 10 ? 1 : 2;
   return formatNumber(value, digits);
+}
+
+/**
+ * A signed deflection (engine sign, + downward) as its magnitude and direction: "12.3 down",
+ * "4.50 up". A check limits the magnitude, so the sign alone would read an uplift as a sag.
+ */
+export function formatSignedMm(value: number | null | undefined): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return "—";
+  const direction = getDeflectionDirection(value);
+  const magnitude = formatMm(Math.abs(value));
+  return direction === "none" ? magnitude : `${magnitude} ${direction}`;
 }
 
 /** Second moment of area in mm^4 as mantissa and power of ten (1.234 × 10^7), or null when unusable. */

@@ -1,5 +1,5 @@
 import type { MemberCheckRow } from "@/lib/server/schedules/get-member-report";
-import { formatMm, formatNumber, formatRatio } from "./format";
+import { formatMm, formatNumber, formatRatio, formatSignedMm } from "./format";
 import { OutcomeLabel } from "./outcome-label";
 
 export type MemberChecksTableProps = { checks: MemberCheckRow[]; governingKey: string | null };
@@ -33,7 +33,7 @@ export function MemberChecksTable({ checks, governingKey }: MemberChecksTablePro
                 {c.spanIndex + 1}
                 {c.spanKind === "cantilever" ? <span className="text-ink-soft"> · cantilever</span> : null}
               </td>
-              <td className="px-3 py-1.5 text-right">{formatMm(c.deflectionMm)}</td>
+              <td className="px-3 py-1.5 text-right">{formatSignedMm(c.deflectionMm)}</td>
               <td className="px-3 py-1.5 text-right">{formatNumber(c.atMm / 1000, 3)}</td>
               <td className="px-3 py-1.5 text-right">{formatMm(c.allowedMm)}</td>
               <td className={`px-3 py-1.5 text-right ${c.pass ? "" : "font-semibold"}`}>{formatRatio(c.utilization)}</td>

@@ -27,13 +27,35 @@ function writeTemp(name: string, text: string): string {
  * Why B2 of the example fails (examples/harrowgate-mews-block-c.json): an S355 plate I-section
  * bf 100, tf 8.5, d 200, tw 5.6 mm, simply supported over L = 8000 mm, live 5.0 kN/m = 5.0 N/mm.
  * I = [bf d^3 - (bf - tw)(d - 2tf)^3] / 12 = [100 * 200^3 - 94.4 * 183^3] / 12 = 18.46e6 mm^4
- * (doubly symmetric I from plates, fillets ignored: /work/shared/ENGINEERING.md, section properties).
+ * (doubly symmetric I from plates, fillets ignored; any mechanics-of-materials text, e.g. Gere and Goodno, Mechanics of Materials, from memory).
  * E = 210,000 MPa (EN 1993-1-1:2005 3.2.6, from memory, the source lib/engine/materials.ts names for steel-s355).
  * w_inst, live alone: 5wL^4/(384EI) = 5 * 5.0 * 8000^4 / (384 * 210,000 * 18.46e6) = 68.8 mm
  * (AISC Manual Table 3-23 case 1, from memory), against the file's own override l/360 = 22.2 mm of
  * the EN 1995-1-1 7.2 preset: utilization about 3.1, so B2 fails on the live check alone (self-weight
  * is a dead load and shear deformation is off, so neither changes w_inst).
  */
+/** A 20 ft US beam, I = 204 in^4, steel-aisc, under a live line load of `wKlf` (negative is uplift). */
+function createUsBeamDoc(wKlf: number) {
+  return {
+    format: "sagline.schedule/v1",
+    name: "US beam",
+    units: { system: "US" },
+    limits: { preset: "ibc-2021-floor" },
+    members: [
+      {
+        mark: "W1",
+        category: "floor_beam",
+        quantity: 1,
+        material: "steel-aisc",
+        section: { shape: "explicit", I: 204 },
+        spans: [20],
+        supports: ["pinned", "roller"],
+        loads: [{ case: "live", type: "uniform", w: wKlf }],
+      },
+    ],
+  };
+}
+
 const CAUTION = "Screening and review aid: the engineer of record and the governing local codes decide.";
 
 describe("npm run check", { timeout: 60_000 }, () => {
@@ -148,9 +170,32 @@ describe("npm run check", { timeout: 60_000 }, () => {
     const { code, stdout } = runCli([writeTemp("us.json", JSON.stringify(doc))]);
     expect(code).toBe(0);
     expect(stdout).toContain("deflection [in]");
-    const row = /^W1\s+live span 1\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+PASS$/m.exec(stdout);
+    const row = /^W1\s+live span 1\s+([\d.]+) down\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+PASS$/m.exec(stdout);
     // Allowed: l/360 for floor live load, IBC 2021 Table 1604.3 (from memory).
     expect(row?.slice(1, 4)).toEqual([expectedIn.toFixed(3), (240 / 360).toFixed(3), (expectedIn / (240 / 360)).toFixed(3)]);
+  });
+
+  it("prints a failing US member's minimum I in in^4, never below 5wL^4 x 360 / (384 E L) (AISC Manual Table 3-23 case 1, from memory)", () => {
+    const doc = createUsBeamDoc(2.0);
+    // The minimum I meets l/360 (IBC 2021 Table 1604.3, from memory) exactly: deflection scales with 1/I
+    // here (no springs, self-weight, shear deformation or frequency), so I_min = 5wL^4 / (384 E L/360).
+    const exactIn4 = (5 * (2.0 / 12) * 240 ** 4) / (384 * 29000 * (240 / 360));
+    const { code, stdout } = runCli([writeTemp("us-fail.json", JSON.stringify(doc))]);
+    expect(code).toBe(1);
+    const match = /^W1: needs I >= ([\d,.]+) in\^4$/m.exec(stdout);
+    expect(match, stdout).not.toBeNull();
+    const printedIn4 = Number((match?.[1] ?? "").replaceAll(",", ""));
+    expect(printedIn4).toBeGreaterThanOrEqual(exactIn4);
+    expect(printedIn4).toBeLessThanOrEqual(exactIn4 * 1.001 + 0.1);
+    expect(stdout).not.toContain("mm^4");
+  });
+
+  it("shows uplift as up: the same beam under -0.8 klf deflects 0.487 in up (AISC Manual Table 3-23 case 1, from memory)", () => {
+    const expectedIn = (5 * (0.8 / 12) * 240 ** 4) / (384 * 29000 * 204);
+    const { code, stdout } = runCli([writeTemp("us-uplift.json", JSON.stringify(createUsBeamDoc(-0.8)))]);
+    expect(code).toBe(0);
+    expect(stdout).toMatch(new RegExp(`^W1\\s+live span 1\\s+${expectedIn.toFixed(3).replace(".", "\\.")} up\\s`, "m"));
+    expect(stdout).not.toMatch(/^W1\s.* down\s/m);
   });
 
   it("passes --catalogue through: the failing member gets the lightest catalogue section with enough I", () => {
