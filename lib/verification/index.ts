@@ -1,0 +1,39 @@
+/**
+ * Every group of verification cases, in the order the /verification page shows them and the unit
+ * test (tests/unit/lib/verification/index.test.ts) runs them. To add a group: one import and one
+ * entry below; the page and the test pick it up from here.
+ */
+import { CASE_E_MPA, CASE_I_MM4, closedFormCases, runCases, type ClosedFormCase, type VerifiedCase } from "./closed-form-cases";
+import { sectionMaterialCases } from "./section-material-cases";
+
+export interface VerificationGroup {
+  id: string;
+  title: string;
+  /** What the group's cases share (member, loads), shown under the title. */
+  description?: string;
+  cases: ClosedFormCase[];
+}
+
+export const VERIFICATION_GROUPS: VerificationGroup[] = [
+  {
+    id: "closed-form",
+    title: "Closed-form beam deflections and rotations",
+    description: `Handbook cases on a 6 m member with E = ${CASE_E_MPA.toLocaleString("en")} MPa and I = ${CASE_I_MM4.toExponential(1)} mm⁴ (w = 10 kN/m, P = 20 kN), solved by Sagline's solver.`,
+    cases: closedFormCases,
+  },
+  {
+    id: "sections-materials",
+    title: "Section shear areas and timber densities",
+    description: "The shear areas that shear deformation uses and the EN 338 mean densities that self-weight and frequency use, read from the libraries schedules use.",
+    cases: sectionMaterialCases,
+  },
+];
+
+export interface VerifiedGroup extends Omit<VerificationGroup, "cases"> {
+  cases: VerifiedCase[];
+}
+
+/** Runs every group's cases through the engine now. */
+export function runVerificationGroups(groups: readonly VerificationGroup[] = VERIFICATION_GROUPS): VerifiedGroup[] {
+  return groups.map((group) => ({ ...group, cases: runCases(group.cases) }));
+}
