@@ -2,7 +2,8 @@
  * Property tests of linear beam theory on generated members (seeded PRNG, 40 members each):
  * superposition, proportionality to load, mirror symmetry, L^4 / L^3 / L^2 scaling of uniform,
  * point and couple loads, and 1/E, 1/I. These are facts of linear elasticity with small
- * deflections (ENGINEERING.md, "common practice"), independent of any particular table.
+ * deflections (Euler-Bernoulli beam theory, e.g. Gere and Goodno, Mechanics of Materials, from
+ * memory; common practice), independent of any particular table.
  */
 import { describe, expect, it } from "vitest";
 import type { Load, Member, Support, SupportKind } from "../../../../lib/engine/model";

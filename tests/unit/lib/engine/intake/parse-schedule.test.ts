@@ -29,8 +29,8 @@ describe("the Harrowgate Mews example", () => {
     const b1 = getMember(schedule.members, "B1");
     expect(b1.spans).toHaveLength(1);
     expect(b1.spans[0]?.lengthMm).toBeCloseTo(6000, 9);
-    expect(b1.spans[0]?.eMpa).toBe(210000); // EN 1993-1-1 3.2.6 (from memory)
-    // I = [bf d^3 - (bf - tw)(d - 2tf)^3] / 12 (ENGINEERING.md)
+    expect(b1.spans[0]?.eMpa).toBe(210000); // EN 1993-1-1:2005 3.2.6 (from memory)
+    // I = [bf d^3 - (bf - tw)(d - 2tf)^3] / 12, doubly symmetric I from plates, fillets ignored (Gere and Goodno, Mechanics of Materials, appendix of plane-area properties, from memory)
     expect(b1.spans[0]?.iMm4).toBeCloseTo((150 * 300 ** 3 - (150 - 7.1) * (300 - 21.4) ** 3) / 12, 3);
     expect(b1.spans[0]?.densityKgPerM3).toBe(7850); // EN 1991-1-1 Table A.4 (from memory)
     expect(b1.loads).toEqual([
@@ -58,12 +58,13 @@ describe("the Harrowgate Mews example", () => {
     expect(bal.supports).toEqual([{ kind: "pinned" }, { kind: "roller" }, { kind: "free" }]);
     expect(bal.loads[1]).toEqual({ kind: "uniform", loadCase: "live", wNPerMm: 4, startMm: 4000, endMm: 5500 });
     expect(bal.loads[2]).toEqual({ kind: "point", loadCase: "live", atMm: 5500, pN: 1500 });
-    // (B H^3 - b h^3)/12 with b = B - 2t, h = H - 2t (ENGINEERING.md)
+    // (B H^3 - b h^3)/12 with b = B - 2t, h = H - 2t (Gere and Goodno, Mechanics of Materials, appendix of plane-area properties, from memory)
     expect(bal.spans[0]?.iMm4).toBeCloseTo((100 * 200 ** 3 - 87.4 * 187.4 ** 3) / 12, 3);
   });
 
   it("G1: the second span takes its own section; glulam creep k_def 0.8 in service class 2 (EN 1995-1-1 Table 3.2, from memory)", () => {
     const g1 = getMember(schedule.members, "G1");
+    // bh^3/12 (Gere and Goodno, Mechanics of Materials, appendix of plane-area properties, from memory)
     expect(g1.spans[0]?.iMm4).toBeCloseTo((90 * 315 ** 3) / 12, 3);
     expect(g1.spans[1]?.iMm4).toBeCloseTo((90 * 270 ** 3) / 12, 3);
     expect(g1.spans[1]?.eMpa).toBe(11500); // EN 14080 GL24h E0,mean (from memory)
@@ -111,7 +112,7 @@ describe("US customary schedules", () => {
 });
 
 describe("supports and sections", () => {
-  it("reads a spring support's stiffness in springStiffness units (SI default kN/mm)", () => {
+  it("reads a spring support's stiffness in springStiffness units (SI default kN/mm; 1 kN = 1,000 N by SI definition)", () => {
     const member = parseOk(createDoc({ supports: ["pinned", { kind: "spring", stiffness: 2.5 }] })).members[0];
     expect(member?.supports[1]).toEqual({ kind: "spring", springNPerMm: 2500 });
   });
@@ -129,7 +130,8 @@ describe("supports and sections", () => {
     expect(plain?.spans[0]?.gMpa).toBeUndefined();
     const withShear = parseOk(createDoc({ shearDeformation: true })).members[0];
     expect(withShear?.includeShearDeformation).toBe(true);
-    expect(withShear?.spans[0]?.gMpa).toBe(81000); // EN 1993-1-1 3.2.6 (from memory)
+    expect(withShear?.spans[0]?.gMpa).toBe(81000); // EN 1993-1-1:2005 3.2.6 (from memory)
+    // k = 5/6 for a solid rectangle (Timoshenko beam theory, e.g. Timoshenko and Gere, Mechanics of Materials, from memory)
     expect(withShear?.spans[0]?.shearAreaMm2).toBeCloseTo((5 / 6) * 100 * 200, 9);
   });
 
@@ -190,7 +192,7 @@ describe("creep methods through intake", () => {
     );
     const member = parseOk(doc).members[0];
     expect(member?.materialCreepFactor).toBeCloseTo(1.6, 12);
-    expect(member?.spans[0]?.eMpa).toBeCloseTo(4700 * Math.sqrt(30), 9); // ACI 318-19 19.2.2.1
+    expect(member?.spans[0]?.eMpa).toBeCloseTo(4700 * Math.sqrt(30), 9); // ACI 318-19 19.2.2.1(b) (from memory)
   });
 
   it("timber under NDS: K_cr 1.5 gives an added factor of 0.5 (NDS 3.5.2, from memory)", () => {
@@ -205,5 +207,6 @@ describe("creep methods through intake", () => {
 
 it("reads a hollow rectangle given by outer and inner sizes", () => {
   const member = parseOk(createDoc({ section: { shape: "hollow_rectangle", B: 100, H: 200, b: 90, h: 190 } })).members[0];
+  // (B H^3 - b h^3)/12 (Gere and Goodno, Mechanics of Materials, appendix of plane-area properties, from memory)
   expect(member?.spans[0]?.iMm4).toBeCloseTo((100 * 200 ** 3 - 90 * 190 ** 3) / 12, 6);
 });

@@ -153,7 +153,7 @@ describe("shear deformation (Timoshenko beam)", () => {
   const spans = [{ lengthMm: L, eMpa: E_MPA, iMm4: I_MM4, gMpa: G, shearAreaMm2: shearArea }];
 
   it("simple span, uniform load: 5wL^4/(384EI) + wL^2/(8kGA)", () => {
-    // bending: AISC Manual Table 3-23 (from memory); shear term: ENGINEERING.md, Timoshenko beam
+    // bending: AISC Manual Table 3-23 (from memory); shear term: Timoshenko and Gere, Mechanics of Materials, Timoshenko beam
     // theory (from memory), v_s = M(x)/(kGA) with M(L/2) = wL^2/8
     const member = createMember(spans, createSupports("pinned", "roller"), [{ kind: "uniform", loadCase: "A", wNPerMm: w }], withShear);
     const { solution, factors } = solveCase(member);
