@@ -145,24 +145,7 @@ describe("npm run check", { timeout: 60_000 }, () => {
   });
 
   it("prints deflections in inches for a US schedule: 5wL^4/(384EI) = 0.487 in against l/360 = 0.667 in (AISC Manual Table 3-23 case 1)", () => {
-    const doc = {
-      format: "sagline.schedule/v1",
-      name: "US beam",
-      units: { system: "US" },
-      limits: { preset: "ibc-2021-floor" },
-      members: [
-        {
-          mark: "W1",
-          category: "floor_beam",
-          quantity: 1,
-          material: "steel-aisc",
-          section: { shape: "explicit", I: 204 },
-          spans: [20],
-          supports: ["pinned", "roller"],
-          loads: [{ case: "live", type: "uniform", w: 0.8 }],
-        },
-      ],
-    };
+    const doc = createUsBeamDoc(0.8);
     // w = 0.8 klf = 0.8/12 kip/in, L = 240 in, I = 204 in^4;
     // E = 29,000 ksi (AISC 360-16 / Steel Construction Manual, from memory: the source lib/engine/materials.ts names for steel-aisc).
     // 5wL^4/(384EI): AISC Manual Table 3-23 case 1 (from memory).
