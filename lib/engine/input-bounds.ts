@@ -51,21 +51,23 @@ export const QUANTITY_BOUNDS: Record<QuantityKind, QuantityBound> = {
  * Returns why an internal-unit value is outside its kind's range, or null when it is inside.
  * Zero passes here: whether zero is allowed is the field's own rule (positive, non-negative).
  * `signed` values (loads, positions) are checked against the largest magnitude only.
- * `toUnit` converts an internal value to the caller's unit for the message (identity by default).
+ * `toInternalFactor` is the caller's unit in internal units (1 mm per mm, 304.8 mm per ft), so the
+ * message states the limit in the unit the value was written in. Allocates nothing when in range
+ * (intake calls it for every quantity).
  */
 export function describeOutOfBounds(
   kind: QuantityKind,
   internalValue: number,
   unitLabel: string,
   signed = false,
-  toUnit: (internal: number) => number = (v) => v,
+  toInternalFactor = 1,
 ): string | null {
   const bound = QUANTITY_BOUNDS[kind];
   const magnitude = Math.abs(internalValue);
   if (magnitude <= bound.maxAbs && (magnitude === 0 || signed || magnitude >= bound.minAbs)) return null;
   const limit = magnitude > bound.maxAbs ? bound.maxAbs : bound.minAbs;
   const side = magnitude > bound.maxAbs ? "at most" : "at least";
-  return `must be ${side} ${formatBound(toUnit(limit))} ${unitLabel}${signed ? " in magnitude" : ""}: expected ${bound.reason}`;
+  return `must be ${side} ${formatBound(limit / toInternalFactor)} ${unitLabel}${signed ? " in magnitude" : ""}: expected ${bound.reason}`;
 }
 
 function formatBound(value: number): string {

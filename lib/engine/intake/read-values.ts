@@ -222,7 +222,7 @@ export function readQuantity(ctx: ReadContext, value: unknown, path: FieldPath, 
     return null;
   }
   if (!checkRule(ctx, internal, path, rule)) return null;
-  const outOfBounds = describeOutOfBounds(kind, internal, found.unit.symbol, rule === "any", (v) => v / found.unit.toInternal);
+  const outOfBounds = describeOutOfBounds(kind, internal, found.unit.symbol, rule === "any", found.unit.toInternal);
   if (outOfBounds !== null) {
     ctx.issues.add(path, outOfBounds);
     return null;
