@@ -1,4 +1,5 @@
-let addressCounter = 0;
+// A random start per test process, then consecutive: distinct within a file, and files practically never meet.
+let addressCounter = Math.floor(Math.random() * 2 ** 31);
 
 /**
  * A distinct documentation address (RFC 3849, 2001:db8::/32) per call, sent as X-Forwarded-For
@@ -7,6 +8,6 @@ let addressCounter = 0;
  */
 export function nextTestAddress(): string {
   addressCounter += 1;
-  const n = addressCounter + Math.floor(Math.random() * 1_000_000);
-  return `2001:db8:${(n >> 16) & 0xffff}:${n & 0xffff}::1`;
+  const n = addressCounter;
+  return `2001:db8:${((n >>> 16) & 0xffff).toString(16)}:${(n & 0xffff).toString(16)}::1`;
 }

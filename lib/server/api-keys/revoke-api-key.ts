@@ -20,7 +20,7 @@ export async function revokeDescendantKeys(tx: Tx, organizationId: string, paren
       union
       select k.id from api_keys k join tree on k.created_by_api_key_id = tree.id
     )
-    update api_keys set revoked_at = ${now}, updated_at = ${now}
+    update api_keys set revoked_at = ${now.toISOString()}::timestamptz, updated_at = ${now.toISOString()}::timestamptz
     where id in (select id from tree) and revoked_at is null`);
 }
 

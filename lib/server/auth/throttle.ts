@@ -2,7 +2,7 @@ import { createHash } from "node:crypto";
 
 import { getEnv } from "@/lib/env";
 import { DomainError } from "@/lib/server/errors";
-import { getRedis } from "@/lib/server/redis";
+import { getRedis, waitForRedis } from "@/lib/server/redis";
 import { withTimeout } from "@/lib/server/with-timeout";
 
 const REDIS_TIMEOUT_MS = 500;
@@ -39,8 +39,11 @@ function counterKey(rule: ThrottleRule, subject: string): string {
  */
 export async function countAttempt(rule: ThrottleRule, subject: string): Promise<ThrottleVerdict> {
   try {
+    const redis = getRedis();
+    // The producer connection queues nothing offline: a fresh process waits for it to be ready.
+    await waitForRedis(redis, REDIS_TIMEOUT_MS);
     const reply = (await withTimeout(
-      getRedis().eval(INCREMENT_SCRIPT, 1, counterKey(rule, subject), String(rule.windowMs)),
+      redis.eval(INCREMENT_SCRIPT, 1, counterKey(rule, subject), String(rule.windowMs)),
       REDIS_TIMEOUT_MS,
       "throttle counter timed out",
     )) as [number, number];

@@ -31,7 +31,8 @@ describe("password reset requests", () => {
     const known = await requestPasswordReset(member.email, freshAddress()).catch((e: unknown) => e);
     const ghost = await requestPasswordReset(unknown, freshAddress()).catch((e: unknown) => e);
     expect(known).toMatchObject({ code: "rate_limited" });
-    expect({ ...(ghost as object), message: (ghost as Error).message }).toEqual({ ...(known as object), message: (known as Error).message });
+    // Retry-After may differ by the second between the two counters; the answer's words may not.
+    expect({ code: (ghost as { code: string }).code, message: (ghost as Error).message }).toEqual({ code: "rate_limited", message: (known as Error).message });
   });
 
   it("allow twenty per client address an hour over every e-mail address", async () => {
@@ -43,16 +44,15 @@ describe("password reset requests", () => {
 
 describe("choosing a new password", () => {
   it("hashes the password only for a link that checks out", async () => {
+    const member = await createTestMember("viewer");
+    const token = createSecretToken();
+    await getDb().insert(passwordResets).values({ id: createId("rst"), userId: member.id, tokenHash: hashToken(token), expiresAt: new Date(Date.now() + 60_000) });
     const hashed = vi.mocked(hashPassword);
     hashed.mockClear();
     for (let i = 0; i < 3; i += 1) {
       await expect(resetPassword(createSecretToken(), "a-brand-new-passphrase", freshAddress())).rejects.toMatchObject({ code: "not_found" });
     }
     expect(hashed).not.toHaveBeenCalled();
-
-    const member = await createTestMember("viewer");
-    const token = createSecretToken();
-    await getDb().insert(passwordResets).values({ id: createId("rst"), userId: member.id, tokenHash: hashToken(token), expiresAt: new Date(Date.now() + 60_000) });
     await resetPassword(token, "a-brand-new-passphrase", freshAddress());
     expect(hashed).toHaveBeenCalledTimes(1);
   });

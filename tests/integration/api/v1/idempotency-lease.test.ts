@@ -6,7 +6,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { getSql } from "@/db/client";
 import { demoOrganizations } from "@/db/seed-data";
 import { DomainError } from "@/lib/server/errors";
-import { runIdempotent, type StoredResponse } from "@/lib/server/http/idempotency";
+import { hashRequest, runIdempotent, type StoredResponse } from "@/lib/server/http/idempotency";
 import { APP_URL } from "@/tests/helpers/app";
 import { createTestKey } from "@/tests/helpers/api-keys";
 import { createBeam, createScheduleDoc } from "@/tests/helpers/schedules";
@@ -59,10 +59,13 @@ describe("Idempotency-Key leases", () => {
 
   it("a key whose holder's lease is still live answers 409", async () => {
     const idem = `live-${Date.now()}`;
+    const doc = createScheduleDoc([createBeam("L-2")]);
+    // The hash the server computes for this very request (content type, query, body bytes).
+    const sameRequest = hashRequest(["application/json", "", new TextEncoder().encode(JSON.stringify(doc))]);
     await getSql()`
       insert into idempotency_keys (organization_id, key, request_hash, state, lease_token, lease_expires_at, expires_at)
-      values (${organizationId}, ${idem}, 'x', 'in_flight', 'live', now() + interval '1 minute', now() + interval '24 hours')`;
-    const busy = await post(createScheduleDoc([createBeam("L-2")]), idem);
+      values (${organizationId}, ${idem}, ${sameRequest}, 'in_flight', 'live', now() + interval '1 minute', now() + interval '24 hours')`;
+    const busy = await post(doc, idem);
     expect(busy.status).toBe(409);
     expect(busy.body).toMatchObject({ type: "https://sagline.dev/problems/idempotency-in-flight", status: 409 });
   });

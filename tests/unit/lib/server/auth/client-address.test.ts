@@ -28,3 +28,12 @@ describe("normaliseAddress", () => {
     expect(normaliseAddress("::1")).toBe("0:0:0:0::/64");
   });
 });
+
+describe("the tests' own addresses", () => {
+  it("are valid and distinct, so each test sign-in counts on its own", async () => {
+    const { nextTestAddress } = await import("@/tests/helpers/test-address");
+    const keys = Array.from({ length: 200 }, () => normaliseAddress(nextTestAddress()));
+    expect(keys).not.toContain("unknown");
+    expect(new Set(keys).size).toBe(200);
+  });
+});
