@@ -19,6 +19,18 @@ export default defineConfig({
         },
       },
       {
+        // Adversarial suite against the running services: same settings as integration.
+        extends: true,
+        test: {
+          name: "hostile",
+          include: ["tests/hostile/**/*.test.ts"],
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          fileParallelism: false,
+          setupFiles: ["tests/helpers/integration-setup.ts"],
+        },
+      },
+      {
         extends: true,
         test: {
           name: "e2e",

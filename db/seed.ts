@@ -33,7 +33,8 @@ if (count > 0) {
       displayPrefix: displayPrefixOf(demoApiKey.secret),
       secretHash: hashApiKey(demoApiKey.secret),
       scopes: [...demoApiKey.scopes],
-      createdByUserId: "usr_demointegrator",
+      // schedules:write needs a role that may submit: the integrator could not have made this key.
+      createdByUserId: "usr_demoadmin",
     });
   });
   console.log("[sagline] demo data seeded");

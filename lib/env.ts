@@ -14,6 +14,10 @@ const envSchema = z.object({
   MAIL_UI_URL: z.string().url().optional(),
   SIGN_IN_MAX_FAILURES: z.coerce.number().int().positive().default(5),
   SIGN_IN_LOCK_MINUTES: z.coerce.number().int().positive().default(15),
+  /** Sign-in attempts per client address per SIGN_IN_LOCK_MINUTES window, over every account. */
+  SIGN_IN_MAX_PER_ADDRESS: z.coerce.number().int().positive().default(50),
+  /** Proxies in front of the web process that append to X-Forwarded-For (0: none, development). */
+  TRUSTED_PROXY_COUNT: z.coerce.number().int().min(0).max(10).default(0),
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -1,3 +1,4 @@
+import { purgeExpiredRows } from "@/lib/server/maintenance/purge-expired-rows";
 import { reconcileSchedules } from "@/lib/server/schedules/reconcile-schedules";
 import { dispatchOutboxUntilEmpty, reconcileDeliveries } from "@/lib/server/webhooks/dispatch-outbox";
 
@@ -11,6 +12,8 @@ export const periodicTasks: PeriodicTask[] = [
   { name: "reconcile-schedules", everyMs: Number(process.env.RECONCILE_EVERY_MS ?? 10_000), run: async () => void (await reconcileSchedules()) },
   // Webhooks: fan the outbox out every second; re-queue overdue delivery attempts (Redis lost them).
   { name: "dispatch-outbox", everyMs: Number(process.env.OUTBOX_DISPATCH_EVERY_MS ?? 1_000), run: async () => void (await dispatchOutboxUntilEmpty()) },
+  // Old sign-in throttles, Idempotency-Keys and reset links: their rows would otherwise grow forever.
+  { name: "purge-expired-rows", everyMs: Number(process.env.PURGE_EVERY_MS ?? 600_000), run: async () => void (await purgeExpiredRows()) },
   { name: "reconcile-deliveries", everyMs: Number(process.env.DELIVERY_RECONCILE_EVERY_MS ?? 15_000), run: async () => void (await reconcileDeliveries()) },
 ];
 

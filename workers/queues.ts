@@ -8,6 +8,7 @@ import { createProducerConnection } from "./connection";
 export const queueNames = {
   checkMembers: "check-members",
   deliverWebhook: "deliver-webhook",
+  accountMail: "account-mail",
 } as const;
 
 export type QueueName = (typeof queueNames)[keyof typeof queueNames];

@@ -5,6 +5,7 @@ import { z } from "zod";
 
 import { runAction, type ActionResult } from "@/lib/server/auth/guards";
 import { requestPasswordReset as sendReset, resetPassword as applyReset } from "@/lib/server/auth/password-reset";
+import { getRequestAddress } from "@/lib/server/auth/request-address";
 import { acceptInvitation as accept } from "@/lib/server/people/accept-invitation";
 import { emailSchema, newPasswordSchema, personNameSchema, tokenSchema } from "@/lib/server/validation";
 
@@ -12,7 +13,7 @@ const resetRequestSchema = z.object({ email: emailSchema });
 
 export async function requestPasswordReset(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
   return runAction("(auth)/requestPasswordReset", resetRequestSchema, formData, async ({ email }) => {
-    await sendReset(email);
+    await sendReset(email, await getRequestAddress());
     // The same words whether or not the account exists.
     return { ok: true, message: "If an account uses that address, a reset link is on its way. It expires in 60 minutes." };
   });
@@ -24,7 +25,7 @@ const passwordPairSchema = z
 
 export async function resetPassword(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
   const result = await runAction("(auth)/resetPassword", passwordPairSchema, formData, async ({ token, password }) => {
-    await applyReset(token, password);
+    await applyReset(token, password, await getRequestAddress());
     return { ok: true, message: "Password changed." };
   });
   if (result.ok) redirect("/sign-in?notice=password-changed");
@@ -47,7 +48,7 @@ export async function acceptInvitation(_prev: ActionResult | null, formData: For
     }
   });
   const result = await runAction("(auth)/acceptInvitation", schema, formData, async ({ token, name, password }) => {
-    await accept({ token, name, password });
+    await accept({ token, name, password, clientAddress: await getRequestAddress() });
     return { ok: true, message: "Invitation accepted." };
   });
   if (result.ok) redirect("/sign-in?notice=invitation-accepted");

@@ -143,11 +143,18 @@ export const idempotencyKeys = pgTable(
     key: text().notNull(),
     requestHash: text().notNull(),
     state: text({ enum: ["in_flight", "completed"] }).notNull(),
+    /** While in flight: who holds the key, and until when (a retry may take over after that). */
+    leaseToken: text(),
+    leaseExpiresAt: timestamp({ withTimezone: true }),
     responseStatus: integer(),
     responseBody: jsonb(),
     expiresAt: timestamp({ withTimezone: true }).notNull(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("idempotency_keys_organization_id_key_idx").on(t.organizationId, t.key)],
+  (t) => [
+    uniqueIndex("idempotency_keys_organization_id_key_idx").on(t.organizationId, t.key),
+    // The scheduled purge deletes by expiry.
+    index("idempotency_keys_expires_at_idx").on(t.expiresAt),
+  ],
 );

@@ -41,12 +41,20 @@ export const memberships = pgTable(
   ],
 );
 
-/** Failed sign-ins per normalised e-mail, known or not, so throttling reveals nothing. */
-export const signInThrottles = pgTable("sign_in_throttles", {
-  emailKey: text().primaryKey(),
-  failures: integer().notNull().default(0),
-  windowStartedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-  lockedUntil: timestamp({ withTimezone: true }),
-  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-  updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-});
+/**
+ * Sign-in attempts per normalised e-mail, known or not, so throttling reveals nothing. `failures`
+ * counts the attempts of the window, each counted before its password check; a success deletes
+ * the row. Rows are purged on a schedule once their window and lock are over.
+ */
+export const signInThrottles = pgTable(
+  "sign_in_throttles",
+  {
+    emailKey: text().primaryKey(),
+    failures: integer().notNull().default(0),
+    windowStartedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    lockedUntil: timestamp({ withTimezone: true }),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("sign_in_throttles_updated_at_idx").on(t.updatedAt)],
+);

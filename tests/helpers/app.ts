@@ -6,6 +6,8 @@ import request from "supertest";
 import { demoUsers } from "@/db/seed-data";
 import type { Role } from "@/db/schema";
 
+import { nextTestAddress } from "./test-address";
+
 /** The server npm test started; tests talk to it over real HTTP. */
 export const APP_URL = process.env.APP_URL ?? "http://127.0.0.1:3793";
 export const MAIL_UI_URL = process.env.MAIL_UI_URL ?? "http://127.0.0.1:3794/";
@@ -23,6 +25,8 @@ export async function signIn(email: string, password: string): Promise<{ agent: 
   const response = await agent
     .post("/api/auth/callback/credentials")
     .set("Origin", APP_URL)
+    // Each sign-in from an address of its own: the per-address throttle is tested on its own.
+    .set("X-Forwarded-For", nextTestAddress())
     .type("form")
     .send({ csrfToken: csrf.body.csrfToken, email, password, json: "true" });
   const url = typeof response.body?.url === "string" ? new URL(response.body.url) : null;

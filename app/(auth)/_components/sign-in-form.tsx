@@ -8,10 +8,12 @@ import { useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { toSameOriginPath } from "@/lib/server/auth/safe-callback";
 
 const messages: Record<string, string> = {
   invalid: "That e-mail and password do not match an account.",
   locked: "Too many attempts for this account. Wait 15 minutes or reset the password.",
+  throttled: "Too many sign-in attempts from your network. Wait 15 minutes and try again.",
 };
 
 export type SignInFormProps = { callbackUrl: string; notice?: string };
@@ -32,8 +34,8 @@ export function SignInForm({ callbackUrl, notice }: SignInFormProps) {
     const result = await signIn("credentials", { email, password, redirect: false });
     setPending(false);
     if (!result || result.error) return setError(messages[result?.error ?? ""] ?? messages.invalid!);
-    // Only same-site paths: a crafted callbackUrl must not send people elsewhere.
-    router.push(callbackUrl.startsWith("/") && !callbackUrl.startsWith("//") ? callbackUrl : "/schedules");
+    // The page already reduced callbackUrl to a path of ours; checked again where it is used.
+    router.push(toSameOriginPath(callbackUrl, window.location.origin));
     router.refresh();
   }
 

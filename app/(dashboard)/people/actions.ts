@@ -5,7 +5,7 @@ import { z } from "zod";
 
 import { getActionOrganizationId, runAction, type ActionResult } from "@/lib/server/auth/guards";
 import { inviteMember as invite } from "@/lib/server/people/invite-member";
-import { changeMemberRole as changeRole, removeMember as remove, revokeInvitation as revoke } from "@/lib/server/people/manage-members";
+import { changeMemberRole as changeRole, creatorKeyChoices, removeMember as remove, revokeInvitation as revoke } from "@/lib/server/people/manage-members";
 import { emailSchema, idSchema, roleSchema } from "@/lib/server/validation";
 
 const inviteSchema = z.object({ email: emailSchema, role: roleSchema });
@@ -28,13 +28,17 @@ export async function changeMemberRole(_prev: ActionResult | null, formData: For
   });
 }
 
-const membershipSchema = z.object({ membershipId: idSchema("mem") });
+const removeSchema = z.object({
+  membershipId: idSchema("mem"),
+  creatorKeys: z.enum(creatorKeyChoices, { error: "Choose whether the API keys this person made keep working." }),
+});
 
 export async function removeMember(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
-  return runAction("people/removeMember", membershipSchema, formData, async ({ membershipId }, context) => {
-    await remove({ organizationId: getActionOrganizationId(context), membershipId });
+  return runAction("people/removeMember", removeSchema, formData, async ({ membershipId, creatorKeys }, context) => {
+    const { revokedKeys } = await remove({ organizationId: getActionOrganizationId(context), membershipId, creatorKeys });
     revalidatePath("/people");
-    return { ok: true, message: "Removed from the organization." };
+    const keys = creatorKeys === "keep" ? " The API keys they made keep working." : ` ${revokedKeys} API key${revokedKeys === 1 ? "" : "s"} they made revoked.`;
+    return { ok: true, message: `Removed from the organization.${keys}` };
   });
 }
 

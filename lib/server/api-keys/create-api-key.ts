@@ -1,7 +1,7 @@
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 
-import { getDb } from "@/db/client";
-import { apiKeys, organizations, type ApiKeyScope } from "@/db/schema";
+import { getDb, type Tx } from "@/db/client";
+import { apiKeys, organizations, type ApiKeyScope, type Role } from "@/db/schema";
 import { DomainError, type FieldError } from "@/lib/server/errors";
 import { createId } from "@/lib/server/ids";
 
@@ -9,7 +9,7 @@ import type { ApiKeyView } from "./api-key-view";
 import { createApiKeySecret, displayPrefixOf, hashApiKey } from "./key-format";
 import { API_KEY_EXPIRES_DAYS_MAX, API_KEY_NAME_MAX_LENGTH } from "./limits";
 import { getApiKeyView } from "./list-api-keys";
-import { apiKeyScopes, isApiKeyScope, listMissingScopes } from "./scopes";
+import { apiKeyScopes, isApiKeyScope, listGrantableScopes, listMissingScopes } from "./scopes";
 
 const DAY_MS = 86_400_000;
 
@@ -19,8 +19,11 @@ export interface CreateApiKeyInput {
   scopes: readonly string[];
   /** Whole days from now; absent means the key does not expire. */
   expiresInDays?: number | null;
-  /** Who asks: a person, another key (which may only grant scopes it holds), or the command line. */
-  createdBy: { userId: string } | { apiKeyId: string; scopes: readonly string[] } | { commandLine: true };
+  /**
+   * Who asks: a person (who may only grant scopes their role allows), another key (only scopes it
+   * holds, expiring no later than it), or the command line.
+   */
+  createdBy: { userId: string; role: Role } | { apiKeyId: string; scopes: readonly string[] } | { commandLine: true };
 }
 
 function assertCreateInput(input: CreateApiKeyInput): { name: string; scopes: ApiKeyScope[]; expiresInDays: number | null } {
@@ -42,15 +45,51 @@ function assertCreateInput(input: CreateApiKeyInput): { name: string; scopes: Ap
 }
 
 /**
+ * The parent key, locked against revocation until this transaction ends, so a child is never
+ * made from a key that is being revoked (revokeApiKey then finds the child and revokes it too).
+ */
+async function lockParentKey(tx: Tx, organizationId: string, parentId: string): Promise<{ expiresAt: Date | null }> {
+  const [parent] = await tx
+    .select({ revokedAt: apiKeys.revokedAt, expiresAt: apiKeys.expiresAt })
+    .from(apiKeys)
+    .where(and(eq(apiKeys.id, parentId), eq(apiKeys.organizationId, organizationId)))
+    .for("share");
+  if (!parent || parent.revokedAt || (parent.expiresAt && parent.expiresAt.getTime() <= Date.now())) {
+    throw new DomainError("invalid_api_key", "The API key making this request is no longer valid.");
+  }
+  return { expiresAt: parent.expiresAt };
+}
+
+function assertRoleMayGrant(role: Role, scopes: readonly ApiKeyScope[]): void {
+  const grantable = listGrantableScopes(role);
+  const refused = scopes.filter((s) => !grantable.includes(s));
+  if (refused.length > 0) {
+    throw new DomainError("forbidden", `Your role cannot grant ${refused.join(", ")}.`, [
+      { pointer: "/scopes", message: `Your role may grant ${grantable.join(", ") || "no scopes"}.` },
+    ]);
+  }
+}
+
+/** The earlier of the requested expiry and the parent's: a child key never outlives its parent. */
+function capExpiry(requested: Date | null, parentExpiresAt: Date | null): Date | null {
+  if (!parentExpiresAt) return requested;
+  if (!requested) return parentExpiresAt;
+  return requested.getTime() < parentExpiresAt.getTime() ? requested : parentExpiresAt;
+}
+
+/**
  * Creates a key and returns it with its secret, which exists only in this answer: the database
- * keeps its SHA-256. A key creating a key cannot hand out a scope it lacks.
+ * keeps its SHA-256. A key creating a key cannot hand out a scope it lacks, and its child expires
+ * no later than it does and is revoked with it; a person cannot grant more than their role allows.
  */
 export async function createApiKey(input: CreateApiKeyInput): Promise<{ apiKey: ApiKeyView; secret: string }> {
   const { name, scopes, expiresInDays } = assertCreateInput(input);
-  if ("apiKeyId" in input.createdBy) {
-    const missing = listMissingScopes(input.createdBy.scopes, scopes);
+  const createdBy = input.createdBy;
+  if ("apiKeyId" in createdBy) {
+    const missing = listMissingScopes(createdBy.scopes, scopes);
     if (missing.length) throw new DomainError("insufficient_scope", `This key cannot grant scopes it does not hold: ${missing.join(", ")}.`);
   }
+  if ("role" in createdBy) assertRoleMayGrant(createdBy.role, scopes);
   const [organization] = await getDb().select({ id: organizations.id }).from(organizations).where(eq(organizations.id, input.organizationId));
   if (!organization) throw new DomainError("not_found", "That organization was not found.");
 
@@ -58,21 +97,23 @@ export async function createApiKey(input: CreateApiKeyInput): Promise<{ apiKey: 
   const id = createId("key");
   // Millisecond precision, so the keyset cursor (a JS Date) matches the stored value exactly.
   const now = new Date();
-  await getDb()
-    .insert(apiKeys)
-    .values({
+  const requestedExpiry = expiresInDays === null ? null : new Date(now.getTime() + expiresInDays * DAY_MS);
+  await getDb().transaction(async (tx) => {
+    const parent = "apiKeyId" in createdBy ? await lockParentKey(tx, input.organizationId, createdBy.apiKeyId) : null;
+    await tx.insert(apiKeys).values({
       id,
       organizationId: input.organizationId,
       name,
       displayPrefix: displayPrefixOf(secret),
       secretHash: hashApiKey(secret),
       scopes,
-      expiresAt: expiresInDays === null ? null : new Date(now.getTime() + expiresInDays * DAY_MS),
-      createdByUserId: "userId" in input.createdBy ? input.createdBy.userId : null,
-      createdByApiKeyId: "apiKeyId" in input.createdBy ? input.createdBy.apiKeyId : null,
+      expiresAt: capExpiry(requestedExpiry, parent?.expiresAt ?? null),
+      createdByUserId: "userId" in createdBy ? createdBy.userId : null,
+      createdByApiKeyId: "apiKeyId" in createdBy ? createdBy.apiKeyId : null,
       createdAt: now,
       updatedAt: now,
     });
+  });
   const apiKey = await getApiKeyView(input.organizationId, id);
   if (!apiKey) throw new Error(`api key ${id} vanished after insert`);
   return { apiKey, secret };

@@ -1,4 +1,5 @@
-import { apiKeyScopes, type ApiKeyScope } from "@/db/schema";
+import { apiKeyScopes, type ApiKeyScope, type Role } from "@/db/schema";
+import { hasPermission, type Permission } from "@/lib/server/auth/permissions";
 
 export { apiKeyScopes, type ApiKeyScope };
 
@@ -23,4 +24,20 @@ export function hasScope(granted: readonly string[], needed: ApiKeyScope): boole
 /** The scopes of `wanted` that `granted` does not hold, in table order (a key cannot grant more than it has). */
 export function listMissingScopes(granted: readonly string[], wanted: readonly ApiKeyScope[]): ApiKeyScope[] {
   return apiKeyScopes.filter((s) => wanted.includes(s) && !granted.includes(s));
+}
+
+/**
+ * The dashboard permission a person needs to grant each scope: a key never does more than its
+ * maker's role may. An integrator (integrations only) cannot mint a key that submits schedules.
+ */
+export const scopePermissions: Record<ApiKeyScope, Permission> = {
+  "schedules:write": "schedules:submit",
+  "results:read": "organization:read",
+  "webhooks:manage": "integrations:manage",
+  "keys:manage": "integrations:manage",
+};
+
+/** The scopes a person of this role may put on a key, in table order. */
+export function listGrantableScopes(role: Role): ApiKeyScope[] {
+  return apiKeyScopes.filter((s) => hasPermission(role, scopePermissions[s]));
 }

@@ -3,11 +3,12 @@ import CredentialsProvider from "next-auth/providers/credentials";
 
 import { getEnv } from "@/lib/env";
 
+import { readClientAddress } from "./client-address";
 import { PASSWORD_MAX_LENGTH } from "./passwords";
+import { toSameOriginPath } from "./safe-callback";
 import { signInWithPassword } from "./sign-in";
 
 export const SIGN_IN_ERROR_INVALID = "invalid";
-export const SIGN_IN_ERROR_LOCKED = "locked";
 
 // The token carries only the user id and when it was issued; role and organization are read
 // from PostgreSQL on every request so that a role change or a removal applies immediately.
@@ -20,19 +21,25 @@ export function getAuthOptions(): NextAuthOptions {
       CredentialsProvider({
         name: "E-mail and password",
         credentials: { email: { type: "email" }, password: { type: "password" } },
-        async authorize(credentials) {
+        async authorize(credentials, request) {
           const email = String(credentials?.email ?? "");
           const password = String(credentials?.password ?? "");
           if (!email || !password || email.length > 320 || password.length > PASSWORD_MAX_LENGTH) {
             throw new Error(SIGN_IN_ERROR_INVALID);
           }
-          const outcome = await signInWithPassword(email, password);
-          if (!outcome.ok) throw new Error(outcome.reason === "locked" ? SIGN_IN_ERROR_LOCKED : SIGN_IN_ERROR_INVALID);
+          const headers = new Headers(Object.entries(request?.headers ?? {}).map(([k, v]) => [k, String(v)] as [string, string]));
+          const outcome = await signInWithPassword(email, password, readClientAddress(headers, getEnv().TRUSTED_PROXY_COUNT));
+          // The error code is the sign-in page's message key: "invalid", "locked" or "throttled".
+          if (!outcome.ok) throw new Error(outcome.reason);
           return { id: outcome.userId, sessionVersion: outcome.sessionVersion };
         },
       }),
     ],
     callbacks: {
+      // Every redirect next-auth makes stays on this app (see toSameOriginPath for the corpus).
+      redirect({ url, baseUrl }) {
+        return `${new URL(baseUrl).origin}${toSameOriginPath(url, baseUrl)}`;
+      },
       jwt({ token, user }) {
         if (user) {
           token.uid = user.id;

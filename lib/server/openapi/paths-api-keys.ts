@@ -15,7 +15,7 @@ export const apiKeyOperations = {
     operationId: "createApiKey",
     tags: ["API keys"],
     summary: "Create an API key",
-    description: "The answer carries the full key once; Sagline stores only its SHA-256. A key can grant only scopes it holds.",
+    description: "The answer carries the full key once; Sagline stores only its SHA-256. A key can grant only scopes it holds; the new key expires no later than the key that made it (a later or missing expiresInDays is cut to that date) and is revoked with it.",
     requestBody: { required: true, content: { "application/json": { schema: { $ref: "#/components/schemas/ApiKeyCreate" } } } },
     responses: {
       "201": jsonResponse("Created; `key` is the secret, shown this once.", "ApiKeyCreated"),
@@ -28,7 +28,7 @@ export const apiKeyOperations = {
     operationId: "revokeApiKey",
     tags: ["API keys"],
     summary: "Revoke an API key",
-    description: "Takes effect on the key's next request. Revoking again keeps the first revocation time.",
+    description: "Takes effect on the key's next request, for this key and every key made with it. Revoking again keeps the first revocation time.",
     parameters: [pathParameter("keyId", "The key's id (`key_...`), not its secret.")],
     responses: { "200": jsonResponse("The revoked key.", "ApiKey"), "404": problemResponse("No such key in this organization.") },
   },

@@ -1,3 +1,4 @@
+import { IDEMPOTENCY_LEASE_SECONDS } from "@/lib/server/http/idempotency";
 import { RESULT_PAGE_DEFAULT, RESULT_PAGE_MAX, SCHEDULE_PAGE_DEFAULT, SCHEDULE_PAGE_MAX } from "@/lib/server/schedules/page-limits";
 
 import { jsonResponse, linkHeader, pageParameters, pathParameter, problemResponse, queryParameter, type Operation } from "./operations";
@@ -26,7 +27,7 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
           name: "Idempotency-Key",
           in: "header",
           required: false,
-          description: `Repeats of a completed request with the same key return the first answer; the same key with another body is 422; while the first is still running, 409. Keys are scoped to the organization and expire after ${limits.idempotencyHours} hours.`,
+          description: `Repeats of a completed request with the same key return the first answer; the same key with another body is 422; while the first is still running, 409. A request that died holds its key for at most ${IDEMPOTENCY_LEASE_SECONDS} seconds, then a retry runs it. Keys are scoped to the organization and expire after ${limits.idempotencyHours} hours.`,
           schema: { type: "string", minLength: 1, maxLength: 255 },
         },
         ...csvParameters,

@@ -3,6 +3,8 @@ import { and, eq, isNull, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { invitations, memberships, organizations, users } from "@/db/schema";
 import { hashPassword, verifyPassword } from "@/lib/server/auth/passwords";
+import { assertAttemptsAllowed } from "@/lib/server/auth/throttle";
+import { invitationAddressRule, invitationTokenRule } from "@/lib/server/auth/throttle-rules";
 import { DomainError } from "@/lib/server/errors";
 import { createId, hashToken } from "@/lib/server/ids";
 
@@ -34,8 +36,17 @@ export async function getOpenInvitation(token: string) {
 /**
  * Accepts an invitation once: a new account gets a name and password; an existing account proves
  * itself with its password. The invitation row is locked so two clicks cannot both succeed.
+ * Throttled per link and per client address before anything else, since an existing account's
+ * password is checked here too (a second door to guess it through).
  */
-export async function acceptInvitation(input: { token: string; name?: string; password: string }) {
+export async function acceptInvitation(input: { token: string; name?: string; password: string; clientAddress: string }) {
+  await assertAttemptsAllowed(
+    [
+      { rule: invitationTokenRule, subject: hashToken(input.token) },
+      { rule: invitationAddressRule, subject: input.clientAddress },
+    ],
+    "Too many attempts to accept this invitation.",
+  );
   return getDb().transaction(async (tx) => {
     const [invitation] = await tx
       .select()

@@ -1,7 +1,8 @@
 import { and, eq, isNull, ne, sql } from "drizzle-orm";
 
 import { getDb, type Tx } from "@/db/client";
-import { invitations, memberships, type Role } from "@/db/schema";
+import { apiKeys, invitations, memberships, type Role } from "@/db/schema";
+import { revokeDescendantKeys } from "@/lib/server/api-keys/revoke-api-key";
 import { DomainError } from "@/lib/server/errors";
 
 async function lockMembership(tx: Tx, organizationId: string, membershipId: string) {
@@ -33,11 +34,33 @@ export async function changeMemberRole(input: { organizationId: string; membersh
   });
 }
 
-export async function removeMember(input: { organizationId: string; membershipId: string }) {
-  await getDb().transaction(async (tx) => {
+/** What happens to the API keys a removed person made in this organization: the admin chooses. */
+export const creatorKeyChoices = ["revoke", "keep"] as const;
+export type CreatorKeyChoice = (typeof creatorKeyChoices)[number];
+
+/**
+ * Removes a person from the organization. Their API keys there (and keys made with those keys)
+ * are revoked in the same transaction unless the admin chose to keep them working; there is no
+ * default, so nobody's keys outlive them by accident. Returns how many keys were revoked.
+ */
+export async function removeMember(input: { organizationId: string; membershipId: string; creatorKeys: CreatorKeyChoice }): Promise<{ revokedKeys: number }> {
+  return getDb().transaction(async (tx) => {
     const row = await lockMembership(tx, input.organizationId, input.membershipId);
     if (row.role === "admin") await assertAnotherAdminRemains(tx, input.organizationId, row.id);
     await tx.delete(memberships).where(eq(memberships.id, row.id));
+    if (input.creatorKeys === "keep") return { revokedKeys: 0 };
+    const now = new Date();
+    const revoked = await tx
+      .update(apiKeys)
+      .set({ revokedAt: now, updatedAt: now })
+      .where(and(eq(apiKeys.organizationId, input.organizationId), eq(apiKeys.createdByUserId, row.userId), isNull(apiKeys.revokedAt)))
+      .returning({ id: apiKeys.id });
+    const made = await tx
+      .select({ id: apiKeys.id })
+      .from(apiKeys)
+      .where(and(eq(apiKeys.organizationId, input.organizationId), eq(apiKeys.createdByUserId, row.userId)));
+    await revokeDescendantKeys(tx, input.organizationId, made.map((k) => k.id), now);
+    return { revokedKeys: revoked.length };
   });
 }
 

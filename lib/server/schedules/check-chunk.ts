@@ -55,9 +55,13 @@ export async function checkChunk(scheduleId: string, chunkIndex: number): Promis
   const passed = outcomes.filter((o) => o.result?.pass).length;
   const errored = outcomes.filter((o) => o.error !== null).length;
   const wrote = await sql.begin(async (tx) => {
-    // Only this chunk's row is locked: results and the chunk's counts commit together, and
-    // concurrent chunks of the schedule never wait for each other (result tables have no
-    // foreign key, and the schedule's progress is summed from its chunks).
+    // Results and the chunk's counts commit together; concurrent chunks of the schedule never
+    // wait for each other (shared locks agree, result tables have no foreign key, and the
+    // schedule's progress is summed from its chunks).
+    // A shared lock on the schedule: failSchedule and completion take a stronger one, so results
+    // never land after the schedule has ended, and ending waits for results already being written.
+    const [schedule] = await tx`select status from schedules where id = ${scheduleId} for share`;
+    if (!schedule || schedule.status === "completed" || schedule.status === "failed") return false;
     const [locked] = await tx`select done_at from schedule_chunks where schedule_id = ${scheduleId} and chunk_index = ${chunkIndex} for update`;
     if (!locked || locked.done_at) return false;
     await copyRows(tx, "member_outcomes", ["schedule_id", "member_index", "mark", "category", "pass", "governing_check", "utilization", "factor_of_safety", "detail"], outcomeRows(scheduleId, outcomes));

@@ -4,7 +4,7 @@ import { decodeUtf8, readBodyBytes } from "@/lib/server/http/read-body";
 
 import { assertMatchesScheduleSchema, parseJsonBody, readCsvParameters, readScheduleCsv } from "./read-schedule-body";
 import { scheduleLinks } from "./represent";
-import { submitSchedule, type SubmitScheduleInput } from "./submit-schedule";
+import { submitSchedule, type SubmitScheduleInput, type SubmittedSchedule } from "./submit-schedule";
 
 /** Stated in the API docs: the largest body POST /api/v1/schedules reads. */
 export const MAX_SCHEDULE_BODY_BYTES = 64 * 1024 * 1024;
@@ -59,9 +59,16 @@ export async function submitScheduleRequest(request: Request, submitter: Submitt
   const type = fullType.split(";")[0]!.trim().toLowerCase();
   const bytes = await readBodyBytes(request, MAX_SCHEDULE_BODY_BYTES);
   const hashThisRequest = () => hashRequest([type, url.searchParams.toString(), bytes]);
-  return runIdempotent(submitter.organizationId, request.headers.get("idempotency-key"), hashThisRequest, async () => {
+  const toResponse = (created: SubmittedSchedule): StoredResponse => ({ status: 202, body: { ...created, links: scheduleLinks(created.id) } });
+  return runIdempotent(submitter.organizationId, request.headers.get("idempotency-key"), hashThisRequest, async (completeKey) => {
     const submission = await buildSubmission(fullType, type, bytes, url.searchParams);
-    const created = await submitSchedule({ ...submitter, ...submission, callbackEndpointId: url.searchParams.get("callbackEndpointId") });
-    return { status: 202, body: { ...created, links: scheduleLinks(created.id) } };
+    const created = await submitSchedule({
+      ...submitter,
+      ...submission,
+      callbackEndpointId: url.searchParams.get("callbackEndpointId"),
+      // The key's answer commits with the schedule: a retry replays it or finds no schedule.
+      inTransaction: (tx, stored) => completeKey(tx, toResponse(stored)),
+    });
+    return toResponse(created);
   });
 }

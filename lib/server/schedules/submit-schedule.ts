@@ -3,6 +3,8 @@ import { mapEnginePath } from "@/lib/engine/check-schedule";
 import { parseSchedule, type ParsedSchedule } from "@/lib/engine/intake";
 import type { InputIssue } from "@/lib/engine/model";
 import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
+import type { TransactionSql } from "postgres";
+
 import { getSql } from "@/db/client";
 import { DomainError, type FieldError } from "@/lib/server/errors";
 import { createId } from "@/lib/server/ids";
@@ -23,6 +25,8 @@ export interface SubmitScheduleInput {
   projectId?: string | null;
   /** Re-addresses issues to where the person can find them (CSV rows); JSON pointers otherwise. */
   toFieldErrors?: (issues: InputIssue[]) => FieldError[];
+  /** Runs inside the storing transaction, e.g. to complete an Idempotency-Key with the answer. */
+  inTransaction?: (tx: TransactionSql, created: SubmittedSchedule) => Promise<void>;
 }
 
 export interface SubmittedSchedule {
@@ -120,8 +124,8 @@ export async function submitSchedule(input: SubmitScheduleInput): Promise<Submit
 
   const sql = getSql();
   if (input.callbackEndpointId) await assertCallbackEndpoint(input.organizationId, input.callbackEndpointId);
-  const [row] = await sql.begin(async (tx) => {
-    const inserted = await tx`
+  const created = await sql.begin(async (tx) => {
+    const [inserted] = await tx`
       insert into schedules (id, organization_id, project_id, name, reference, status, source, submitted_by_user_id, api_key_id,
         callback_endpoint_id, profile, header, member_count, chunk_count, queued_at)
       values (${id}, ${input.organizationId}, ${input.projectId ?? null}, ${parsed.name}, ${parsed.reference}, 'queued', ${input.source},
@@ -139,12 +143,14 @@ export async function submitSchedule(input: SubmitScheduleInput): Promise<Submit
           values (${id}, ${chunk}, ${first}, ${last - first}, ${tx.array(chunkMarks)}, ${chunkTexts[chunk]!})`;
       }),
     );
-    return inserted;
+    const stored: SubmittedSchedule = { id, status: "queued", memberCount: members.length, createdAt: new Date(inserted!.created_at as string).toISOString() };
+    await input.inTransaction?.(tx, stored);
+    return stored;
   });
 
   // Queued after commit; if Redis is away the reconciler queues it from PostgreSQL later.
   await enqueueChunks(id, Array.from({ length: chunkCount }, (_, i) => i)).catch((error: Error) =>
     console.error(`[sagline] schedule ${id} stored but not queued yet (${error.message}); the reconciler will queue it`),
   );
-  return { id, status: "queued", memberCount: members.length, createdAt: new Date(row!.created_at as string).toISOString() };
+  return created;
 }

@@ -136,18 +136,29 @@ export async function revealEndpointSecret(input: { organizationId: string; endp
 /**
  * Issues a new secret. The old one keeps signing alongside it (two signatures per delivery) until
  * the overlap ends, so the receiver can switch without losing a delivery. A second rotation during
- * an overlap replaces the previous secret with the one being retired.
+ * an overlap replaces the previous secret with the one being retired. Rotations of one endpoint
+ * queue on its row lock, so each hands out exactly the secret it stored and retires the one the
+ * rotation before it stored.
  */
 export async function rotateEndpointSecret(input: { organizationId: string; endpointId: string; overlapMs?: number }): Promise<{ secret: string; previousSecretExpiresAt: Date }> {
-  const row = await getEndpointRow(input.organizationId, input.endpointId);
-  const now = new Date();
-  const previousSecretExpiresAt = new Date(now.getTime() + (input.overlapMs ?? getWebhookConfig().rotationOverlapMs));
-  const secret = createSigningSecret();
-  await getDb()
-    .update(webhookEndpoints)
-    .set({ secret, previousSecret: row.secret, previousSecretExpiresAt, updatedAt: now })
-    .where(and(eq(webhookEndpoints.id, row.id), eq(webhookEndpoints.secret, row.secret)));
-  return { secret, previousSecretExpiresAt };
+  return getDb().transaction(async (tx) => {
+    const [row] = await tx
+      .select({ id: webhookEndpoints.id, secret: webhookEndpoints.secret })
+      .from(webhookEndpoints)
+      .where(and(eq(webhookEndpoints.id, input.endpointId), eq(webhookEndpoints.organizationId, input.organizationId)))
+      .for("update");
+    const current = assertFound(row, "The webhook endpoint");
+    const now = new Date();
+    const previousSecretExpiresAt = new Date(now.getTime() + (input.overlapMs ?? getWebhookConfig().rotationOverlapMs));
+    const secret = createSigningSecret();
+    const [stored] = await tx
+      .update(webhookEndpoints)
+      .set({ secret, previousSecret: current.secret, previousSecretExpiresAt, updatedAt: now })
+      .where(eq(webhookEndpoints.id, current.id))
+      .returning({ secret: webhookEndpoints.secret });
+    if (stored?.secret !== secret) throw new Error(`webhook endpoint ${current.id}: the rotated secret was not stored`);
+    return { secret, previousSecretExpiresAt };
+  });
 }
 
 /** Sends webhook.test to this endpoint only (it is not fanned out to other subscribers). */

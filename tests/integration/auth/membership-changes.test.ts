@@ -23,7 +23,7 @@ describe("membership changes", () => {
     const member = await createTestMember("engineer");
     const { agent } = await signIn(member.email, member.password);
     expect((await agent.get("/schedules").redirects(0)).status).toBe(200);
-    await removeMember({ organizationId, membershipId: member.membershipId });
+    await removeMember({ organizationId, membershipId: member.membershipId, creatorKeys: "revoke" });
     expect((await agent.get("/schedules").redirects(0)).status).toBe(403);
   });
 
@@ -36,7 +36,7 @@ describe("membership changes", () => {
       .from(memberships)
       .where(and(eq(memberships.organizationId, demoOrganizations.fabricator.id), eq(memberships.role, "admin")));
     await expect(changeMemberRole({ organizationId: demoOrganizations.fabricator.id, membershipId: admin!.id, role: "viewer" })).rejects.toMatchObject({ code: "conflict" });
-    await expect(removeMember({ organizationId: demoOrganizations.fabricator.id, membershipId: admin!.id })).rejects.toMatchObject({ code: "conflict" });
+    await expect(removeMember({ organizationId: demoOrganizations.fabricator.id, membershipId: admin!.id, creatorKeys: "keep" })).rejects.toMatchObject({ code: "conflict" });
   });
 
   it("treats another organization's membership exactly like a missing one", async () => {

@@ -45,7 +45,7 @@ export type CreatedKey = { secret: string; name: string; prefix: string };
 
 export async function createApiKey(_prev: ActionResult<CreatedKey> | null, formData: FormData): Promise<ActionResult<CreatedKey>> {
   return runAction("keys/createApiKey", createSchema, formData, async ({ name, scopes, expiresInDays }, context) => {
-    const { apiKey, secret } = await create({ organizationId: getActionOrganizationId(context), name, scopes, expiresInDays, createdBy: { userId: context!.user.id } });
+    const { apiKey, secret } = await create({ organizationId: getActionOrganizationId(context), name, scopes, expiresInDays, createdBy: { userId: context!.user.id, role: context!.active!.role } });
     revalidatePath("/integrations/keys");
     return { ok: true, message: `Key "${apiKey.name}" created.`, data: { secret, name: apiKey.name, prefix: apiKey.prefix } };
   });

@@ -3,7 +3,7 @@ import Link from "next/link";
 
 import { API_KEY_EXPIRES_DAYS_MAX, API_KEY_NAME_MAX_LENGTH } from "@/lib/server/api-keys/limits";
 import { listApiKeys } from "@/lib/server/api-keys/list-api-keys";
-import { adminScopes, apiKeyScopes, scopeDescriptions } from "@/lib/server/api-keys/scopes";
+import { adminScopes, listGrantableScopes, scopeDescriptions } from "@/lib/server/api-keys/scopes";
 import { requirePage } from "@/lib/server/auth/guards";
 
 import { PageHeader } from "../../_components/page-header";
@@ -18,7 +18,8 @@ const CONSOLE_KEY_LIMIT = 200;
 export default async function ApiKeysPage() {
   const context = await requirePage("/integrations/keys");
   const { items, next } = await listApiKeys({ organizationId: context.active!.organizationId, limit: CONSOLE_KEY_LIMIT });
-  const scopes = apiKeyScopes.map((scope) => ({ scope, description: scopeDescriptions[scope], admin: adminScopes.includes(scope) }));
+  // Only the scopes this person's role may grant (createApiKey enforces the same rule).
+  const scopes = listGrantableScopes(context.active!.role).map((scope) => ({ scope, description: scopeDescriptions[scope], admin: adminScopes.includes(scope) }));
   return (
     <>
       <PageHeader title="API keys" lead={`Keys that let partner systems call the Sagline API for ${context.active!.organizationName}.`}>

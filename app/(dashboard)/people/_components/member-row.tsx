@@ -29,6 +29,15 @@ export function MemberRow({ membershipId, name, email, role, isSelf }: MemberRow
       <td className="py-2">
         <ActionForm action={removeMember} label={`Remove ${name}`} className="flex flex-col gap-1">
           <input type="hidden" name="membershipId" value={membershipId} />
+          <fieldset className="text-xs">
+            <legend className="text-ink-soft">API keys {name} made</legend>
+            <label className="mr-3 inline-flex items-center gap-1">
+              <input type="radio" name="creatorKeys" value="revoke" required /> revoke them
+            </label>
+            <label className="inline-flex items-center gap-1">
+              <input type="radio" name="creatorKeys" value="keep" required /> keep them working
+            </label>
+          </fieldset>
           <SubmitButton tone="danger" pendingLabel="Removing…" aria-label={`Remove ${name}`}>
             Remove
           </SubmitButton>

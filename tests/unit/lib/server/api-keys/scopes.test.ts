@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 
-import { adminScopes, apiKeyScopes, hasScope, isApiKeyScope, listMissingScopes, scopeDescriptions } from "@/lib/server/api-keys/scopes";
+import { adminScopes, apiKeyScopes, hasScope, isApiKeyScope, listGrantableScopes, listMissingScopes, scopeDescriptions } from "@/lib/server/api-keys/scopes";
 
 describe("API key scopes", () => {
   it("are exactly the four the API checks, two of them administrative", () => {
@@ -26,5 +26,17 @@ describe("API key scopes", () => {
     expect(isApiKeyScope("results:read")).toBe(true);
     expect(isApiKeyScope("Results:Read")).toBe(false);
     expect(isApiKeyScope("results:write")).toBe(false);
+  });
+});
+
+describe("scopes a role may grant", () => {
+  it.each([
+    ["admin", ["schedules:write", "results:read", "webhooks:manage", "keys:manage"]],
+    ["engineer", ["schedules:write", "results:read"]],
+    ["integrator", ["results:read", "webhooks:manage", "keys:manage"]],
+    ["submitter", ["schedules:write", "results:read"]],
+    ["viewer", ["results:read"]],
+  ] as const)("%s: %j", (role, expected) => {
+    expect(listGrantableScopes(role)).toEqual(expected);
   });
 });
