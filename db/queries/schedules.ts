@@ -100,6 +100,9 @@ export interface ResultRow {
   governingCheck: string | null;
   utilization: number | null;
   factorOfSafety: number | null;
+  /** The governing deflection check's limit l/N and achieved l/N; null when the frequency governs. */
+  limitRatio: number | null;
+  achievedRatio: number | null;
 }
 
 /** Members in schedule order, keyset-paginated on member_index, filtered by outcome and category. */
@@ -117,7 +120,7 @@ export async function listResults(
           ? sql`and detail->>'error' is not null`
           : sql``;
   const rows = await sql`
-    select member_index, mark, category, pass, governing_check, utilization, factor_of_safety, detail->>'error' as error
+    select member_index, mark, category, pass, governing_check, utilization, factor_of_safety, limit_ratio, achieved_ratio, detail->>'error' as error
     from member_outcomes
     where schedule_id = ${scheduleId} and member_index > ${options.afterIndex ?? -1}
       ${statusFilter} ${options.category ? sql`and category = ${options.category}` : sql``}
@@ -131,6 +134,8 @@ export async function listResults(
     governingCheck: (r.governing_check as string | null) ?? null,
     utilization: (r.utilization as number | null) ?? null,
     factorOfSafety: (r.factor_of_safety as number | null) ?? null,
+    limitRatio: (r.limit_ratio as number | null) ?? null,
+    achievedRatio: (r.achieved_ratio as number | null) ?? null,
   }));
   return { rows: page, hasMore: rows.length > options.limit };
 }
@@ -140,7 +145,7 @@ export async function getMemberResult(scheduleId: string, mark: string) {
   // The chunk holding the mark, and the member's place in it (marks are unique in a schedule).
   const [member] = await sql`
     select c.first_member + p.position - 1 as member_index, c.marks[p.position] as mark, c.members::json -> (p.position - 1) as input,
-      s.header, coalesce(o.category, c.members::json -> (p.position - 1) ->> 'category') as category, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.detail, o.member_index is not null as checked
+      s.header, coalesce(o.category, c.members::json -> (p.position - 1) ->> 'category') as category, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.limit_ratio, o.achieved_ratio, o.detail, o.member_index is not null as checked
     from schedule_chunks c
       cross join lateral (select array_position(c.marks, ${mark}::text) as position) p
       join schedules s on s.id = c.schedule_id
@@ -148,7 +153,7 @@ export async function getMemberResult(scheduleId: string, mark: string) {
     where c.schedule_id = ${scheduleId} and p.position is not null`;
   if (!member) return null;
   const checks = await sql`
-    select check_key, combination_id, span_index, span_kind, deflection_mm, at_mm, allowed_mm, utilization, factor_of_safety, pass
+    select check_key, combination_id, span_index, span_kind, deflection_mm, at_mm, allowed_mm, utilization, factor_of_safety, pass, limit_ratio, achieved_ratio
     from member_checks where schedule_id = ${scheduleId} and member_index = ${member.member_index} order by check_key`;
   return { member, checks };
 }
