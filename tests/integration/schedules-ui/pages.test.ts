@@ -181,7 +181,7 @@ describe("the CSV export", () => {
     expect(response.status).toBe(200);
     expect(response.headers["content-type"]).toContain("text/csv");
     const lines = response.text.trim().split("\r\n");
-    expect(lines[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety");
+    expect(lines[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety,limit_ratio,achieved_ratio");
     expect(lines).toHaveLength(10);
     // OWASP CSV injection guidance: a leading = + - @ is prefixed with a quote.
     expect(response.text).toContain(`"'=HYPERLINK(""http://evil.example"",""open"")"`);
