@@ -167,3 +167,23 @@ describe("engineers' figures: achieved l/N beside the limit l/N", () => {
     expect(findCheck(result.checks, "live").achievedRatio).toBeNull();
   });
 });
+
+describe("profile validation of the new fields", () => {
+  it("refuses a non-positive cantilever limit ratio and a negative IBC creep factor, by path", () => {
+    const profile: LimitProfile = {
+      id: "p",
+      label: "p",
+      source: "test",
+      cantileverSpanMultiplier: 2,
+      combinations: [{ id: "total", label: "total", factors: { live: 1 }, sustainedFactors: { dead: 1 }, creep: "ibc_creep_component", limitRatio: 240, cantileverLimitRatio: 0 }],
+    };
+    expect(() => checkMember(createSimpleBeam({ dead: wDead, live: wLive }, { ibcCreepComponentFactor: -1 }), profile)).toThrow(
+      expect.objectContaining({
+        issues: [
+          { path: "profile.combinations[0].cantileverLimitRatio", message: "the cantilever limit ratio (length / N) must be a positive finite number" },
+          { path: "profile.combinations[0].creep", message: 'combination "total" uses the IBC 2021 Table 1604.3 creep component but the member has no ibcCreepComponentFactor (a finite number >= 0)' },
+        ],
+      }),
+    );
+  });
+});
