@@ -102,6 +102,9 @@ export interface ResultRow {
   factorOfSafety: number | null;
   /** The governing check's signed deflection, mm (+ downward, the engine's sign); null without one. */
   governingDeflectionMm: number | null;
+  /** The governing deflection check's limit l/N and achieved l/N; null when the frequency governs. */
+  limitRatio: number | null;
+  achievedRatio: number | null;
 }
 
 /** Members in schedule order, keyset-paginated on member_index, filtered by outcome and category. */
@@ -119,7 +122,7 @@ export async function listResults(
           ? sql`and detail->>'error' is not null`
           : sql``;
   const rows = await sql`
-    select o.member_index, o.mark, o.category, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.detail->>'error' as error,
+    select o.member_index, o.mark, o.category, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.limit_ratio, o.achieved_ratio, o.detail->>'error' as error,
       (select c.deflection_mm from member_checks c
         where c.schedule_id = o.schedule_id and c.member_index = o.member_index and c.check_key = o.governing_check) as governing_deflection_mm
     from member_outcomes o
@@ -136,6 +139,8 @@ export async function listResults(
     utilization: (r.utilization as number | null) ?? null,
     factorOfSafety: (r.factor_of_safety as number | null) ?? null,
     governingDeflectionMm: (r.governing_deflection_mm as number | null) ?? null,
+    limitRatio: (r.limit_ratio as number | null) ?? null,
+    achievedRatio: (r.achieved_ratio as number | null) ?? null,
   }));
   return { rows: page, hasMore: rows.length > options.limit };
 }
@@ -145,7 +150,7 @@ export async function getMemberResult(scheduleId: string, mark: string) {
   // The chunk holding the mark, and the member's place in it (marks are unique in a schedule).
   const [member] = await sql`
     select c.first_member + p.position - 1 as member_index, c.marks[p.position] as mark, c.members::json -> (p.position - 1) as input,
-      s.header, coalesce(o.category, c.members::json -> (p.position - 1) ->> 'category') as category, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.detail, o.member_index is not null as checked
+      s.header, coalesce(o.category, c.members::json -> (p.position - 1) ->> 'category') as category, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.limit_ratio, o.achieved_ratio, o.detail, o.member_index is not null as checked
     from schedule_chunks c
       cross join lateral (select array_position(c.marks, ${mark}::text) as position) p
       join schedules s on s.id = c.schedule_id
@@ -153,7 +158,7 @@ export async function getMemberResult(scheduleId: string, mark: string) {
     where c.schedule_id = ${scheduleId} and p.position is not null`;
   if (!member) return null;
   const checks = await sql`
-    select check_key, combination_id, span_index, span_kind, deflection_mm, at_mm, allowed_mm, utilization, factor_of_safety, pass
+    select check_key, combination_id, span_index, span_kind, deflection_mm, at_mm, allowed_mm, utilization, factor_of_safety, pass, limit_ratio, achieved_ratio
     from member_checks where schedule_id = ${scheduleId} and member_index = ${member.member_index} order by check_key`;
   return { member, checks };
 }

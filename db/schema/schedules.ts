@@ -66,6 +66,9 @@ export const memberOutcomes = pgTable(
     governingCheck: text(),
     utilization: doublePrecision(),
     factorOfSafety: doublePrecision(),
+    /** The governing deflection check's limit l/N and achieved l/N; null when the frequency governs or there is none. */
+    limitRatio: doublePrecision(),
+    achievedRatio: doublePrecision(),
     /**
      * Engine output beyond the checks: frequency, suggestion, or the error; null when there is
      * none (most passing members). json: written often, never queried inside.
@@ -96,6 +99,9 @@ export const memberChecks = pgTable(
     utilization: doublePrecision().notNull(),
     factorOfSafety: doublePrecision(),
     pass: boolean().notNull(),
+    /** Limit l/N the check used and achieved l/N (null for zero deflection); null on rows written before they were stored. */
+    limitRatio: doublePrecision(),
+    achievedRatio: doublePrecision(),
   },
   (t) => [primaryKey({ columns: [t.scheduleId, t.memberIndex, t.checkKey] })],
 );

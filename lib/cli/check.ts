@@ -112,6 +112,11 @@ function formatMinimumI(minIMm4: number, unitSystem: string | null): string {
   return `${Math.ceil(minIMm4).toLocaleString("en-US")} mm^4`;
 }
 
+/** "l/523" for an engineer's span ratio; "-" when there is none (zero deflection). */
+function formatSpanRatio(ratio: number | null | undefined): string {
+  return ratio === null || ratio === undefined || !Number.isFinite(ratio) ? "-" : `l/${Math.round(ratio)}`;
+}
+
 function formatTable(outcome: Extract<CheckScheduleResult, { ok: true }>): string {
   const { schedule, results, summary } = outcome;
   const deflectionUnit = schedule.unitSystem === "US" ? "in" : "mm";
@@ -120,21 +125,25 @@ function formatTable(outcome: Extract<CheckScheduleResult, { ok: true }>): strin
     return converted.ok ? converted.value : mm;
   };
   const digits = deflectionUnit === "in" ? 3 : 2;
-  const header = ["mark", "governing check", `deflection [${deflectionUnit}]`, `allowed [${deflectionUnit}]`, "utilization", "FoS", "pass"];
+  const header = ["mark", "governing check", `deflection [${deflectionUnit}]`, `allowed [${deflectionUnit}]`, "achieved", "limit", "utilization", "FoS", "pass"];
   const rows = results.map((r: MemberResult) => {
     const g = r.governing;
+    const overall = r.governingCheck ?? null;
+    const byFrequency = overall?.kind === "frequency" && r.frequency !== null;
     return [
       r.mark,
-      g ? `${g.combinationId} span ${g.spanIndex + 1}${g.spanKind === "cantilever" ? " (cantilever)" : ""}` : r.frequency ? "frequency" : "-",
-      g ? formatSignedDeflection(g.deflectionMm, toUnit, digits) : "-",
-      g ? formatNumber(toUnit(g.allowedMm), digits) : "-",
-      g ? formatNumber(g.utilization, 3) : "-",
-      g ? formatNumber(g.factorOfSafety, 2) : "-",
+      byFrequency ? "frequency" : g ? `${g.combinationId} span ${g.spanIndex + 1}${g.spanKind === "cantilever" ? " (cantilever)" : ""}` : "-",
+      !byFrequency && g ? formatSignedDeflection(g.deflectionMm, toUnit, digits) : "-",
+      !byFrequency && g ? formatNumber(toUnit(g.allowedMm), digits) : "-",
+      byFrequency ? `${formatNumber(r.frequency!.hz, 2)} Hz` : formatSpanRatio(g?.achievedRatio),
+      byFrequency ? `>= ${r.frequency!.minHz} Hz` : formatSpanRatio(g?.limitRatio),
+      overall ? formatNumber(overall.utilization, 3) : "-",
+      overall ? formatNumber(overall.factorOfSafety, 2) : "-",
       r.pass ? "PASS" : "FAIL",
     ];
   });
   const widths = header.map((h, c) => Math.max(h.length, ...rows.map((row) => (row[c] ?? "").length)));
-  const line = (cells: string[]) => cells.map((cell, c) => (c >= 2 && c <= 5 ? cell.padStart(widths[c] ?? 0) : cell.padEnd(widths[c] ?? 0))).join("  ").trimEnd();
+  const line = (cells: string[]) => cells.map((cell, c) => (c >= 2 && c <= 7 ? cell.padStart(widths[c] ?? 0) : cell.padEnd(widths[c] ?? 0))).join("  ").trimEnd();
   const out = [
     `${schedule.name}${schedule.reference ? ` (${schedule.reference})` : ""}`,
     `Limits: ${schedule.profile.label} - ${schedule.profile.source}`,
@@ -145,6 +154,7 @@ function formatTable(outcome: Extract<CheckScheduleResult, { ok: true }>): strin
     "",
   ];
   for (const r of results) {
+    for (const note of r.notes ?? []) out.push(`${r.mark}: ${note}`);
     if (r.frequency && !r.frequency.pass) out.push(`${r.mark}: first frequency ${r.frequency.hz.toFixed(2)} Hz is below ${r.frequency.minHz} Hz`);
     if (r.suggestion) {
       out.push(`${r.mark}: needs I >= ${formatMinimumI(r.suggestion.minIMm4, schedule.unitSystem)}${r.suggestion.sectionName ? `; lightest passing catalogue section ${r.suggestion.sectionName}` : ""}`);
@@ -168,6 +178,7 @@ function createResultsDocument(outcome: Extract<CheckScheduleResult, { ok: true 
       category: r.category,
       pass: r.pass,
       governing: r.governing,
+      governingCheck: r.governingCheck ?? null,
       checks: r.checks,
       rotations: r.rotations,
       frequency: r.frequency,

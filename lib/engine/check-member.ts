@@ -62,6 +62,7 @@ export function checkMember(member: Member, profile: LimitProfile, catalogue?: C
     category: member.category,
     checks: evaluation.checks,
     governing: evaluation.governing,
+    governingCheck: evaluation.governingCheck,
     rotations: evaluation.rotations,
     frequency: evaluation.frequency,
     pass: evaluation.pass,
@@ -70,6 +71,10 @@ export function checkMember(member: Member, profile: LimitProfile, catalogue?: C
   if (options.shape === true) {
     result.shape = sampleShape(evaluation.solution, profile.combinations.map((combination) => combination.id), evaluation.combinationFactors);
   }
-  if (outcome !== null && outcome.notes.length > 0) result.notes = outcome.notes;
+  // most members have no notes: build the list only when there is one
+  const intakeNotes = member.intakeNotes;
+  const suggestionNotes = outcome !== null && outcome.notes.length > 0 ? outcome.notes : undefined;
+  if (intakeNotes !== undefined && intakeNotes.length > 0) result.notes = suggestionNotes ? [...intakeNotes, ...suggestionNotes] : intakeNotes;
+  else if (suggestionNotes) result.notes = suggestionNotes;
   return result;
 }

@@ -64,17 +64,25 @@ export type Load =
  * sum over cases of factors[case] * deflection(case)
  *   + creepFactor * sum over cases of sustainedFactors[case] * deflection(case).
  * creepFactor is the member material's when `creep` is "material" (k_def, K_cr - 1, lambda),
- * a fixed number otherwise, and 0 when absent.
+ * the member's IBC 2021 Table 1604.3 creep-component factor when `creep` is
+ * "ibc_creep_component" (Member.ibcCreepComponentFactor), a fixed number otherwise, and 0 when
+ * absent.
  */
 export interface Combination {
   id: string;
   label: string;
   factors: Record<string, number>;
   sustainedFactors?: Record<string, number>;
-  creep?: "material" | number;
+  creep?: "material" | "ibc_creep_component" | number;
   /** Allowed deflection = effective span / limitRatio, capped by capMm when given. */
   limitRatio: number;
   capMm?: number;
+  /**
+   * When given, a cantilever is judged on its own length (no multiplier) against this ratio: for
+   * codes with their own cantilever limits (EN 1995-1-1 Table 7.2). Absent: the profile's
+   * cantileverSpanMultiplier and limitRatio apply.
+   */
+  cantileverLimitRatio?: number;
 }
 
 export interface LimitProfile {
@@ -101,6 +109,14 @@ export interface Member {
   selfWeightCase?: string;
   /** Creep factor of the material for combinations whose creep is "material". */
   materialCreepFactor?: number;
+  /**
+   * K in the creep component K x D of IBC 2021 Table 1604.3's D + L row, for combinations whose
+   * creep is "ibc_creep_component": 0 steel and aluminium, 0.5 seasoned wood in dry use, 1.0
+   * other wood, lambda (ACI 318-19 24.2.4.1) for concrete.
+   */
+  ibcCreepComponentFactor?: number;
+  /** Assumptions intake made for this member (e.g. a conservative default), shown with its result. */
+  intakeNotes?: string[];
   includeShearDeformation?: boolean;
   /** Where the member came from, for messages and catalogue re-sizing. */
   sectionName?: string;
@@ -139,6 +155,23 @@ export interface CheckResult {
   /** allowed / actual; Infinity is never returned: a zero deflection gives null. */
   factorOfSafety: number | null;
   pass: boolean;
+  /** The limit as l/N: the N the check used (the cantilever ratio for a cantilever when the combination has one). */
+  limitRatio?: number;
+  /** The achieved l/N: effectiveSpanMm / |deflectionMm|; null for zero deflection. */
+  achievedRatio?: number | null;
+}
+
+/**
+ * The check that governs a member, deflection or frequency: the highest utilization, where a
+ * frequency's utilization is minHz / hz (and its factor of safety hz / minHz).
+ */
+export interface GoverningCheck {
+  kind: "deflection" | "frequency";
+  /** `${combinationId}@${spanIndex}` for a deflection check, "frequency" for the frequency. */
+  key: string;
+  utilization: number;
+  factorOfSafety: number | null;
+  pass: boolean;
 }
 
 export interface RotationResult {
@@ -165,7 +198,10 @@ export interface MemberResult {
   mark: string;
   category: MemberCategory;
   checks: CheckResult[];
+  /** The deflection check with the highest utilization (frequency not included: see governingCheck). */
   governing: CheckResult | null;
+  /** What governs the member overall, frequency included; checkMember always sets it. */
+  governingCheck?: GoverningCheck | null;
   rotations: RotationResult[];
   frequency: FrequencyResult | null;
   pass: boolean;

@@ -32,6 +32,7 @@ export const FIXED_COLUMNS: Record<string, ColumnSpec> = {
   density: { quantity: "density", description: "Custom material: density." },
   creep: { description: "SC1, SC2, SC3 (EN 1995 service class), NDS-dry, NDS-wet, ACI-3, ACI-6, ACI-12, ACI-60 (months; with compression_ratio) or a creep factor." },
   compression_ratio: { description: "ACI creep: compression reinforcement ratio rho' (e.g. 0 or 0.005)." },
+  moisture_condition: { description: "Wood: seasoned_dry or unseasoned_or_wet (IBC D + L creep component 0.5 D or 1.0 D; empty: 1.0 D, the conservative side)." },
   section: { description: "rectangle, hollow_rectangle, round, tube, i_plate, explicit, or a catalogue section name." },
   b: createDimensionSpec("rectangle width; hollow_rectangle outer width."),
   h: createDimensionSpec("rectangle depth; hollow_rectangle outer depth."),

@@ -54,6 +54,9 @@ export function mapMaterial(cells: Cells, member: PublicMember, readQuantity: Re
   } else if (ratio) {
     fail(ratio.column.header, "not_applicable", "compression_ratio is only for ACI creep");
   }
+  // intake checks the value and that the material is wood, naming this column
+  const moisture = cells.get("moisture_condition");
+  if (moisture) member.moistureCondition = moisture.text.trim().toLowerCase();
 }
 
 function parseCreep(text: string, ratioText: string | undefined): Record<string, unknown> | string {

@@ -179,6 +179,7 @@ const FIELD_COLUMNS: Record<string, string> = {
   "material.G": "g",
   "material.density": "density",
   creep: "creep",
+  moistureCondition: "moisture_condition",
   section: "section",
   supports: "supports",
   selfWeight: "self_weight",

@@ -58,10 +58,10 @@ interface ResultTable {
 
 // Every result row the pipeline writes: one outcome per member, one row per member and check.
 const RESULT_TABLES: ResultTable[] = [
-  { table: "member_outcomes", columns: ["schedule_id", "member_index", "mark", "category", "pass", "governing_check", "utilization", "factor_of_safety", "detail"], order: "member_index" },
+  { table: "member_outcomes", columns: ["schedule_id", "member_index", "mark", "category", "pass", "governing_check", "utilization", "factor_of_safety", "limit_ratio", "achieved_ratio", "detail"], order: "member_index" },
   {
     table: "member_checks",
-    columns: ["schedule_id", "member_index", "check_key", "combination_id", "span_index", "span_kind", "deflection_mm", "at_mm", "allowed_mm", "utilization", "factor_of_safety", "pass"],
+    columns: ["schedule_id", "member_index", "check_key", "combination_id", "span_index", "span_kind", "deflection_mm", "at_mm", "allowed_mm", "utilization", "factor_of_safety", "pass", "limit_ratio", "achieved_ratio"],
     order: "member_index, check_key",
   },
 ];

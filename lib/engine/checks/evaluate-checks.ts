@@ -1,4 +1,4 @@
-import type { CheckResult, Combination, LimitProfile, Member, RotationResult } from "../model";
+import type { CheckResult, Combination, FrequencyResult, GoverningCheck, LimitProfile, Member, RotationResult } from "../model";
 import { createCaseFactors, findSpanExtreme, getNodeRotation, type CaseFactors, type SpanExtreme } from "../solver/deflection-field";
 import { EngineInputError } from "../solver/engine-input-error";
 import type { MemberSolution } from "../solver/solve-member";
@@ -16,9 +16,13 @@ export function createCombinationFactors(solution: MemberSolution, combination: 
 }
 
 /**
- * One deflection check: allowed = effective span / limitRatio, capped by capMm; utilization =
+ * One deflection check: allowed = effective span / N, capped by capMm; utilization =
  * |actual| / allowed; factor of safety = allowed / |actual| (null for zero deflection); pass when
- * utilization <= 1. Effective span = judged length, times the profile's multiplier for overhangs.
+ * utilization <= 1; achieved l/N = effective span / |actual| (null for zero deflection).
+ * A span is judged on its judged length against limitRatio. A cantilever is judged on its own
+ * length against the combination's cantileverLimitRatio when it has one (EN 1995-1-1 Table 7.2
+ * gives cantilevers their own ratios), otherwise on cantileverSpanMultiplier x its length against
+ * limitRatio (IBC 2021 Table 1604.3 footnote: l = twice the cantilever's length, from memory).
  */
 export function createCheckResult(
   combination: Combination,
@@ -27,12 +31,16 @@ export function createCheckResult(
   cantileverSpanMultiplier: number,
   extreme: SpanExtreme,
 ): CheckResult {
-  const effectiveSpanMm = judgement.spanKind === "cantilever" ? cantileverSpanMultiplier * judgement.judgedLengthMm : judgement.judgedLengthMm;
-  const ratioLimitMm = effectiveSpanMm / combination.limitRatio;
+  const isCantilever = judgement.spanKind === "cantilever";
+  const ownCantileverRatio = isCantilever ? combination.cantileverLimitRatio : undefined;
+  const limitRatio = ownCantileverRatio ?? combination.limitRatio;
+  const effectiveSpanMm = isCantilever && ownCantileverRatio === undefined ? cantileverSpanMultiplier * judgement.judgedLengthMm : judgement.judgedLengthMm;
+  const ratioLimitMm = effectiveSpanMm / limitRatio;
   const allowedMm = combination.capMm !== undefined && combination.capMm < ratioLimitMm ? combination.capMm : ratioLimitMm;
   const magnitude = Math.abs(extreme.deflectionMm);
   const utilization = magnitude / allowedMm;
   const safety = allowedMm / magnitude;
+  const achieved = effectiveSpanMm / magnitude;
   return {
     combinationId: combination.id,
     spanIndex,
@@ -45,6 +53,8 @@ export function createCheckResult(
     utilization,
     factorOfSafety: magnitude === 0 || !Number.isFinite(safety) ? null : safety,
     pass: utilization <= 1,
+    limitRatio,
+    achievedRatio: magnitude === 0 || !Number.isFinite(achieved) ? null : achieved,
   };
 }
 
@@ -82,9 +92,33 @@ export function evaluateDeflectionChecks(member: Member, profile: LimitProfile, 
   return { checks, rotations, combinationFactors };
 }
 
-/** The check with the highest utilization (the first on ties), null when there are none. */
+/** The deflection check with the highest utilization (the first on ties), null when there are none. */
 export function getGoverningCheck(checks: CheckResult[]): CheckResult | null {
   let governing: CheckResult | null = null;
   for (const check of checks) if (governing === null || check.utilization > governing.utilization) governing = check;
   return governing;
+}
+
+/** The key of a deflection check in results and stored rows: `${combinationId}@${spanIndex}`. */
+export function getCheckKey(combinationId: string, spanIndex: number): string {
+  return `${combinationId}@${spanIndex}`;
+}
+
+/** The key of the frequency check; it has no "@", so no combination's key can equal it. */
+export const FREQUENCY_CHECK_KEY = "frequency";
+
+/**
+ * What governs the member overall: the governing deflection check or the frequency, whichever has
+ * the higher utilization (deflection on ties). A frequency's utilization is minHz / hz, so it
+ * exceeds 1 exactly when the frequency is below its minimum; its factor of safety is hz / minHz.
+ * Null when there is neither.
+ */
+export function getMemberGoverningCheck(governing: CheckResult | null, frequency: FrequencyResult | null): GoverningCheck | null {
+  const frequencyUtilization = frequency === null ? null : frequency.hz > 0 ? frequency.minHz / frequency.hz : Infinity;
+  if (frequency !== null && frequencyUtilization !== null && (governing === null || frequencyUtilization > governing.utilization)) {
+    const safety = frequency.hz / frequency.minHz;
+    return { kind: "frequency", key: FREQUENCY_CHECK_KEY, utilization: frequencyUtilization, factorOfSafety: Number.isFinite(safety) && safety > 0 ? safety : null, pass: frequency.pass };
+  }
+  if (governing === null) return null;
+  return { kind: "deflection", key: getCheckKey(governing.combinationId, governing.spanIndex), utilization: governing.utilization, factorOfSafety: governing.factorOfSafety, pass: governing.pass };
 }

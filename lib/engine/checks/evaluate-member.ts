@@ -1,6 +1,6 @@
-import type { CheckResult, FrequencyResult, LimitProfile, Member, RotationResult } from "../model";
+import type { CheckResult, FrequencyResult, GoverningCheck, LimitProfile, Member, RotationResult } from "../model";
 import { collectProfileIssues } from "./validate-profile";
-import { evaluateDeflectionChecks, getGoverningCheck } from "./evaluate-checks";
+import { evaluateDeflectionChecks, getGoverningCheck, getMemberGoverningCheck } from "./evaluate-checks";
 import { computeFrequency } from "../frequency";
 import { EngineInputError, prefixIssues } from "../solver/engine-input-error";
 import { solveValidatedMember, type MemberSolution } from "../solver/solve-member";
@@ -12,6 +12,8 @@ export interface MemberEvaluation {
   solution: MemberSolution;
   checks: CheckResult[];
   governing: CheckResult | null;
+  /** The governing check overall, frequency included (getMemberGoverningCheck). */
+  governingCheck: GoverningCheck | null;
   rotations: RotationResult[];
   frequency: FrequencyResult | null;
   pass: boolean;
@@ -37,7 +39,7 @@ export function evaluateValidatedMember(member: Member, profile: LimitProfile): 
   const frequency = computeFrequency(member, profile);
   let pass = frequency === null || frequency.pass;
   for (const check of checks) if (!check.pass) pass = false;
-  return { solution, checks, governing, rotations, frequency, pass, combinationFactors };
+  return { solution, checks, governing, governingCheck: getMemberGoverningCheck(governing, frequency), rotations, frequency, pass, combinationFactors };
 }
 
 /**

@@ -22,10 +22,12 @@ function hasEarlierId(combinations: Combination[], index: number): boolean {
 
 /**
  * The creep factor a combination applies to its sustained part: the member material's for
- * "material", the given number otherwise, 0 when absent (Combination doc in model.ts).
+ * "material", the member's IBC 2021 Table 1604.3 creep-component factor for
+ * "ibc_creep_component", the given number otherwise, 0 when absent (Combination doc in model.ts).
  */
 export function getCreepFactor(combination: Combination, member: Member): number {
   if (combination.creep === "material") return member.materialCreepFactor ?? 0;
+  if (combination.creep === "ibc_creep_component") return member.ibcCreepComponentFactor ?? 0;
   return combination.creep ?? 0;
 }
 
@@ -50,10 +52,17 @@ export function collectProfileIssues(profile: LimitProfile, member: Member): Inp
     if (combination.capMm !== undefined && !isPositiveFinite(combination.capMm)) issues.push({ path: `${path}.capMm`, message: "the deflection cap must be a positive finite number (mm)" });
     collectFactorIssues(combination.factors, path, "factors", issues);
     collectFactorIssues(combination.sustainedFactors, path, "sustainedFactors", issues);
+    if (combination.cantileverLimitRatio !== undefined && !isPositiveFinite(combination.cantileverLimitRatio)) {
+      issues.push({ path: `${path}.cantileverLimitRatio`, message: "the cantilever limit ratio (length / N) must be a positive finite number" });
+    }
     if (combination.creep === "material") {
       if (member.materialCreepFactor === undefined) issues.push({ path: `${path}.creep`, message: `combination "${combination.id}" uses the material's creep factor but the member has no materialCreepFactor` });
+    } else if (combination.creep === "ibc_creep_component") {
+      if (!(isFiniteNumber(member.ibcCreepComponentFactor) && member.ibcCreepComponentFactor >= 0)) {
+        issues.push({ path: `${path}.creep`, message: `combination "${combination.id}" uses the IBC 2021 Table 1604.3 creep component but the member has no ibcCreepComponentFactor (a finite number >= 0)` });
+      }
     } else if (combination.creep !== undefined && !(isFiniteNumber(combination.creep) && combination.creep >= 0)) {
-      issues.push({ path: `${path}.creep`, message: "creep factor must be \"material\" or a finite number >= 0" });
+      issues.push({ path: `${path}.creep`, message: "creep factor must be \"material\", \"ibc_creep_component\" or a finite number >= 0" });
     }
   }
   if (profile.frequency !== undefined) {

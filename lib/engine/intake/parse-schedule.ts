@@ -76,7 +76,12 @@ export function parseSchedule(doc: unknown, options: ParseScheduleOptions = {}):
     issues.add("members", `must be an array of 1 to ${MAX_MEMBERS} members`);
   } else if (Array.isArray(membersValue)) {
     const facts = profile
-      ? { id: profile.id, cases: listProfileLoadCases(profile), usesCreep: profile.combinations.some((c) => c.creep === "material") }
+      ? {
+          id: profile.id,
+          cases: listProfileLoadCases(profile),
+          usesCreep: profile.combinations.some((c) => c.creep === "material"),
+          usesIbcCreep: profile.combinations.some((c) => c.creep === "ibc_creep_component"),
+        }
       : { id: "(invalid)", cases: null, usesCreep: false };
     const findCatalogue = createCatalogueIndex(options.catalogue ?? []);
     // Indices, not path strings: the first member's path is only spelled out for a duplicate.

@@ -1,4 +1,4 @@
-import { findMaterial, getCreepFactor, getCreepMethodsForFamily, type CreepSpec, type Material } from "../materials";
+import { ACI_TIME_FACTORS, findMaterial, getCreepFactor, getCreepMethodsForFamily, type CreepSpec, type Material } from "../materials";
 import {
   childPath,
   createFieldSpec,
@@ -88,33 +88,128 @@ function readCreepSpec(ctx: ReadContext, value: unknown, path: FieldPath): Creep
   }
 }
 
+/** What the profile needs from a member's creep behaviour. */
+export interface CreepNeeds {
+  /** A combination with creep "material" (EN 1995 k_def, NDS K_cr - 1, ACI lambda). */
+  material: boolean;
+  /** A combination with creep "ibc_creep_component" (IBC 2021 Table 1604.3 D + L row). */
+  ibc: boolean;
+}
+
+/** A member's creep factors and the assumptions intake made for them. */
+export interface MemberCreep {
+  materialCreepFactor: number | undefined;
+  ibcCreepComponentFactor: number | undefined;
+  notes: string[];
+}
+
+const MOISTURE_CONDITIONS = ["seasoned_dry", "unseasoned_or_wet"] as const;
+type MoistureCondition = (typeof MOISTURE_CONDITIONS)[number];
+
 /**
- * The member's creep factor: from its `creep` spec, else a custom material's creepFactor, else 0
- * for metals (they do not creep at ambient temperature, common practice). Timber, concrete and
- * custom materials without either are an issue when the profile has long-term combinations,
- * because there is no safe value to assume.
+ * IBC 2021 Table 1604.3 footnote (from memory): the creep component of wood dry at installation
+ * and used in dry conditions may be estimated as the immediate deflection of 0.5 D; of wood at
+ * other moisture conditions, of D.
  */
-export function resolveCreepFactor(
+export const IBC_WOOD_CREEP_COMPONENT: Record<MoistureCondition, number> = { seasoned_dry: 0.5, unseasoned_or_wet: 1.0 };
+
+/** The largest ACI 318-19 lambda: xi = 2.0 (five years or more) with rho' = 0 (24.2.4.1, from memory). */
+const ACI_LARGEST_LAMBDA = ACI_TIME_FACTORS[60];
+
+const WOOD_CONSERVATIVE_NOTE =
+  "IBC 2021 Table 1604.3 D + L row: the schedule does not say whether the wood is seasoned and in dry use, so the creep component is taken as 1.0 x dead (the conservative side); give moistureCondition \"seasoned_dry\" for 0.5 x dead";
+const CONCRETE_CONSERVATIVE_NOTE =
+  "IBC 2021 Table 1604.3 D + L row: no ACI creep given, so the creep component is taken as lambda = 2.0 x dead (ACI 318-19 24.2.4.1 with xi = 2.0 and rho' = 0, the largest); give creep {\"method\": \"aci\", ...} for the member's own lambda";
+const CONCRETE_DEAD_ONLY_NOTE =
+  "IBC 2021 Table 1604.3 D + L row on concrete: the creep component covers dead load only; the ACI 318-19 presets also add the creep of the sustained part of live load";
+
+/**
+ * K of the IBC creep component K x D: steel and aluminium 0 (the footnote permits zero for steel;
+ * aluminium, which does not creep at ambient temperature, likewise, common practice) unless a creep
+ * factor is given; wood 0.5 (seasoned, dry use) or 1.0 (other), 1.0 when the schedule does not say;
+ * concrete lambda per ACI 318-19 24.2.4.1 (IBC 2021 1604.3.2 defers to ACI 318), 2.0 when not given;
+ * custom materials from their moisture condition, creep or creepFactor, and an issue without any.
+ */
+function resolveIbcCreepComponent(ctx: ReadContext, material: Material, spec: CreepSpec | undefined, moisture: MoistureCondition | undefined, path: FieldPath, notes: string[]): number | null {
+  const woodCondition = moisture ?? (spec?.method === "nds" ? spec.condition : undefined);
+  switch (material.family) {
+    case "steel":
+    case "aluminium":
+      return spec?.method === "factor" ? spec.factor : 0;
+    case "timber":
+      if (woodCondition === undefined) notes.push(WOOD_CONSERVATIVE_NOTE);
+      return IBC_WOOD_CREEP_COMPONENT[woodCondition ?? "unseasoned_or_wet"];
+    case "concrete":
+      notes.push(CONCRETE_DEAD_ONLY_NOTE);
+      if (spec === undefined) notes.push(CONCRETE_CONSERVATIVE_NOTE);
+      return spec === undefined ? ACI_LARGEST_LAMBDA : getCreepFactor(spec);
+    case "custom":
+      if (woodCondition !== undefined) return IBC_WOOD_CREEP_COMPONENT[woodCondition];
+      if (spec !== undefined && spec.method !== "en1995") return getCreepFactor(spec);
+      if (spec === undefined && material.creepFactor !== undefined) return material.creepFactor;
+      ctx.issues.add(
+        childPath(path, spec === undefined ? "creep" : "moistureCondition"),
+        `is required: the limit profile's IBC D + L row needs the creep component, and the creep of ${material.label} is unknown; give moistureCondition (wood), creep {"method": "aci", ...} (concrete), {"method": "factor", "factor": 0} (metal) or material.creepFactor`,
+      );
+      return null;
+  }
+}
+
+/**
+ * The member's creep factors. materialCreepFactor: from its `creep` spec, else a custom
+ * material's creepFactor, else 0 for metals (they do not creep at ambient temperature, common
+ * practice); timber, concrete and custom materials without either are an issue when the profile
+ * has "material" creep combinations, because there is no safe value to assume.
+ * ibcCreepComponentFactor: only when the profile has an IBC D + L row (resolveIbcCreepComponent).
+ */
+export function resolveMemberCreep(
   ctx: ReadContext,
   material: Material,
   creepValue: unknown,
+  moistureValue: unknown,
   path: FieldPath,
-  profileUsesCreep: boolean,
-): number | undefined | null {
+  needs: CreepNeeds,
+): MemberCreep | null {
+  let spec: CreepSpec | undefined;
   if (creepValue !== undefined) {
     const creepPath = childPath(path, "creep");
-    const spec = readCreepSpec(ctx, creepValue, creepPath);
-    if (spec === null) return null;
-    if (!getCreepMethodsForFamily(material.family).includes(spec.method)) {
-      ctx.issues.add(childPath(creepPath, "method"), `${spec.method} creep does not apply to ${material.family} (${material.label})`);
+    const read = readCreepSpec(ctx, creepValue, creepPath);
+    if (read === null) return null;
+    if (!getCreepMethodsForFamily(material.family).includes(read.method)) {
+      ctx.issues.add(childPath(creepPath, "method"), `${read.method} creep does not apply to ${material.family} (${material.label})`);
       return null;
     }
     if (material.creepFactor !== undefined) {
       ctx.issues.add(creepPath, "give either material.creepFactor or creep, not both");
       return null;
     }
-    return getCreepFactor(spec);
+    spec = read;
   }
+  let moisture: MoistureCondition | undefined;
+  if (moistureValue !== undefined) {
+    const moisturePath = childPath(path, "moistureCondition");
+    const read = readEnum(ctx, moistureValue, moisturePath, MOISTURE_CONDITIONS);
+    if (read === null) return null;
+    if (material.family !== "timber" && material.family !== "custom") {
+      ctx.issues.add(moisturePath, `applies to wood only, not ${material.family} (${material.label})`);
+      return null;
+    }
+    if (spec?.method === "nds" && spec.condition !== read) {
+      ctx.issues.add(moisturePath, `contradicts creep.condition "${spec.condition}"`);
+      return null;
+    }
+    moisture = read;
+  }
+  const notes: string[] = [];
+  const materialCreepFactor = resolveMaterialCreepFactor(ctx, material, spec, path, needs.material);
+  if (materialCreepFactor === null) return null;
+  const ibcCreepComponentFactor = needs.ibc ? resolveIbcCreepComponent(ctx, material, spec, moisture, path, notes) : undefined;
+  if (ibcCreepComponentFactor === null) return null;
+  return { materialCreepFactor, ibcCreepComponentFactor, notes };
+}
+
+function resolveMaterialCreepFactor(ctx: ReadContext, material: Material, spec: CreepSpec | undefined, path: FieldPath, profileUsesCreep: boolean): number | undefined | null {
+  if (spec !== undefined) return getCreepFactor(spec);
   if (material.creepFactor !== undefined) return material.creepFactor;
   if (material.family === "steel" || material.family === "aluminium") return 0;
   if (!profileUsesCreep) return undefined;

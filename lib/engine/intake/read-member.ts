@@ -2,7 +2,7 @@ import type { Load, Member, MemberCategory, SpanSegment, Support } from "../mode
 import type { Material } from "../materials";
 import { isStableSupportSet } from "../solver/validate-member";
 import { MAX_LOADS_PER_MEMBER, readLoad } from "./read-loads";
-import { readMaterial, resolveCreepFactor } from "./read-material";
+import { readMaterial, resolveMemberCreep, type MemberCreep } from "./read-material";
 import { readSection, type ResolvedSection } from "./read-section";
 import {
   childPath,
@@ -24,7 +24,7 @@ export const MEMBER_CATEGORIES: readonly MemberCategory[] = ["floor_beam", "roof
 export const MAX_SPANS_PER_MEMBER = 50;
 const SUPPORT_KINDS = ["pinned", "roller", "fixed", "free", "spring"] as const;
 const MEMBER_SPEC = createFieldSpec(
-  ["mark", "category", "quantity", "material", "creep", "section", "spans", "overhangs", "supports", "loads", "selfWeight", "shearDeformation", "notes"],
+  ["mark", "category", "quantity", "material", "creep", "moistureCondition", "section", "spans", "overhangs", "supports", "loads", "selfWeight", "shearDeformation", "notes"],
   ["mark", "category", "quantity", "material", "section", "spans", "supports", "loads"],
 );
 const SEGMENT_SPEC = createFieldSpec(["length", "section", "material"], ["length"]);
@@ -61,6 +61,8 @@ export interface ProfileFacts {
   /** null when the profile itself is invalid: members are still checked, cases are not. */
   cases: Set<string> | null;
   usesCreep: boolean;
+  /** The profile has an IBC 2021 Table 1604.3 D + L row (creep "ibc_creep_component"). */
+  usesIbcCreep?: boolean;
 }
 
 interface SegmentDraft {
@@ -230,7 +232,7 @@ export function readMember(
   const section = block.section === undefined ? null : readSection(ctx, block.section, childPath(path, "section"), findCatalogue);
   const selfWeight = block.selfWeight === undefined ? false : readBoolean(ctx, block.selfWeight, childPath(path, "selfWeight"));
   const withShear = block.shearDeformation === undefined ? false : readBoolean(ctx, block.shearDeformation, childPath(path, "shearDeformation"));
-  const creepFactor = material ? resolveCreepFactor(ctx, material, block.creep, path, profile.usesCreep) : null;
+  const creep = material ? resolveMemberCreep(ctx, material, block.creep, block.moistureCondition, path, { material: profile.usesCreep, ibc: profile.usesIbcCreep === true }) : null;
 
   const drafts = readSpans(ctx, block.spans, path, section, material, findCatalogue);
   let left: SegmentRead = "none";
@@ -294,9 +296,9 @@ export function readMember(
   }
 
   if (ctx.issues.count > before || !segments || mark === null || category === null || quantity === null || material === null || section === null) return null;
-  if (selfWeight === null || withShear === null || creepFactor === null) return null;
+  if (selfWeight === null || withShear === null || creep === null) return null;
   return {
-    member: createMember(mark, category, quantity, fullSupports, segments, loads, selfWeight, withShear, creepFactor, section, material),
+    member: createMember(mark, category, quantity, fullSupports, segments, loads, selfWeight, withShear, creep, section, material),
     origins: createOrigins(path, segments, supports, left !== "none", right !== "none"),
   };
 }
@@ -310,18 +312,22 @@ function createMember(
   loads: Load[],
   selfWeight: boolean,
   withShear: boolean,
-  creepFactor: number | undefined,
+  creep: MemberCreep,
   section: ResolvedSection,
   material: Material,
 ): Member {
   const spans = segments.map((s) => toSpanSegment(s, withShear));
   const materialName = material.id === "custom" ? material.label : material.id;
-  if (!selfWeight && !withShear && creepFactor !== undefined) {
-    return { mark, category, quantity, supports, spans, loads, materialCreepFactor: creepFactor, sectionName: section.name, materialName };
+  const creepFactor = creep.materialCreepFactor;
+  if (!selfWeight && !withShear && creepFactor !== undefined && creep.notes.length === 0) {
+    // one object shape for the common case; ibcCreepComponentFactor is undefined unless the profile has an IBC D + L row
+    return { mark, category, quantity, supports, spans, loads, materialCreepFactor: creepFactor, ibcCreepComponentFactor: creep.ibcCreepComponentFactor, sectionName: section.name, materialName };
   }
   const member: Member = { mark, category, quantity, supports, spans, loads };
   if (selfWeight) member.selfWeightCase = "dead";
   if (creepFactor !== undefined) member.materialCreepFactor = creepFactor;
+  if (creep.ibcCreepComponentFactor !== undefined) member.ibcCreepComponentFactor = creep.ibcCreepComponentFactor;
+  if (creep.notes.length > 0) member.intakeNotes = creep.notes;
   if (withShear) member.includeShearDeformation = true;
   member.sectionName = section.name;
   member.materialName = materialName;

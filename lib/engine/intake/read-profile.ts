@@ -1,5 +1,5 @@
 import type { Combination, LimitProfile } from "../model";
-import { getPreset, listPresetIds } from "../presets";
+import { getPreset, listPresetIds, presetTakesSustainedLiveFraction } from "../presets";
 import {
   isJsonObject,
   childPath,
@@ -44,14 +44,14 @@ function readFactors(ctx: ReadContext, value: unknown, path: FieldPath): Record<
   return ok ? factors : null;
 }
 
-function readCreep(ctx: ReadContext, value: unknown, path: FieldPath): "material" | number | null {
-  if (value === "material") return "material";
+function readCreep(ctx: ReadContext, value: unknown, path: FieldPath): Combination["creep"] | null {
+  if (value === "material" || value === "ibc_creep_component") return value;
   if (typeof value === "number") return readNumber(ctx, value, path, "nonNegative");
-  ctx.issues.add(path, 'must be "material" (the member material\'s creep factor) or a non-negative number');
+  ctx.issues.add(path, 'must be "material" (the member material\'s creep factor), "ibc_creep_component" (IBC 2021 Table 1604.3 creep component) or a non-negative number');
   return null;
 }
 
-const COMBINATION_FIELDS = ["id", "label", "factors", "sustainedFactors", "creep", "limitRatio", "cap"] as const;
+const COMBINATION_FIELDS = ["id", "label", "factors", "sustainedFactors", "creep", "limitRatio", "cantileverLimitRatio", "cap"] as const;
 const COMBINATION_SPEC = createFieldSpec(COMBINATION_FIELDS, ["id", "label", "factors", "limitRatio"]);
 const OVERRIDE_COMBINATION_SPEC = createFieldSpec(COMBINATION_FIELDS.filter((f) => f !== "id"));
 const FREQUENCY_FIELDS = ["min", "massFactors"];
@@ -62,7 +62,7 @@ const CUSTOM_PROFILE_SPEC = createFieldSpec(
   ["id", "label", "source", "combinations", "cantileverSpanMultiplier"],
 );
 const OVERRIDES_SPEC = createFieldSpec(["combinations", "cantileverSpanMultiplier", "frequency"]);
-const LIMITS_SPEC = createFieldSpec(["preset", "overrides", "custom"]);
+const LIMITS_SPEC = createFieldSpec(["preset", "overrides", "custom", "sustainedLiveFraction"]);
 
 /** Reads the editable parts of a combination onto `target` (used by custom profiles and overrides). */
 function readCombinationFields(ctx: ReadContext, source: JsonObject, path: FieldPath, target: Partial<Combination>): boolean {
@@ -91,6 +91,11 @@ function readCombinationFields(ctx: ReadContext, source: JsonObject, path: Field
     const ratio = readNumber(ctx, source.limitRatio, childPath(path, "limitRatio"), "positive");
     if (ratio === null) ok = false;
     else target.limitRatio = ratio;
+  }
+  if (source.cantileverLimitRatio !== undefined) {
+    const ratio = readNumber(ctx, source.cantileverLimitRatio, childPath(path, "cantileverLimitRatio"), "positive");
+    if (ratio === null) ok = false;
+    else target.cantileverLimitRatio = ratio;
   }
   if (source.cap !== undefined) {
     const capMm = readQuantity(ctx, source.cap, childPath(path, "cap"), "deflection", "positive");
@@ -187,16 +192,33 @@ function applyOverrides(ctx: ReadContext, preset: LimitProfile, value: unknown, 
   return ok ? profile : null;
 }
 
+/** `limits.sustainedLiveFraction`: a number from 0 to 1, only for presets that read it (ACI). */
+function readSustainedLiveFraction(ctx: ReadContext, value: unknown, path: FieldPath, presetId: string): number | undefined | null {
+  if (value === undefined) return undefined;
+  const fractionPath = childPath(path, "sustainedLiveFraction");
+  if (!presetTakesSustainedLiveFraction(presetId)) {
+    ctx.issues.add(fractionPath, `applies only to the ACI 318-19 presets, not ${presetId}`);
+    return null;
+  }
+  const fraction = readNumber(ctx, value, fractionPath, "nonNegative");
+  if (fraction !== null && fraction > 1) {
+    ctx.issues.add(fractionPath, "is the sustained part of the live load, from 0 to 1 (e.g. 0.25), not a percentage");
+    return null;
+  }
+  return fraction;
+}
+
 /**
  * Reads `limits`: `{ "preset": id }`, `{ "preset": id, "overrides": {...} }` or
- * `{ "custom": profile }`. Unknown preset ids list the known ones.
+ * `{ "custom": profile }`; an ACI preset may add `sustainedLiveFraction`. Unknown preset ids
+ * list the known ones.
  */
 export function readLimits(ctx: ReadContext, value: unknown, path: FieldPath): LimitProfile | null {
   const block = readObject(ctx, value, path, LIMITS_SPEC);
   if (!block) return null;
   if (block.custom !== undefined) {
-    if (block.preset !== undefined || block.overrides !== undefined) {
-      ctx.issues.add(path, "give either custom, or preset with optional overrides, not both");
+    if (block.preset !== undefined || block.overrides !== undefined || block.sustainedLiveFraction !== undefined) {
+      ctx.issues.add(path, "give either custom, or preset with optional overrides (and sustainedLiveFraction), not both");
       return null;
     }
     return readCustomProfile(ctx, block.custom, childPath(path, "custom"));
@@ -207,10 +229,13 @@ export function readLimits(ctx: ReadContext, value: unknown, path: FieldPath): L
   }
   const presetId = readString(ctx, block.preset, childPath(path, "preset"), 64);
   if (presetId === null) return null;
-  const preset = getPreset(presetId);
-  if (!preset) {
+  if (!listPresetIds().includes(presetId)) {
     ctx.issues.add(childPath(path, "preset"), `unknown preset "${presetId}"; presets: ${listPresetIds().join(", ")}`);
     return null;
   }
+  const sustainedLiveFraction = readSustainedLiveFraction(ctx, block.sustainedLiveFraction, path, presetId);
+  if (sustainedLiveFraction === null) return null;
+  const preset = getPreset(presetId, sustainedLiveFraction === undefined ? {} : { sustainedLiveFraction });
+  if (!preset) return null;
   return block.overrides === undefined ? preset : applyOverrides(ctx, preset, block.overrides, childPath(path, "overrides"));
 }

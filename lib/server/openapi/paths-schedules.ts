@@ -8,7 +8,11 @@ const notFound = problemResponse("No such schedule (or member) in this organizat
 const csvParameters = [
   queryParameter("delimiter", "CSV field separator, taken as given and never guessed.", { enum: ["comma", "semicolon", "tab"], default: "comma" }),
   queryParameter("units", "Default unit system of the CSV's bare numbers.", { enum: ["SI", "US"] }),
-  queryParameter("limits", "CSV only: the limit preset every member is checked against, e.g. `ibc-2021-floor`.", { type: "string" }),
+  queryParameter(
+    "limits",
+    "CSV only: the limit preset every member is checked against, e.g. `ibc-2021-floor`. ACI 318-19 presets take their default sustained live fraction 1.0 (the conservative bound); a JSON schedule can set `limits.sustainedLiveFraction`.",
+    { type: "string" },
+  ),
   queryParameter("name", "CSV only: the schedule's name (default: the file name).", { type: "string", maxLength: 200 }),
   queryParameter("reference", "CSV only: a drawing or schedule reference.", { type: "string" }),
   queryParameter("callbackEndpointId", "A registered webhook endpoint (`wh_...`) to report completion to.", { type: "string" }),

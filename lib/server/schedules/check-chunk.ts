@@ -1,4 +1,5 @@
 import { checkMember } from "@/lib/engine/check-member";
+import { getCheckKey } from "@/lib/engine/checks/evaluate-checks";
 import { parseSchedule } from "@/lib/engine/intake";
 import type { MemberResult } from "@/lib/engine/model";
 import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
@@ -64,11 +65,16 @@ export async function checkChunk(scheduleId: string, chunkIndex: number): Promis
     if (!schedule || schedule.status === "completed" || schedule.status === "failed") return false;
     const [locked] = await tx`select done_at from schedule_chunks where schedule_id = ${scheduleId} and chunk_index = ${chunkIndex} for update`;
     if (!locked || locked.done_at) return false;
-    await copyRows(tx, "member_outcomes", ["schedule_id", "member_index", "mark", "category", "pass", "governing_check", "utilization", "factor_of_safety", "detail"], outcomeRows(scheduleId, outcomes));
+    await copyRows(
+      tx,
+      "member_outcomes",
+      ["schedule_id", "member_index", "mark", "category", "pass", "governing_check", "utilization", "factor_of_safety", "limit_ratio", "achieved_ratio", "detail"],
+      outcomeRows(scheduleId, outcomes),
+    );
     await copyRows(
       tx,
       "member_checks",
-      ["schedule_id", "member_index", "check_key", "combination_id", "span_index", "span_kind", "deflection_mm", "at_mm", "allowed_mm", "utilization", "factor_of_safety", "pass"],
+      ["schedule_id", "member_index", "check_key", "combination_id", "span_index", "span_kind", "deflection_mm", "at_mm", "allowed_mm", "utilization", "factor_of_safety", "pass", "limit_ratio", "achieved_ratio"],
       checkRows(scheduleId, outcomes),
     );
     await tx`
@@ -83,25 +89,34 @@ export async function checkChunk(scheduleId: string, chunkIndex: number): Promis
 }
 
 export function checkKeyOf(combinationId: string, spanIndex: number): string {
-  return `${combinationId}@${spanIndex}`;
+  return getCheckKey(combinationId, spanIndex);
 }
 
 export function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
   for (const o of outcomes) {
     const r = o.result;
-    const governing = r?.governing ?? null;
+    // What governs overall, frequency included; the deflection figures only when a deflection check governs.
+    const governing = r?.governingCheck ?? null;
+    const deflection = governing?.kind === "deflection" ? (r?.governing ?? null) : null;
     // Shape and rotations are recomputed on demand for one member (get-member-report.ts): cheap for
     // one, but a large share of the bytes written for every member of a big schedule.
-    const detail = r ? (r.frequency === null && r.suggestion === null ? null : { frequency: r.frequency, suggestion: r.suggestion, error: null }) : { frequency: null, suggestion: null, error: o.error };
+    const notes = r?.notes ?? null;
+    const detail = r
+      ? r.frequency === null && r.suggestion === null && notes === null
+        ? null
+        : { frequency: r.frequency, suggestion: r.suggestion, error: null, ...(notes === null ? {} : { notes }) }
+      : { frequency: null, suggestion: null, error: o.error };
     yield [
       scheduleId,
       o.index,
       o.mark,
       o.category,
       r?.pass ?? false,
-      governing ? checkKeyOf(governing.combinationId, governing.spanIndex) : null,
+      governing?.key ?? null,
       governing?.utilization ?? null,
       governing?.factorOfSafety ?? null,
+      deflection?.limitRatio ?? null,
+      deflection?.achievedRatio ?? null,
       detail === null ? null : JSON.stringify(detail),
     ] as const;
   }
@@ -110,7 +125,22 @@ export function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
 export function* checkRows(scheduleId: string, outcomes: Outcome[]) {
   for (const o of outcomes) {
     for (const c of o.result?.checks ?? []) {
-      yield [scheduleId, o.index, checkKeyOf(c.combinationId, c.spanIndex), c.combinationId, c.spanIndex, c.spanKind, c.deflectionMm, c.atMm, c.allowedMm, c.utilization, c.factorOfSafety, c.pass] as const;
+      yield [
+        scheduleId,
+        o.index,
+        checkKeyOf(c.combinationId, c.spanIndex),
+        c.combinationId,
+        c.spanIndex,
+        c.spanKind,
+        c.deflectionMm,
+        c.atMm,
+        c.allowedMm,
+        c.utilization,
+        c.factorOfSafety,
+        c.pass,
+        c.limitRatio ?? null,
+        c.achievedRatio ?? null,
+      ] as const;
     }
   }
 }

@@ -14,6 +14,9 @@ export interface MemberCheckRow {
   utilization: number;
   factorOfSafety: number | null;
   pass: boolean;
+  /** Limit l/N and achieved l/N (null for zero deflection, and on rows stored before they were). */
+  limitRatio: number | null;
+  achievedRatio: number | null;
 }
 
 /** One member's whole result, as both the member page and the member API route show it. */
@@ -25,17 +28,20 @@ export interface MemberReport {
   units: unknown;
   status: "pending" | "pass" | "fail" | "error";
   error: string | null;
+  /** `combinationId@spanIndex`, or "frequency" when the frequency governs. */
   governingCheck: string | null;
   utilization: number | null;
   factorOfSafety: number | null;
   checks: MemberCheckRow[];
+  /** Assumptions intake made and remarks from the engine (e.g. a conservative default taken). */
+  notes: string[];
   frequency: FrequencyResult | null;
   suggestion: { minIMm4: number; sectionName: string | null } | null;
   rotations: RotationResult[];
   shape: ShapeSample[];
 }
 
-type StoredDetail = { frequency: FrequencyResult | null; suggestion: MemberReport["suggestion"]; error: string | null };
+type StoredDetail = { frequency: FrequencyResult | null; suggestion: MemberReport["suggestion"]; error: string | null; notes?: string[] };
 
 /**
  * Re-runs the engine for one stored member for what only its own page needs: the sampled shape
@@ -83,7 +89,10 @@ export async function getMemberReport(scheduleId: string, mark: string): Promise
       utilization: c.utilization as number,
       factorOfSafety: (c.factor_of_safety as number | null) ?? null,
       pass: c.pass as boolean,
+      limitRatio: (c.limit_ratio as number | null) ?? null,
+      achievedRatio: (c.achieved_ratio as number | null) ?? null,
     })),
+    notes: detail?.notes ?? [],
     frequency: detail?.frequency ?? null,
     suggestion: detail?.suggestion ?? null,
     ...(checked && !detail?.error ? computeMemberDiagrams(header, member.input) : { shape: [], rotations: [] }),

@@ -1,9 +1,12 @@
 // The schedules pages over HTTP: who sees what, 404 for missing and foreign ids alike, hostile
 // marks rendered as text, and the CSV export with formula prefixes neutralised.
+import request from "supertest";
 import { beforeAll, describe, expect, it } from "vitest";
 
 import { demoOrganizations } from "@/db/seed-data";
-import { anonymous, callAction, findAction, signInAs, type Agent } from "@/tests/helpers/app";
+import { createTestKey } from "@/tests/helpers/api-keys";
+import { APP_URL, anonymous, callAction, findAction, signInAs, type Agent } from "@/tests/helpers/app";
+import { createBeam, createScheduleDoc, waitForSchedule as waitForApiSchedule } from "@/tests/helpers/schedules";
 
 import { BEAM_HEADER, beamRow, toCsv, uploadCsv, waitForSchedule } from "./upload-helpers";
 
@@ -137,6 +140,25 @@ describe("a member's page", () => {
     expect(response.text).toMatch(/<svg[^>]*role="img"/);
     // The checks table lists both combinations of the preset (IBC 2021 Table 1604.3: live, dead + live).
     expect(response.text).toContain("dead+live");
+    // limit l/N beside the achieved l/N (the live row's limit is l/360, IBC 2021 Table 1604.3, from memory)
+    expect(response.text).toContain("Achieved");
+    expect(response.text).toContain("l/360");
+  });
+
+  it("names the first frequency as governing when a member fails on it alone", async () => {
+    // 4 m S355 plate I with dead 3 kN/m, live 1 kN/m: every deflection passes (live about 0.2 mm
+    // against l/360 = 11.1 mm, AISC Manual Table 3-23 case 1, from memory); f1 is about 25 Hz
+    // ((pi / (2 L^2)) sqrt(EI / m), Roark's Formulas Table 16.1 case 1, from memory), below 40 Hz.
+    const key = await createTestKey();
+    const doc = { ...createScheduleDoc([createBeam("FQ-1", 4, 1)]), limits: { preset: "ibc-2021-floor-vibration", overrides: { frequency: { min: 40 } } } };
+    const created = await request(APP_URL).post("/api/v1/schedules").set("authorization", `Bearer ${key}`).send(doc);
+    expect(created.status).toBe(202);
+    await waitForApiSchedule(key, created.body.id);
+    const list = await viewer.get(`/schedules/${created.body.id}`);
+    expect(list.text).toMatch(/data-status="fail"[^]*?FQ-1[^]*?first frequency[^]*?Fail/);
+    const member = await viewer.get(`/schedules/${created.body.id}/members/FQ-1`);
+    expect(member.text).toMatch(/Governing: (<!-- -->)?first frequency/);
+    expect(member.text).toContain("The first frequency governs");
   });
 
   it("opens for a hostile mark and renders it as text", async () => {
@@ -198,7 +220,7 @@ describe("the CSV export", () => {
     expect(response.status).toBe(200);
     expect(response.headers["content-type"]).toContain("text/csv");
     const lines = response.text.trim().split("\r\n");
-    expect(lines[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety");
+    expect(lines[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety,limit_ratio,achieved_ratio");
     expect(lines).toHaveLength(10);
     // OWASP CSV injection guidance: a leading = + - @ is prefixed with a quote.
     expect(response.text).toContain(`"'=HYPERLINK(""http://evil.example"",""open"")"`);

@@ -104,8 +104,8 @@ describe("dispatch", () => {
     await getDb()
       .insert(memberOutcomes)
       .values([
-        { scheduleId, memberIndex: 1, mark: "R-02", category: "roof_beam", pass: false, governingCheck: "total", utilization: 1.2, factorOfSafety: 0.83, detail: {} },
-        { scheduleId, memberIndex: 0, mark: "R-01", category: "roof_beam", pass: true, governingCheck: "live", utilization: 0.64, factorOfSafety: 1.56, detail: {} },
+        { scheduleId, memberIndex: 1, mark: "R-02", category: "roof_beam", pass: false, governingCheck: "frequency", utilization: 1.2, factorOfSafety: 0.83, detail: {} },
+        { scheduleId, memberIndex: 0, mark: "R-01", category: "roof_beam", pass: true, governingCheck: "live@0", utilization: 0.64, factorOfSafety: 1.56, limitRatio: 240, achievedRatio: 375, detail: {} },
       ]);
     const eventId = await insertOutboxEvent(org.organizationId, "schedule.completed", { scheduleId, status: "completed" });
     const state = await waitFor("delivery", async () => {
@@ -116,8 +116,9 @@ describe("dispatch", () => {
     const validate = compileApiSchema("events/schedule.completed", { strict: true, allowUnionTypes: true });
     expect(validate(body), JSON.stringify(validate.errors)).toBe(true);
     expect(body.data.rows).toEqual([
-      { mark: "R-01", governingCheck: "live", utilization: 0.64, factorOfSafety: 1.56, pass: true },
-      { mark: "R-02", governingCheck: "total", utilization: 1.2, factorOfSafety: 0.83, pass: false },
+      { mark: "R-01", governingCheck: "live@0", utilization: 0.64, factorOfSafety: 1.56, limitRatio: 240, achievedRatio: 375, pass: true },
+      // a member that fails on frequency alone: the frequency governs and has no deflection figures
+      { mark: "R-02", governingCheck: "frequency", utilization: 1.2, factorOfSafety: 0.83, limitRatio: null, achievedRatio: null, pass: false },
     ]);
     expect(body.data).toMatchObject({ scheduleId, counts: { members: 2, passed: 1, failed: 1 }, truncated: false, resultsUrl: expect.stringContaining(`/api/v1/schedules/${scheduleId}/results`) });
   });

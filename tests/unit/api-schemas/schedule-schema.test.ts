@@ -5,6 +5,7 @@ import addFormats from "ajv-formats";
 import { describe, expect, it } from "vitest";
 
 import { parseSchedule } from "@/lib/engine/intake";
+import { listPresetIds } from "@/lib/engine/presets";
 
 import { createDoc } from "../lib/engine/intake/helpers";
 
@@ -29,6 +30,16 @@ const goodDocuments: [string, unknown][] = [
     supports: ["pinned", { kind: "spring", stiffness: 3 }, { kind: "roller" }],
     shearDeformation: true,
   })],
+  ["an ACI preset with a sustained live fraction", createDoc({ material: "concrete-fc30", creep: { method: "aci", durationMonths: 60, compressionRatio: 0 } }, { limits: { preset: "aci-318-19-floor", sustainedLiveFraction: 0.25 } })],
+  ["wood with its moisture condition", createDoc({ material: "timber-c24", moistureCondition: "seasoned_dry" })],
+  ["a custom combination with its own cantilever ratio and the IBC creep component", createDoc({}, {
+    limits: {
+      custom: {
+        id: "spec", label: "Spec", source: "project specification", cantileverSpanMultiplier: 2,
+        combinations: [{ id: "total", label: "total", factors: { live: 1 }, sustainedFactors: { dead: 1 }, creep: "ibc_creep_component", limitRatio: 240, cantileverLimitRatio: 180 }],
+      },
+    },
+  })],
   ["a custom profile with cap and frequency", createDoc({}, {
     limits: {
       custom: {
@@ -44,6 +55,8 @@ const goodDocuments: [string, unknown][] = [
 const badDocuments: [string, unknown][] = [
   ["no format", (() => { const d = createDoc(); delete d.format; return d; })()],
   ["another format", createDoc({}, { format: "other/v1" })],
+  ["a sustained live fraction given as a percentage", createDoc({ material: "concrete-fc30", creep: { method: "aci", durationMonths: 60, compressionRatio: 0 } }, { limits: { preset: "aci-318-19-floor", sustainedLiveFraction: 25 } })],
+  ["an unknown moisture condition", createDoc({ material: "timber-c24", moistureCondition: "damp" })],
   ["an unknown root field", createDoc({}, { colour: "red" })],
   ["an unknown member field", withMember({ colour: "red" })],
   ["a zero span", withMember({ spans: [0] })],
@@ -73,6 +86,10 @@ describe("schedule.schema.json", () => {
     expect(schema.$schema).toBe("https://json-schema.org/draft/2020-12/schema");
     expect(schema.$id).toMatch(/schedule\.schema\.json$/);
     expect(schema.properties.members.maxItems).toBe(100000);
+  });
+
+  it("lists exactly the engine's presets", () => {
+    expect(schema.$defs.limits.oneOf[0].properties.preset.enum).toEqual(listPresetIds());
   });
 
   it.each(goodDocuments)("accepts %s, and so does intake", (_name, doc) => {

@@ -39,8 +39,14 @@ export function splitPowerOfTen(value: number | null | undefined): { mantissa: s
 }
 
 /** Check keys are `combination@spanIndex` (lib/server/schedules/check-chunk.ts); spans count from 1 for people. */
+/** "l/523" for an engineer's span ratio (span / deflection, or a limit's N); "—" when there is none. */
+export function formatSpanRatio(ratio: number | null | undefined): string {
+  return ratio === null || ratio === undefined || !Number.isFinite(ratio) ? "—" : `l/${Math.round(ratio)}`;
+}
+
 export function formatCheckKey(key: string | null): string {
   if (!key) return "—";
+  if (key === "frequency") return "first frequency";
   const at = key.lastIndexOf("@");
   if (at < 0) return key;
   const span = Number(key.slice(at + 1));

@@ -1,5 +1,5 @@
 import type { MemberCheckRow } from "@/lib/server/schedules/get-member-report";
-import { formatMm, formatNumber, formatRatio, formatSignedMm } from "./format";
+import { formatMm, formatNumber, formatRatio, formatSignedMm, formatSpanRatio } from "./format";
 import { OutcomeLabel } from "./outcome-label";
 
 export type MemberChecksTableProps = { checks: MemberCheckRow[]; governingKey: string | null };
@@ -17,6 +17,12 @@ export function MemberChecksTable({ checks, governingKey }: MemberChecksTablePro
             <th scope="col" className="px-3 py-2 text-right font-medium">Deflection (mm)</th>
             <th scope="col" className="px-3 py-2 text-right font-medium">At x (m)</th>
             <th scope="col" className="px-3 py-2 text-right font-medium">Allowed (mm)</th>
+            <th scope="col" className="px-3 py-2 text-right font-medium">
+              Achieved <span className="normal-case">l/N</span>
+            </th>
+            <th scope="col" className="px-3 py-2 text-right font-medium">
+              Limit <span className="normal-case">l/N</span>
+            </th>
             <th scope="col" className="px-3 py-2 text-right font-medium">Utilization</th>
             <th scope="col" className="px-3 py-2 text-right font-medium">Factor of safety</th>
             <th scope="col" className="px-3 py-2 font-medium">Result</th>
@@ -36,6 +42,8 @@ export function MemberChecksTable({ checks, governingKey }: MemberChecksTablePro
               <td className="px-3 py-1.5 text-right">{formatSignedMm(c.deflectionMm)}</td>
               <td className="px-3 py-1.5 text-right">{formatNumber(c.atMm / 1000, 3)}</td>
               <td className="px-3 py-1.5 text-right">{formatMm(c.allowedMm)}</td>
+              <td className="px-3 py-1.5 text-right">{formatSpanRatio(c.achievedRatio)}</td>
+              <td className="px-3 py-1.5 text-right">{formatSpanRatio(c.limitRatio)}</td>
               <td className={`px-3 py-1.5 text-right ${c.pass ? "" : "font-semibold"}`}>{formatRatio(c.utilization)}</td>
               <td className="px-3 py-1.5 text-right">{formatRatio(c.factorOfSafety)}</td>
               <td className="px-3 py-1.5">

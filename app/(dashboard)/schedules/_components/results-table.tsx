@@ -2,7 +2,7 @@ import Link from "next/link";
 
 import type { ResultRow } from "@/db/queries/schedules";
 
-import { categoryLabels, formatCheckKey, formatRatio, formatSignedMm } from "./format";
+import { categoryLabels, formatCheckKey, formatRatio, formatSignedMm, formatSpanRatio } from "./format";
 import { OutcomeLabel } from "./outcome-label";
 
 export type ResultsTableProps = { scheduleId: string; rows: ResultRow[] };
@@ -24,6 +24,9 @@ export function ResultsTable({ scheduleId, rows }: ResultsTableProps) {
             <th scope="col" className="px-3 py-2 font-medium">Category</th>
             <th scope="col" className="px-3 py-2 font-medium">Governing check</th>
             <th scope="col" className="px-3 py-2 text-right font-medium">Deflection (mm)</th>
+            <th scope="col" className="px-3 py-2 text-right font-medium">
+              Achieved <span className="normal-case">l/N</span> (limit)
+            </th>
             <th scope="col" className="px-3 py-2 text-right font-medium">Utilization</th>
             <th scope="col" className="px-3 py-2 text-right font-medium">Factor of safety</th>
             <th scope="col" className="px-3 py-2 font-medium">Result</th>
@@ -40,6 +43,9 @@ export function ResultsTable({ scheduleId, rows }: ResultsTableProps) {
               <td className="px-3 py-1.5">{categoryLabels[r.category] ?? r.category}</td>
               <td className="px-3 py-1.5">{formatCheckKey(r.governingCheck)}</td>
               <td className="px-3 py-1.5 text-right">{formatSignedMm(r.governingDeflectionMm)}</td>
+              <td className="px-3 py-1.5 text-right whitespace-nowrap">
+                {r.limitRatio === null ? "—" : `${formatSpanRatio(r.achievedRatio)} (${formatSpanRatio(r.limitRatio)})`}
+              </td>
               <td className={`px-3 py-1.5 text-right ${r.status === "fail" ? "font-semibold" : ""}`}>{formatRatio(r.utilization)}</td>
               <td className="px-3 py-1.5 text-right" title={r.factorOfSafety === null && r.status !== "error" ? "no deflection under this check" : undefined}>
                 {formatRatio(r.factorOfSafety)}

@@ -54,6 +54,8 @@ export async function buildEventBody(event: OutboxEventRow): Promise<string> {
           governingCheck: memberOutcomes.governingCheck,
           utilization: memberOutcomes.utilization,
           factorOfSafety: memberOutcomes.factorOfSafety,
+          limitRatio: memberOutcomes.limitRatio,
+          achievedRatio: memberOutcomes.achievedRatio,
           pass: memberOutcomes.pass,
         })
         .from(memberOutcomes)

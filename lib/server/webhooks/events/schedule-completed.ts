@@ -5,9 +5,13 @@ export const RESULT_ROWS_CAP = 1_000;
 
 export interface ResultRow {
   mark: string;
+  /** `combinationId@spanIndex`, or "frequency" when the frequency governs. */
   governingCheck: string | null;
   utilization: number | null;
   factorOfSafety: number | null;
+  /** The governing deflection check's limit l/N and achieved l/N; null when the frequency governs. */
+  limitRatio: number | null;
+  achievedRatio: number | null;
   pass: boolean;
 }
 
@@ -58,6 +62,8 @@ export function buildScheduleCompletedEvent(input: {
     governingCheck: r.governingCheck,
     utilization: toFiniteOrNull(r.utilization),
     factorOfSafety: toFiniteOrNull(r.factorOfSafety),
+    limitRatio: toFiniteOrNull(r.limitRatio),
+    achievedRatio: toFiniteOrNull(r.achievedRatio),
     pass: r.pass,
   }));
   return createEnvelope("schedule.completed", input.occurredAt, {

@@ -43,7 +43,7 @@ describe("POST /api/v1/schedules", () => {
 
     const csv = await api().get(`/api/v1/schedules/${response.body.id}/results`).set("authorization", `Bearer ${key}`).set("accept", "text/csv");
     expect(csv.headers["content-type"]).toContain("text/csv");
-    expect(csv.text.split("\r\n")[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety");
+    expect(csv.text.split("\r\n")[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety,limit_ratio,achieved_ratio");
     // Formula injection: the cell starts with a quote so a spreadsheet shows it as text.
     expect(csv.text).toContain(`"'=HYPERLINK(""x"")",floor_beam,pass`);
 
@@ -53,6 +53,32 @@ describe("POST /api/v1/schedules", () => {
     expect(member.body.checks.length).toBeGreaterThanOrEqual(2);
     expect(member.body.shape.length).toBeGreaterThan(10);
     expect(member.body.suggestion.minIMm4).toBeGreaterThan(0);
+  });
+
+  it("names the first frequency as governing on every surface when a member fails on frequency alone", async () => {
+    // S355 plate I, I = 8.0e7 mm^4 (as above), 4 m simply supported, dead 3 kN/m, live 1 kN/m:
+    // live 5wL^4/(384EI) = 0.20 mm, far inside l/360 = 11.1 mm (AISC Manual Table 3-23 case 1,
+    // from memory); f1 = (pi / (2 L^2)) sqrt(EI / m) with m = (3 + 0.1 x 1) kN/m / g is about
+    // 24.6 Hz (Roark's Formulas Table 16.1 case 1, from memory), below the 40 Hz asked here.
+    const iMm4 = (150 * 300 ** 3 - (150 - 7.1) * (300 - 21.4) ** 3) / 12;
+    const liveMm = (5 * 1 * 4000 ** 4) / (384 * 210000 * iMm4);
+    const f1Hz = (Math.PI / (2 * 4 ** 2)) * Math.sqrt((210000 * iMm4 * 1e-6) / (3100 / 9.80665));
+    const doc = { ...createScheduleDoc([createBeam("F-01", 4, 1)]), limits: { preset: "ibc-2021-floor-vibration", overrides: { frequency: { min: 40 } } } };
+    const response = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).send(doc);
+    expect(response.status).toBe(202);
+    expect(await waitForSchedule(key, response.body.id)).toMatchObject({ status: "completed", counts: { passed: 0, failed: 1 } });
+
+    const results = await api().get(`/api/v1/schedules/${response.body.id}/results`).set("authorization", `Bearer ${key}`);
+    expect(results.body.data).toEqual([expect.objectContaining({ mark: "F-01", status: "fail", governingCheck: "frequency", limitRatio: null, achievedRatio: null })]);
+    expect(results.body.data[0].utilization).toBeCloseTo(40 / f1Hz, 2);
+    const csv = await api().get(`/api/v1/schedules/${response.body.id}/results`).set("authorization", `Bearer ${key}`).set("accept", "text/csv");
+    expect(csv.text.split("\r\n")[1]).toMatch(/^F-01,floor_beam,fail,frequency,[\d.]+,[\d.]+,,$/);
+
+    const member = await api().get(`/api/v1/schedules/${response.body.id}/members/F-01`).set("authorization", `Bearer ${key}`);
+    expect(member.body).toMatchObject({ governingCheck: "frequency", status: "fail" });
+    const live = member.body.checks.find((c: { check: string }) => c.check === "live@0");
+    expect(live).toMatchObject({ pass: true, limitRatio: 360 });
+    expect(live.achievedRatio).toBeCloseTo(4000 / liveMm, 6);
   });
 
   it("accepts the same schedule as CSV with units in the headers", async () => {

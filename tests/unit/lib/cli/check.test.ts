@@ -29,10 +29,10 @@ function writeTemp(name: string, text: string): string {
  * I = [bf d^3 - (bf - tw)(d - 2tf)^3] / 12 = [100 * 200^3 - 94.4 * 183^3] / 12 = 18.46e6 mm^4
  * (doubly symmetric I from plates, fillets ignored; any mechanics-of-materials text, e.g. Gere and Goodno, Mechanics of Materials, from memory).
  * E = 210,000 MPa (EN 1993-1-1:2005 3.2.6, from memory, the source lib/engine/materials.ts names for steel-s355).
- * w_inst, live alone: 5wL^4/(384EI) = 5 * 5.0 * 8000^4 / (384 * 210,000 * 18.46e6) = 68.8 mm
+ * Live alone: 5wL^4/(384EI) = 5 * 5.0 * 8000^4 / (384 * 210,000 * 18.46e6) = 68.8 mm
  * (AISC Manual Table 3-23 case 1, from memory), against the file's own override l/360 = 22.2 mm of
- * the EN 1995-1-1 7.2 preset: utilization about 3.1, so B2 fails on the live check alone (self-weight
- * is a dead load and shear deformation is off, so neither changes w_inst).
+ * the EN 1995-1-1 7.2 preset's w_inst: utilization about 3.1, so B2 fails on live load alone, and
+ * w_inst (dead + live, EN 1995-1-1 2.2.3(2), from memory) is larger still.
  */
 /** A 20 ft US beam, I = 204 in^4, steel-aisc, under a live line load of `wKlf` (negative is uplift). */
 function createUsBeamDoc(wKlf: number) {
@@ -63,12 +63,33 @@ describe("npm run check", { timeout: 60_000 }, () => {
     const { code, stdout, stderr } = runCli([exampleJson]);
     expect(stderr).toBe("");
     expect(code).toBe(1);
-    expect(stdout).toMatch(/^mark\s+governing check\s+deflection \[mm\]\s+allowed \[mm\]\s+utilization\s+FoS\s+pass$/m);
+    expect(stdout).toMatch(/^mark\s+governing check\s+deflection \[mm\]\s+allowed \[mm\]\s+achieved\s+limit\s+utilization\s+FoS\s+pass$/m);
+    // B2's governing check is w_inst at l/360; achieved l/N is 8000 / deflection, below 360
+    expect(stdout).toMatch(/^B2\s+w_inst span 1\s+[\d.]+ down\s+22\.22\s+l\/\d+\s+l\/360\s.*FAIL$/m);
     expect(stdout).toMatch(/^B1\s.*PASS$/m);
     // B2 fails: 68.8 mm against l/360 = 22.2 mm (derived above).
     expect(stdout).toMatch(/^B2\s.*FAIL$/m);
     expect(stdout).toContain("6 members: 5 pass, 1 fail.");
     expect(stdout).toContain(CAUTION);
+  });
+
+  it("names frequency as the governing check of a member that fails only on frequency", () => {
+    // S355 plate I (as B2), 6 m, simply supported, dead 3 N/mm and 0.1 x live as mass, live 0.1 N/mm: every
+    // deflection passes; f1 = (pi / (2 L^2)) sqrt(EI / m) is about 4.9 Hz (Roark's Formulas Table
+    // 16.1 case 1, from memory), far below the 20 Hz the profile asks.
+    const doc = JSON.parse(readFileSync(join(repoRoot, exampleJson), "utf8"));
+    doc.limits = { preset: "ibc-2021-floor-vibration", overrides: { frequency: { min: 20 } } };
+    doc.members = [{ ...doc.members[5], spans: [6.0], selfWeight: false, loads: [{ case: "dead", type: "uniform", w: 3.0 }, { case: "live", type: "uniform", w: 0.1 }] }];
+    const file = writeTemp("frequency.json", JSON.stringify(doc));
+    const table = runCli([file]);
+    expect(table.code).toBe(1);
+    expect(table.stdout).toMatch(/^B2\s+frequency\s+-\s+-\s+[\d.]+ Hz\s+>= 20 Hz\s.*FAIL$/m);
+    const json = JSON.parse(runCli([file, "--json"]).stdout);
+    expect(json.members[0].checks.every((c: { pass: boolean }) => c.pass)).toBe(true);
+    expect(json.members[0].governingCheck).toMatchObject({ kind: "frequency", key: "frequency", pass: false });
+    const iMm4 = (100 * 200 ** 3 - (100 - 5.6) * (200 - 17) ** 3) / 12;
+    const f1Hz = (Math.PI / (2 * 6 ** 2)) * Math.sqrt((210000 * iMm4 * 1e-6) / (3010 / 9.80665)); // mass of dead + 0.1 live, the preset's massFactors
+    expect(json.members[0].governingCheck.utilization).toBeCloseTo(20 / f1Hz, 2);
   });
 
   it("exits 0 when every member passes (the CSV example with a profile)", () => {
@@ -153,9 +174,9 @@ describe("npm run check", { timeout: 60_000 }, () => {
     const { code, stdout } = runCli([writeTemp("us.json", JSON.stringify(doc))]);
     expect(code).toBe(0);
     expect(stdout).toContain("deflection [in]");
-    const row = /^W1\s+live span 1\s+([\d.]+) down\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+PASS$/m.exec(stdout);
-    // Allowed: l/360 for floor live load, IBC 2021 Table 1604.3 (from memory).
-    expect(row?.slice(1, 4)).toEqual([expectedIn.toFixed(3), (240 / 360).toFixed(3), (expectedIn / (240 / 360)).toFixed(3)]);
+    const row = /^W1\s+live span 1\s+([\d.]+) down\s+([\d.]+)\s+(l\/\d+)\s+(l\/\d+)\s+([\d.]+)\s+([\d.]+)\s+PASS$/m.exec(stdout);
+    // Allowed: l/360 for floor live load, IBC 2021 Table 1604.3 (from memory); achieved l/N = 240 in / deflection.
+    expect(row?.slice(1, 6)).toEqual([expectedIn.toFixed(3), (240 / 360).toFixed(3), `l/${Math.round(240 / expectedIn)}`, "l/360", (expectedIn / (240 / 360)).toFixed(3)]);
   });
 
   it("prints a failing US member's minimum I in in^4, never below 5wL^4 x 360 / (384 E L) (AISC Manual Table 3-23 case 1, from memory)", () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 
-import { getPreset, listPresetIds, listPresets, listProfileLoadCases } from "@/lib/engine/presets";
+import { DEFAULT_SUSTAINED_LIVE_FRACTION, getPreset, listPresetIds, listPresets, listProfileLoadCases, presetTakesSustainedLiveFraction } from "@/lib/engine/presets";
 
 function getPresetOrThrow(id: string) {
   const preset = getPreset(id);
@@ -9,13 +9,13 @@ function getPresetOrThrow(id: string) {
 }
 
 describe("IBC 2021 Table 1604.3 (from memory)", () => {
-  it("floor: live l/360, dead + live l/240, cantilevers on twice their length", () => {
+  it("floor: live l/360; D + L row l/240 on the creep component of dead plus immediate live (footnote); cantilevers on twice their length", () => {
     const floor = getPresetOrThrow("ibc-2021-floor");
     expect(floor.source).toContain("IBC 2021 Table 1604.3");
     expect(floor.cantileverSpanMultiplier).toBe(2);
-    expect(floor.combinations.map((c) => [c.factors, c.limitRatio])).toEqual([
-      [{ live: 1 }, 360],
-      [{ dead: 1, live: 1 }, 240],
+    expect(floor.combinations.map((c) => [c.factors, c.sustainedFactors, c.creep, c.limitRatio])).toEqual([
+      [{ live: 1 }, undefined, undefined, 360],
+      [{ live: 1 }, { dead: 1 }, "ibc_creep_component", 240],
     ]);
   });
   it.each([
@@ -39,12 +39,22 @@ describe("IBC 2021 Table 1604.3 (from memory)", () => {
 
 describe("EN 1995-1-1 7.2 timber floor", () => {
   const timber = getPresetOrThrow("en1995-timber-floor");
-  it("uses the least strict end of the Table 7.2 ranges: w_inst l/300, w_net,fin l/250, w_fin l/150 (from memory)", () => {
-    expect(timber.combinations.map((c) => [c.id, c.limitRatio])).toEqual([
-      ["w_inst", 300],
-      ["w_net_fin", 250],
-      ["w_fin", 150],
+  it("uses the least strict end of the Table 7.2 ranges: w_inst l/300, w_net,fin l/250, w_fin l/150; cantilevers l/150, l/125, l/75 on their own length (from memory)", () => {
+    expect(timber.combinations.map((c) => [c.id, c.limitRatio, c.cantileverLimitRatio])).toEqual([
+      ["w_inst", 300, 150],
+      ["w_net_fin", 250, 125],
+      ["w_fin", 150, 75],
     ]);
+    expect(timber.cantileverSpanMultiplier).toBe(1);
+  });
+  it("w_inst is the characteristic combination, dead + live (EN 1995-1-1 2.2.3(2), from memory)", () => {
+    expect(timber.combinations[0]?.factors).toEqual({ dead: 1, live: 1 });
+  });
+  it("the national-annex variant limits the variable action alone, and says so", () => {
+    const variant = getPresetOrThrow("en1995-timber-floor-na-variable-inst");
+    expect(variant.combinations[0]).toMatchObject({ id: "w_inst_q", factors: { live: 1 }, limitRatio: 300, cantileverLimitRatio: 150 });
+    expect(variant.label).toContain("national-annex");
+    expect(variant.source).toContain("national-annex variant");
   });
   it("takes creep from the material on dead + psi2 live, psi2 = 0.3 (EN 1990 Table A1.1 category A, from memory)", () => {
     const wFin = timber.combinations.find((c) => c.id === "w_fin");
@@ -54,15 +64,39 @@ describe("EN 1995-1-1 7.2 timber floor", () => {
 });
 
 describe("ACI 318-19 Table 24.2.2 (from memory)", () => {
-  it("floor: immediate live l/360, after attachment l/240 with long-term dead", () => {
+  it("floor: immediate live l/360; after attachment l/240 on lambda x (dead + sustained live) + immediate live; cantilevers on their own length", () => {
     const floor = getPresetOrThrow("aci-318-19-floor");
     expect(floor.combinations.map((c) => c.limitRatio)).toEqual([360, 240]);
-    expect(floor.combinations[1]).toMatchObject({ factors: { live: 1 }, sustainedFactors: { dead: 1 }, creep: "material" });
+    expect(floor.combinations[1]).toMatchObject({ factors: { live: 1 }, sustainedFactors: { dead: 1, live: DEFAULT_SUSTAINED_LIVE_FRACTION }, creep: "material" });
+    expect(floor.cantileverSpanMultiplier).toBe(1);
+    expect(DEFAULT_SUSTAINED_LIVE_FRACTION).toBe(1);
+    expect(floor.source).toContain("sustained live fraction 1 (default");
+  });
+  it("takes the sustained live fraction as an option, and only the ACI presets read it", () => {
+    expect(getPreset("aci-318-19-floor", { sustainedLiveFraction: 0.25 })?.combinations[1]?.sustainedFactors).toEqual({ dead: 1, live: 0.25 });
+    expect(getPreset("aci-318-19-roof", { sustainedLiveFraction: 0 })?.combinations.find((c) => c.id === "after_attachment_snow")?.sustainedFactors).toEqual({ dead: 1, snow: 0 });
+    expect(presetTakesSustainedLiveFraction("aci-318-19-floor")).toBe(true);
+    expect(presetTakesSustainedLiveFraction("ibc-2021-floor")).toBe(false);
   });
   it("sensitive floor: after attachment l/480; flat roof l/180", () => {
     expect(getPresetOrThrow("aci-318-19-floor-sensitive").combinations[1]?.limitRatio).toBe(480);
     expect(getPresetOrThrow("aci-318-19-roof").combinations[0]?.limitRatio).toBe(180);
   });
+});
+
+it("the conservative immediate dead + live l/240 is its own profile, never labelled as the IBC D + L row", () => {
+  const conservative = getPresetOrThrow("floor-conservative-immediate-total");
+  const immediate = conservative.combinations.find((c) => c.id === "dead+live_immediate");
+  expect(immediate).toMatchObject({ factors: { dead: 1, live: 1 }, limitRatio: 240 });
+  expect(immediate?.creep).toBeUndefined();
+  expect(immediate?.label).toContain("not the IBC D + L row");
+  expect(conservative.label).toContain("conservative variant");
+  // it keeps the code's rows too, so it is never less strict than ibc-2021-floor
+  expect(conservative.combinations.slice(0, 2)).toEqual(getPresetOrThrow("ibc-2021-floor").combinations);
+  // no IBC-labelled preset judges immediate dead load: its D + L rows take the creep component
+  const ibcPresets = listPresets().filter((p) => p.id.startsWith("ibc-2021"));
+  expect(ibcPresets.length).toBeGreaterThan(5);
+  for (const preset of ibcPresets) for (const c of preset.combinations) expect(c.factors.dead).toBeUndefined();
 });
 
 it("floor vibration preset asks for at least 4 Hz (common practice)", () => {

@@ -239,3 +239,18 @@ describe("buildCsvTemplate", () => {
     expect(parsed.ok ? [] : parsed.issues).toEqual([]);
   });
 });
+
+describe("moisture_condition (IBC 2021 Table 1604.3 creep component of wood, from memory: 0.5 D seasoned dry, 1.0 D otherwise)", () => {
+  const header = "mark,category,quantity,material,moisture_condition,section,b [mm],h [mm],span_1 [m],supports,dead_uniform [kN/m],live_uniform [kN/m]";
+  it("reaches intake, which sets the creep component", () => {
+    const result = parseOk(`${header}\nJ1,floor_beam,1,timber-c24,Seasoned_Dry,rectangle,47,200,3.6,pinned roller,0.2,0.6\n`);
+    expect((result.doc.members as Record<string, unknown>[])[0]?.moistureCondition).toBe("seasoned_dry");
+    const parsed = parseSchedule(result.doc);
+    expect(parsed.ok && parsed.schedule.members[0]?.ibcCreepComponentFactor).toBe(0.5);
+  });
+  it("on steel is an intake issue on that field", () => {
+    const result = parseOk(`${header}\nB1,floor_beam,1,steel-s355,unseasoned_or_wet,rectangle,100,200,3.6,pinned roller,0.2,0.6\n`);
+    const parsed = parseSchedule(result.doc);
+    expect(parsed.ok ? [] : parsed.issues.map((i) => i.path)).toEqual(["members[0].moistureCondition"]);
+  });
+});

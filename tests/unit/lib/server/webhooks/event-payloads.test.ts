@@ -38,7 +38,7 @@ const schedule = {
   errorCount: 0,
 };
 function rows(n: number): ResultRow[] {
-  return Array.from({ length: n }, (_, i) => ({ mark: `B${i + 1}`, governingCheck: "live", utilization: 0.5, factorOfSafety: 2, pass: true }));
+  return Array.from({ length: n }, (_, i) => ({ mark: `B${i + 1}`, governingCheck: "live@0", utilization: 0.5, factorOfSafety: 2, limitRatio: 360, achievedRatio: 720, pass: true }));
 }
 
 describe("event payloads conform to their published JSON Schemas", () => {
@@ -46,16 +46,20 @@ describe("event payloads conform to their published JSON Schemas", () => {
     const event = buildScheduleCompletedEvent({
       schedule,
       rows: [
-        { mark: "B1", governingCheck: "live", utilization: 0.82, factorOfSafety: 1.22, pass: true },
-        { mark: "B2", governingCheck: "total", utilization: 1.31, factorOfSafety: 0.76, pass: false },
-        { mark: "C1", governingCheck: null, utilization: null, factorOfSafety: Number.POSITIVE_INFINITY, pass: true },
+        { mark: "B1", governingCheck: "live@0", utilization: 0.82, factorOfSafety: 1.22, limitRatio: 360, achievedRatio: 439, pass: true },
+        { mark: "B2", governingCheck: "total@1", utilization: 1.31, factorOfSafety: 0.76, limitRatio: 240, achievedRatio: 183, pass: false },
+        { mark: "C1", governingCheck: null, utilization: null, factorOfSafety: Number.POSITIVE_INFINITY, limitRatio: null, achievedRatio: null, pass: true },
+        // fails on frequency alone: the frequency governs, with no deflection figures
+        { mark: "F1", governingCheck: "frequency", utilization: 1.25, factorOfSafety: 0.8, limitRatio: null, achievedRatio: null, pass: false },
       ],
       appUrl: "http://127.0.0.1:3790",
       occurredAt,
     });
     expectValid("schedule.completed", event);
     expect(event.data.truncated).toBe(false);
-    expect(event.data.rows).toHaveLength(3);
+    expect(event.data.rows).toHaveLength(4);
+    expect(event.data.rows[3]).toMatchObject({ governingCheck: "frequency", utilization: 1.25, limitRatio: null });
+    expect(event.data.rows[0]).toMatchObject({ limitRatio: 360, achievedRatio: 439 });
     // JSON cannot carry Infinity; a non-finite factor of safety is sent as null.
     expect(event.data.rows[2]!.factorOfSafety).toBeNull();
     expect(event.data.resultsUrl).toBe("http://127.0.0.1:3790/api/v1/schedules/sch_millrace2/results");

@@ -94,8 +94,24 @@ export default async function MemberPage({ params }: MemberPageProps) {
               Governing: {formatCheckKey(report.governingCheck)} · utilization {formatRatio(report.utilization)} · factor of safety{" "}
               {formatRatio(report.factorOfSafety)}
             </p>
+            {report.governingCheck === "frequency" ? (
+              <p className="mb-2 text-ink-soft">The first frequency governs: its utilization (minimum / first frequency) is higher than any deflection check's below.</p>
+            ) : null}
             <MemberChecksTable checks={checks} governingKey={report.governingCheck} />
           </section>
+
+          {report.notes.length > 0 ? (
+            <section aria-labelledby="notes-heading">
+              <h2 id="notes-heading" className="mb-2 font-semibold">
+                Assumptions and remarks
+              </h2>
+              <ul className="list-disc space-y-1 pl-5 [overflow-wrap:anywhere]">
+                {report.notes.map((note) => (
+                  <li key={note}>{note}</li>
+                ))}
+              </ul>
+            </section>
+          ) : null}
 
           <section aria-labelledby="shape-heading">
             <h2 id="shape-heading" className="mb-2 font-semibold">
