@@ -9,6 +9,7 @@
  * same formulas for rectangular and flanged sections).
  */
 import type { ReinforcedConcreteSection } from "../model";
+import { getTeeGrossProperties } from "../sections";
 
 /** Which face is in compression: sagging (positive) moment puts the top, and any flange, there. */
 export type MomentSign = "sagging" | "hogging";
@@ -38,16 +39,8 @@ function hasFlange(section: ReinforcedConcreteSection): boolean {
 export function getGrossConcreteProperties(section: ReinforcedConcreteSection): GrossConcreteProperties {
   const { webWidthMm: bw, depthMm: h } = section;
   if (!hasFlange(section)) return { areaMm2: bw * h, iGMm4: (bw * h ** 3) / 12, centroidFromTopMm: h / 2 };
-  const bf = section.flangeWidthMm!;
-  const hf = section.flangeThicknessMm!;
-  const flangeArea = bf * hf;
-  const webDepth = h - hf;
-  const webArea = bw * webDepth;
-  const areaMm2 = flangeArea + webArea;
-  const centroid = (flangeArea * (hf / 2) + webArea * (hf + webDepth / 2)) / areaMm2;
-  const iGMm4 =
-    (bf * hf ** 3) / 12 + flangeArea * (centroid - hf / 2) ** 2 + (bw * webDepth ** 3) / 12 + webArea * (hf + webDepth / 2 - centroid) ** 2;
-  return { areaMm2, iGMm4, centroidFromTopMm: centroid };
+  const tee = getTeeGrossProperties(section.flangeWidthMm!, section.flangeThicknessMm!, bw, h);
+  return { areaMm2: tee.areaMm2, iGMm4: tee.iMm4, centroidFromTopMm: tee.centroidFromTopMm };
 }
 
 /**

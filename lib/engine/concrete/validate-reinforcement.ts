@@ -9,6 +9,23 @@ type SectionField = keyof ReinforcedConcreteSection;
 const REQUIRED_POSITIVE: SectionField[] = ["webWidthMm", "depthMm", "tensionSteelMm2", "effectiveDepthMm", "steelEMpa", "ruptureMpa"];
 const OPTIONAL_POSITIVE: SectionField[] = ["flangeWidthMm", "flangeThicknessMm", "compressionSteelMm2", "compressionDepthMm"];
 
+/** A problem with one field of a reinforced section (the engine's field name). */
+export interface ReinforcementProblem {
+  field: SectionField;
+  message: string;
+}
+
+/**
+ * Geometric problems of a reinforced section whose numbers are positive and finite: d < h,
+ * d' < d, flange and compression steel given whole, flange at least as wide as the web and
+ * thinner than h, tension steel at most MAX_TENSION_STEEL_RATIO of b_w d.
+ */
+export function findReinforcementProblems(section: ReinforcedConcreteSection): ReinforcementProblem[] {
+  const issues: InputIssue[] = [];
+  collectGeometryIssues(section, "", issues);
+  return issues.map((issue) => ({ field: issue.path.slice(1) as SectionField, message: issue.message }));
+}
+
 function collectGeometryIssues(section: ReinforcedConcreteSection, path: string, issues: InputIssue[]): void {
   if (section.effectiveDepthMm >= section.depthMm) issues.push({ path: `${path}.effectiveDepthMm`, message: `effective depth d (${section.effectiveDepthMm} mm) must be less than the section depth h (${section.depthMm} mm)` });
   if ((section.flangeWidthMm === undefined) !== (section.flangeThicknessMm === undefined)) issues.push({ path: `${path}.flangeWidthMm`, message: "a flange needs both its width and its thickness" });

@@ -1,9 +1,10 @@
-import type { Load, Member, MemberCategory, SpanSegment, Support } from "../model";
+import type { Load, Member, MemberCategory, ReinforcedConcreteSection, SpanSegment, Support } from "../model";
 import type { Material } from "../materials";
 import { isStableSupportSet } from "../solver/validate-member";
 import { MAX_LOADS_PER_MEMBER, readLoad } from "./read-loads";
 import { readMaterial, resolveCreepFactor } from "./read-material";
 import { readSection, type ResolvedSection } from "./read-section";
+import { createReinforcedSection, readReinforcement, resolveReinforcedCreepFactor, type ReinforcementInput } from "./read-reinforcement";
 import {
   childPath,
   createFieldSpec,
@@ -24,10 +25,10 @@ export const MEMBER_CATEGORIES: readonly MemberCategory[] = ["floor_beam", "roof
 export const MAX_SPANS_PER_MEMBER = 50;
 const SUPPORT_KINDS = ["pinned", "roller", "fixed", "free", "spring"] as const;
 const MEMBER_SPEC = createFieldSpec(
-  ["mark", "category", "quantity", "material", "creep", "section", "spans", "overhangs", "supports", "loads", "selfWeight", "shearDeformation", "notes"],
+  ["mark", "category", "quantity", "material", "creep", "section", "spans", "overhangs", "supports", "loads", "selfWeight", "shearDeformation", "notes", "reinforcement"],
   ["mark", "category", "quantity", "material", "section", "spans", "supports", "loads"],
 );
-const SEGMENT_SPEC = createFieldSpec(["length", "section", "material"], ["length"]);
+const SEGMENT_SPEC = createFieldSpec(["length", "section", "material", "reinforcement"], ["length"]);
 const OVERHANGS_SPEC = createFieldSpec(["left", "right"]);
 const SUPPORT_SPEC = createFieldSpec(["kind", "stiffness"], ["kind"]);
 
@@ -69,10 +70,15 @@ interface SegmentDraft {
   lengthMm: number;
   section: ResolvedSection;
   material: Material;
+  /** The span's reinforcement as read (its own or the member's), null for none. */
+  reinforcement: ReinforcementInput | null;
 }
 
 /** An overhang that is not given (or is zero long) adds no span. */
 type SegmentRead = SegmentDraft | null | "none";
+
+/** Reinforcement read so far: none given (null), given and read, or given with issues. */
+type ReinforcementRead = ReinforcementInput | null | "invalid";
 
 /** A span entry: a length (number or {value, unit}) or `{ length, section?, material? }`. */
 function readSegment(
@@ -82,6 +88,7 @@ function readSegment(
   origin: string,
   baseSection: ResolvedSection | null,
   baseMaterial: Material | null,
+  baseReinforcement: ReinforcementRead,
   findCatalogue: FindCatalogue,
   allowZero: boolean,
 ): SegmentRead {
@@ -89,6 +96,7 @@ function readSegment(
   let lengthPath = path;
   let section = baseSection;
   let material = baseMaterial;
+  let reinforcement = baseReinforcement;
   if (isJsonObject(value) && !isQuantityObject(value)) {
     const block = readObject(ctx, value, path, SEGMENT_SPEC);
     if (!block) return null;
@@ -96,11 +104,12 @@ function readSegment(
     lengthPath = childPath(path, "length");
     if (block.section !== undefined) section = readSection(ctx, block.section, childPath(path, "section"), findCatalogue);
     if (block.material !== undefined) material = readMaterial(ctx, block.material, childPath(path, "material"));
+    if (block.reinforcement !== undefined) reinforcement = readReinforcement(ctx, block.reinforcement, childPath(path, "reinforcement"));
   }
   const lengthMm = readQuantity(ctx, lengthValue, lengthPath, "length", allowZero ? "nonNegative" : "positive");
   if (lengthMm === 0 && allowZero) return "none";
-  if (lengthMm === null || section === null || material === null) return null;
-  return { origin, lengthMm, section, material };
+  if (lengthMm === null || section === null || material === null || reinforcement === "invalid") return null;
+  return { origin, lengthMm, section, material, reinforcement };
 }
 
 function readSupport(ctx: ReadContext, value: unknown, path: FieldPath): Support | null {
@@ -152,6 +161,7 @@ function readSpans(
   memberPath: string,
   section: ResolvedSection | null,
   material: Material | null,
+  reinforcement: ReinforcementRead,
   findCatalogue: FindCatalogue,
 ): (SegmentDraft | null)[] {
   const spansPath = childPath(memberPath, "spans");
@@ -161,7 +171,7 @@ function readSpans(
   }
   return value.map((entry, index) => {
     const origin = memberPath + getIndexSuffix(spanSuffixes, "spans", index);
-    const draft = readSegment(ctx, entry, childPath(spansPath, index), origin, section, material, findCatalogue, false);
+    const draft = readSegment(ctx, entry, childPath(spansPath, index), origin, section, material, reinforcement, findCatalogue, false);
     return draft === "none" ? null : draft;
   });
 }
@@ -230,19 +240,22 @@ export function readMember(
   const section = block.section === undefined ? null : readSection(ctx, block.section, childPath(path, "section"), findCatalogue);
   const selfWeight = block.selfWeight === undefined ? false : readBoolean(ctx, block.selfWeight, childPath(path, "selfWeight"));
   const withShear = block.shearDeformation === undefined ? false : readBoolean(ctx, block.shearDeformation, childPath(path, "shearDeformation"));
-  const creepFactor = material ? resolveCreepFactor(ctx, material, block.creep, path, profile.usesCreep) : null;
+  const memberReinforcement: ReinforcementRead = block.reinforcement === undefined ? null : (readReinforcement(ctx, block.reinforcement, childPath(path, "reinforcement")) ?? "invalid");
+  const hasReinforcement = block.reinforcement !== undefined || hasSpanReinforcement(block.spans);
+  // a reinforced member's creep factor needs rho' of its spans: resolved once they are read
+  const creepFactor = hasReinforcement ? undefined : material ? resolveCreepFactor(ctx, material, block.creep, path, profile.usesCreep) : null;
 
-  const drafts = readSpans(ctx, block.spans, path, section, material, findCatalogue);
+  const drafts = readSpans(ctx, block.spans, path, section, material, memberReinforcement, findCatalogue);
   let left: SegmentRead = "none";
   let right: SegmentRead = "none";
   if (block.overhangs !== undefined) {
     const overhangPath = childPath(path, "overhangs");
     const sides = readObject(ctx, block.overhangs, overhangPath, OVERHANGS_SPEC);
     if (sides?.left !== undefined) {
-      left = readSegment(ctx, sides.left, childPath(overhangPath, "left"), path + LEFT_OVERHANG_SUFFIX, section, material, findCatalogue, true);
+      left = readSegment(ctx, sides.left, childPath(overhangPath, "left"), path + LEFT_OVERHANG_SUFFIX, section, material, memberReinforcement, findCatalogue, true);
     }
     if (sides?.right !== undefined) {
-      right = readSegment(ctx, sides.right, childPath(overhangPath, "right"), path + RIGHT_OVERHANG_SUFFIX, section, material, findCatalogue, true);
+      right = readSegment(ctx, sides.right, childPath(overhangPath, "right"), path + RIGHT_OVERHANG_SUFFIX, section, material, memberReinforcement, findCatalogue, true);
     }
   }
 
@@ -283,6 +296,9 @@ export function readMember(
     }
   }
 
+  const reinforced = segments && hasReinforcement ? segments.map((s) => (s.reinforcement === null ? null : createReinforcedSection(ctx, s.reinforcement, s.section, s.material, s.origin))) : null;
+  const reinforcedCreep = reinforced ? resolveReinforcedCreepFactor(ctx, block.creep, path, reinforced) : creepFactor;
+
   const allSupportsValid = !supports.includes(null);
   const listedSupports = dropNulls(supports);
   const fullSupports: Support[] =
@@ -294,9 +310,11 @@ export function readMember(
   }
 
   if (ctx.issues.count > before || !segments || mark === null || category === null || quantity === null || material === null || section === null) return null;
-  if (selfWeight === null || withShear === null || creepFactor === null) return null;
+  if (selfWeight === null || withShear === null || reinforcedCreep === null) return null;
+  const member = createMember(mark, category, quantity, fullSupports, segments, loads, selfWeight, withShear, reinforcedCreep, section, material);
+  addConcreteFacts(member, segments, reinforced);
   return {
-    member: createMember(mark, category, quantity, fullSupports, segments, loads, selfWeight, withShear, creepFactor, section, material),
+    member,
     origins: createOrigins(path, segments, supports, left !== "none", right !== "none"),
   };
 }
@@ -326,6 +344,23 @@ function createMember(
   member.sectionName = section.name;
   member.materialName = materialName;
   return member;
+}
+
+/** True when any entry of a member's `spans` gives its own reinforcement. */
+function hasSpanReinforcement(spans: unknown): boolean {
+  return Array.isArray(spans) && spans.some((entry) => isJsonObject(entry) && entry.reinforcement !== undefined);
+}
+
+/**
+ * Reinforced spans deflect cracked (their I is the outline's I_g); a library-concrete span with
+ * neither reinforcement nor an explicit I is checked with I_g and flagged on the member.
+ */
+function addConcreteFacts(member: Member, segments: readonly SegmentDraft[], reinforced: readonly (ReinforcedConcreteSection | null)[] | null): void {
+  segments.forEach((segment, index) => {
+    const section = reinforced?.[index] ?? null;
+    if (section !== null) member.spans[index]!.reinforcedConcrete = section;
+    else if (segment.material.family === "concrete" && segment.section.explicit !== true) member.concreteGrossSection = true;
+  });
 }
 
 function createOrigins(path: string, segments: readonly SegmentDraft[], listed: readonly unknown[], hasLeft: boolean, hasRight: boolean): MemberOrigins {
