@@ -100,6 +100,13 @@ export interface ResultRow {
   governingCheck: string | null;
   utilization: number | null;
   factorOfSafety: number | null;
+  /** The engine's remarks on the member (e.g. "gross section: cracking not included"); empty when none. */
+  notes: string[];
+}
+
+/** The notes stored in an outcome's detail, as a list of strings (none when absent or malformed). */
+export function readStoredNotes(value: unknown): string[] {
+  return Array.isArray(value) ? value.filter((note): note is string => typeof note === "string") : [];
 }
 
 /** Members in schedule order, keyset-paginated on member_index, filtered by outcome and category. */
@@ -117,7 +124,7 @@ export async function listResults(
           ? sql`and detail->>'error' is not null`
           : sql``;
   const rows = await sql`
-    select member_index, mark, category, pass, governing_check, utilization, factor_of_safety, detail->>'error' as error
+    select member_index, mark, category, pass, governing_check, utilization, factor_of_safety, detail->>'error' as error, detail->'notes' as notes
     from member_outcomes
     where schedule_id = ${scheduleId} and member_index > ${options.afterIndex ?? -1}
       ${statusFilter} ${options.category ? sql`and category = ${options.category}` : sql``}
@@ -131,6 +138,7 @@ export async function listResults(
     governingCheck: (r.governing_check as string | null) ?? null,
     utilization: (r.utilization as number | null) ?? null,
     factorOfSafety: (r.factor_of_safety as number | null) ?? null,
+    notes: readStoredNotes(r.notes),
   }));
   return { rows: page, hasMore: rows.length > options.limit };
 }

@@ -88,7 +88,12 @@ export function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
     const governing = r?.governing ?? null;
     // Shape and rotations are recomputed on demand for one member (get-member-report.ts): cheap for
     // one, but a large share of the bytes written for every member of a big schedule.
-    const detail = r ? (r.frequency === null && r.suggestion === null ? null : { frequency: r.frequency, suggestion: r.suggestion, error: null }) : { frequency: null, suggestion: null, error: o.error };
+    // Engine notes (e.g. "gross section: cracking not included") travel with the detail to every view.
+    const detail = r
+      ? r.frequency === null && r.suggestion === null && r.notes === undefined
+        ? null
+        : { frequency: r.frequency, suggestion: r.suggestion, error: null, ...(r.notes === undefined ? {} : { notes: r.notes }) }
+      : { frequency: null, suggestion: null, error: o.error };
     yield [
       scheduleId,
       o.index,

@@ -1,7 +1,7 @@
 import { checkMember } from "@/lib/engine/check-member";
 import { parseSchedule } from "@/lib/engine/intake";
 import type { FrequencyResult, RotationResult, ShapeSample } from "@/lib/engine/model";
-import { getMemberResult } from "@/db/queries/schedules";
+import { getMemberResult, readStoredNotes } from "@/db/queries/schedules";
 
 export interface MemberCheckRow {
   checkKey: string;
@@ -31,11 +31,13 @@ export interface MemberReport {
   checks: MemberCheckRow[];
   frequency: FrequencyResult | null;
   suggestion: { minIMm4: number; sectionName: string | null } | null;
+  /** The engine's remarks, e.g. "gross section: cracking not included"; empty when none. */
+  notes: string[];
   rotations: RotationResult[];
   shape: ShapeSample[];
 }
 
-type StoredDetail = { frequency: FrequencyResult | null; suggestion: MemberReport["suggestion"]; error: string | null };
+type StoredDetail = { frequency: FrequencyResult | null; suggestion: MemberReport["suggestion"]; error: string | null; notes?: unknown };
 
 /**
  * Re-runs the engine for one stored member for what only its own page needs: the sampled shape
@@ -86,6 +88,7 @@ export async function getMemberReport(scheduleId: string, mark: string): Promise
     })),
     frequency: detail?.frequency ?? null,
     suggestion: detail?.suggestion ?? null,
+    notes: readStoredNotes(detail?.notes),
     ...(checked && !detail?.error ? computeMemberDiagrams(header, member.input) : { shape: [], rotations: [] }),
   };
 }

@@ -33,6 +33,7 @@ export function representResult(r: ResultRow) {
     utilization: r.utilization,
     factorOfSafety: r.factorOfSafety,
     pass: r.status === "pass",
+    notes: r.notes,
   };
 }
 
@@ -47,9 +48,9 @@ function csvCell(value: string | number | boolean | null): string {
   return /[",\n\r]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
 }
 
-export const RESULT_CSV_HEADER = ["mark", "category", "status", "governing_check", "utilization", "factor_of_safety"];
+export const RESULT_CSV_HEADER = ["mark", "category", "status", "governing_check", "utilization", "factor_of_safety", "notes"];
 
 export function resultsToCsv(rows: ResultRow[], withHeader: boolean): string {
-  const lines = rows.map((r) => [r.mark, r.category, r.status, r.governingCheck, r.utilization, r.factorOfSafety].map(csvCell).join(","));
+  const lines = rows.map((r) => [r.mark, r.category, r.status, r.governingCheck, r.utilization, r.factorOfSafety, r.notes.join("; ")].map(csvCell).join(","));
   return (withHeader ? [RESULT_CSV_HEADER.join(","), ...lines] : lines).join("\r\n") + "\r\n";
 }

@@ -37,7 +37,10 @@ export function ResultsTable({ scheduleId, rows }: ResultsTableProps) {
                 </Link>
               </th>
               <td className="px-3 py-1.5">{categoryLabels[r.category] ?? r.category}</td>
-              <td className="px-3 py-1.5">{formatCheckKey(r.governingCheck)}</td>
+              <td className="px-3 py-1.5">
+                {formatCheckKey(r.governingCheck)}
+                {r.notes.length > 0 ? <p className="text-xs text-caution [overflow-wrap:anywhere]">{r.notes.join("; ")}</p> : null}
+              </td>
               <td className={`px-3 py-1.5 text-right ${r.status === "fail" ? "font-semibold" : ""}`}>{formatRatio(r.utilization)}</td>
               <td className="px-3 py-1.5 text-right" title={r.factorOfSafety === null && r.status !== "error" ? "no deflection under this check" : undefined}>
                 {formatRatio(r.factorOfSafety)}

@@ -9,6 +9,8 @@ export interface ResultRow {
   utilization: number | null;
   factorOfSafety: number | null;
   pass: boolean;
+  /** Engine remarks (e.g. "gross section: cracking not included"), only when there are any. */
+  notes?: string[];
 }
 
 export interface ScheduleCompletedData {
@@ -59,6 +61,7 @@ export function buildScheduleCompletedEvent(input: {
     utilization: toFiniteOrNull(r.utilization),
     factorOfSafety: toFiniteOrNull(r.factorOfSafety),
     pass: r.pass,
+    ...(r.notes !== undefined && r.notes.length > 0 ? { notes: r.notes } : {}),
   }));
   return createEnvelope("schedule.completed", input.occurredAt, {
     scheduleId: schedule.id,
