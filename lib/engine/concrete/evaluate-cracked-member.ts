@@ -1,8 +1,7 @@
-import type { CheckResult, FrequencyResult, LimitProfile, Member, RotationResult } from "../model";
+import type { LimitProfile, Member } from "../model";
 import { getGoverningCheck } from "../checks/evaluate-checks";
+import type { MemberEvaluation } from "../checks/evaluate-member";
 import { computeFrequency } from "../frequency";
-import type { CaseFactors } from "../solver/deflection-field";
-import type { MemberSolution } from "../solver/solve-member";
 import type { DeflectionTerm } from "./combined-deflection";
 import { describeCrackedEvaluation, evaluateCrackedDeflectionChecks, PERMANENT_CASE_FACTORS } from "./cracked-evaluation";
 import { createMemberWithInertia, hasReinforcedSpan, solveCrackedState } from "./cracked-state";
@@ -17,17 +16,8 @@ export interface CrackedMemberExtras {
   notes: string[];
 }
 
-/** The fields of a member evaluation (checks/evaluate-member.ts MemberEvaluation). */
-export interface CrackedMemberEvaluation {
-  solution: MemberSolution;
-  checks: CheckResult[];
-  governing: CheckResult | null;
-  rotations: RotationResult[];
-  frequency: FrequencyResult | null;
-  pass: boolean;
-  combinationFactors: CaseFactors[];
-  cracked: CrackedMemberExtras;
-}
+/** A member evaluation with its cracked extras (the type only: evaluate-member.ts calls this module). */
+export type CrackedMemberEvaluation = MemberEvaluation & { cracked: CrackedMemberExtras };
 
 /**
  * The frequency of a cracked member is computed with each span's I_e under the vibrating mass's
