@@ -24,7 +24,7 @@ export interface MemberEvaluation {
 
 /** Throws EngineInputError with every member issue and every profile issue (paths `profile.`). */
 export function assertMemberAndProfileValid(member: Member, profile: LimitProfile): void {
-  const issues = [...collectMemberIssues(member), ...collectReinforcementIssues(member)];
+  const issues = collectReinforcementIssues(member, collectMemberIssues(member));
   const profileIssues = collectProfileIssues(profile, member);
   if (issues.length > 0 || profileIssues.length > 0) throw new EngineInputError([...issues, ...prefixIssues(profileIssues, "profile")]);
 }

@@ -39,20 +39,21 @@ function collectGeometryIssues(section: ReinforcedConcreteSection, path: string,
 }
 
 /**
- * Problems in the reinforced concrete data of a member's spans (paths `spans[i].reinforcedConcrete.field`):
- * positive finite numbers, d < h, d' < d, flange and compression steel given whole, a plausible
- * steel ratio. Empty when no span is reinforced.
+ * Adds the problems in the reinforced concrete data of a member's spans to `issues` (paths
+ * `spans[i].reinforcedConcrete.field`) and returns it: positive finite numbers, d < h, d' < d,
+ * flange and compression steel given whole, a plausible steel ratio. Adds nothing when no span is
+ * reinforced (and allocates nothing: this runs for every member).
  */
-export function collectReinforcementIssues(member: Member): InputIssue[] {
-  const issues: InputIssue[] = [];
-  member.spans.forEach((span, index) => {
-    const section = span.reinforcedConcrete;
-    if (section === undefined) return;
+export function collectReinforcementIssues(member: Member, issues: InputIssue[] = []): InputIssue[] {
+  if (!Array.isArray(member.spans)) return issues;
+  for (let index = 0; index < member.spans.length; index++) {
+    const section = member.spans[index]!.reinforcedConcrete;
+    if (section === undefined) continue;
     const path = `spans[${index}].reinforcedConcrete`;
     const before = issues.length;
     for (const field of REQUIRED_POSITIVE) if (!isPositiveFinite(section[field])) issues.push({ path: `${path}.${field}`, message: "must be a positive finite number" });
     for (const field of OPTIONAL_POSITIVE) if (section[field] !== undefined && !isPositiveFinite(section[field])) issues.push({ path: `${path}.${field}`, message: "must be a positive finite number" });
     if (issues.length === before) collectGeometryIssues(section, path, issues);
-  });
+  }
   return issues;
 }
