@@ -8,6 +8,7 @@
  * 20.2.2.2 (all ACI clauses from memory).
  */
 import { describe, expect, it } from "vitest";
+import { createRandom } from "../solver/random";
 import { getCompressionSteelRatio, getCrackedSection, getCrackingMomentNmm, getGrossConcreteProperties } from "../../../../../lib/engine/concrete/cracked-section";
 import { getEffectiveInertiaMm4 } from "../../../../../lib/engine/concrete/effective-inertia";
 import type { ReinforcedConcreteSection } from "../../../../../lib/engine/model";
@@ -134,11 +135,7 @@ describe("effective I (ACI 318-19 Table 24.2.3.5)", () => {
   });
 
   it("property: I_cr < I_e <= I_g (I_e = I_g when a heavily reinforced I_cr reaches I_g), never growing with M_a", () => {
-    let seed = 12345;
-    const next = (): number => {
-      seed = (seed * 1103515245 + 12345) % 2147483648;
-      return seed / 2147483648;
-    };
+    const next = createRandom(12345);
     for (let trial = 0; trial < 500; trial++) {
       const b = 200 + 800 * next();
       const h = 250 + 900 * next();
