@@ -88,6 +88,31 @@ describe("cracked transformed section (PCA Notes on ACI 318, Table 8-2 formulas)
   });
 });
 
+describe("a published worked example", () => {
+  // Design of Concrete Structures (Nilson, Darwin and Dolan), Chapter 6 deflection calculator,
+  // Problem 6.28 reworking Problem 6.17 (attribution to that textbook from memory; figures as
+  // published there): b = 12 in, h = 20 in, d = 17.5 in, A_s = 4.00 in^2, f'c = 4 ksi,
+  // E_c = 3,644 ksi, n rounded to 8: kd = 7.36 in, I_cr = 4,885 in^4, I_g = 8,000 in^4,
+  // f_r = 7.5 sqrt(f'c) = 474.3 psi, M_cr = 31.62 kip-ft. (Its I_e uses the older Branson form,
+  // which ACI 318-19 replaced, so only the section figures are compared.)
+  const IN = 25.4; // mm per inch, exact (NIST SP 811)
+  const KSI = 6.894757293168361; // MPa per ksi (NIST SP 811)
+  const ecMpa = 3644 * KSI;
+  const section: ReinforcedConcreteSection = { webWidthMm: 12 * IN, depthMm: 20 * IN, tensionSteelMm2: 4 * IN * IN, effectiveDepthMm: 17.5 * IN, steelEMpa: 8 * ecMpa, ruptureMpa: 0.4743 * KSI };
+
+  it("kd = 7.36 in and I_cr = 4,885 in^4", () => {
+    const cracked = getCrackedSection(section, ecMpa, "sagging");
+    expect(cracked.neutralAxisMm / IN).toBeCloseTo(7.36, 2);
+    expect(Math.round(cracked.iCrMm4 / IN ** 4)).toBe(4885);
+  });
+
+  it("I_g = 8,000 in^4 and M_cr = 31.62 kip-ft", () => {
+    expect(getGrossConcreteProperties(section).iGMm4 / IN ** 4).toBeCloseTo(8000, 6);
+    const kipFt = 1000 * 4.4482216152605 * 12 * IN; // N*mm per kip-ft (NIST SP 811)
+    expect(getCrackingMomentNmm(section) / kipFt).toBeCloseTo(31.62, 2);
+  });
+});
+
 describe("gross section and cracking moment (ACI 318-19 24.2.3.5)", () => {
   it("rectangle: I_g = bh^3/12, M_cr = f_r I_g / (h/2)", () => {
     const gross = getGrossConcreteProperties(rectangle);
