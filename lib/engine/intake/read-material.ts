@@ -122,7 +122,7 @@ export function resolveCreepFactor(
     material.family === "timber"
       ? '{"method": "en1995", "serviceClass": 1}, {"method": "nds", "condition": "seasoned_dry"} or {"method": "factor", "factor": 0.6}'
       : material.family === "concrete"
-        ? '{"method": "aci", "durationMonths": 60, "compressionRatio": 0}'
+        ? '{"method": "aci", "durationMonths": 60, "compressionRatio": 0} (or give the reinforcement: rho\' then comes from it)'
         : 'material.creepFactor or {"method": "factor", "factor": ...}';
   ctx.issues.add(childPath(path, "creep"), `is required: the limit profile has long-term (creep) combinations and ${material.label} creeps; give ${hint}`);
   return null;
