@@ -348,7 +348,10 @@ function createMember(
 
 /** True when any entry of a member's `spans` gives its own reinforcement. */
 function hasSpanReinforcement(spans: unknown): boolean {
-  return Array.isArray(spans) && spans.some((entry) => isJsonObject(entry) && entry.reinforcement !== undefined);
+  if (!Array.isArray(spans)) return false;
+  // a plain loop: this runs for every member, and most spans are bare numbers
+  for (const entry of spans) if (typeof entry === "object" && isJsonObject(entry) && entry.reinforcement !== undefined) return true;
+  return false;
 }
 
 /**
@@ -356,11 +359,12 @@ function hasSpanReinforcement(spans: unknown): boolean {
  * neither reinforcement nor an explicit I is checked with I_g and flagged on the member.
  */
 function addConcreteFacts(member: Member, segments: readonly SegmentDraft[], reinforced: readonly (ReinforcedConcreteSection | null)[] | null): void {
-  segments.forEach((segment, index) => {
-    const section = reinforced?.[index] ?? null;
+  for (let index = 0; index < segments.length; index++) {
+    const segment = segments[index]!;
+    const section = reinforced === null ? null : (reinforced[index] ?? null);
     if (section !== null) member.spans[index]!.reinforcedConcrete = section;
     else if (segment.material.family === "concrete" && segment.section.explicit !== true) member.concreteGrossSection = true;
-  });
+  }
 }
 
 function createOrigins(path: string, segments: readonly SegmentDraft[], listed: readonly unknown[], hasLeft: boolean, hasRight: boolean): MemberOrigins {
