@@ -105,6 +105,13 @@ export interface ResultRow {
   /** The governing deflection check's limit l/N and achieved l/N; null when the frequency governs. */
   limitRatio: number | null;
   achievedRatio: number | null;
+  /** The engine's remarks on the member (e.g. "gross section: cracking not included"); empty when none. */
+  notes: string[];
+}
+
+/** The notes stored in an outcome's detail, as a list of strings (none when absent or malformed). */
+export function readStoredNotes(value: unknown): string[] {
+  return Array.isArray(value) ? value.filter((note): note is string => typeof note === "string") : [];
 }
 
 /** Members in schedule order, keyset-paginated on member_index, filtered by outcome and category. */
@@ -122,7 +129,7 @@ export async function listResults(
           ? sql`and detail->>'error' is not null`
           : sql``;
   const rows = await sql`
-    select o.member_index, o.mark, o.category, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.limit_ratio, o.achieved_ratio, o.detail->>'error' as error,
+    select o.member_index, o.mark, o.category, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.limit_ratio, o.achieved_ratio, o.detail->>'error' as error, o.detail->'notes' as notes,
       (select c.deflection_mm from member_checks c
         where c.schedule_id = o.schedule_id and c.member_index = o.member_index and c.check_key = o.governing_check) as governing_deflection_mm
     from member_outcomes o
@@ -141,6 +148,7 @@ export async function listResults(
     governingDeflectionMm: (r.governing_deflection_mm as number | null) ?? null,
     limitRatio: (r.limit_ratio as number | null) ?? null,
     achievedRatio: (r.achieved_ratio as number | null) ?? null,
+    notes: readStoredNotes(r.notes),
   }));
   return { rows: page, hasMore: rows.length > options.limit };
 }

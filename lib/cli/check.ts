@@ -159,6 +159,7 @@ function formatTable(outcome: Extract<CheckScheduleResult, { ok: true }>): strin
     if (r.suggestion) {
       out.push(`${r.mark}: needs I >= ${formatMinimumI(r.suggestion.minIMm4, schedule.unitSystem)}${r.suggestion.sectionName ? `; lightest passing catalogue section ${r.suggestion.sectionName}` : ""}`);
     }
+    for (const note of r.notes ?? []) out.push(`${r.mark}: ${note}`);
   }
   out.push(`${summary.members} members: ${summary.passed} pass, ${summary.failed} fail.`, CAUTION);
   return `${out.join("\n")}\n`;

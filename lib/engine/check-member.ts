@@ -2,7 +2,9 @@ import type { CatalogueSection, LimitProfile, Member, MemberResult, ShapeSample 
 import { assertMemberAndProfileValid, evaluateValidatedMember } from "./checks/evaluate-member";
 import { sampleSpanDeflections, type CaseFactors } from "./solver/deflection-field";
 import type { MemberSolution } from "./solver/solve-member";
-import { suggestResize } from "./suggest";
+import { suggestResize, type SuggestionOutcome } from "./suggest";
+import { sampleCombinedSpanDeflections, type DeflectionTerm } from "./concrete/combined-deflection";
+import { getConcreteNotes, getCrackedSuggestionOutcome } from "./concrete/concrete-notes";
 
 /** Points per span in the sampled shape, both ends included (shared nodes appear once). */
 export const SHAPE_POINTS_PER_SPAN = 21;
@@ -14,7 +16,7 @@ const localPositions = new Float64Array(SHAPE_POINTS_PER_SPAN);
  * The deflected shape for diagrams: SHAPE_POINTS_PER_SPAN evenly spaced points per span (the
  * support nodes included), deflection in mm (+ down) per combination id.
  */
-function sampleShape(solution: MemberSolution, combinationIds: string[], combinationFactors: CaseFactors[]): ShapeSample[] {
+function sampleShape(solution: MemberSolution, combinationIds: string[], combinationFactors: CaseFactors[], combinationTerms?: DeflectionTerm[][]): ShapeSample[] {
   const samples: ShapeSample[] = [];
   const intervals = SHAPE_POINTS_PER_SPAN - 1;
   const combinationCount = combinationIds.length;
@@ -26,7 +28,9 @@ function sampleShape(solution: MemberSolution, combinationIds: string[], combina
     const length = solution.lengthMm[span] as number;
     for (let k = 0; k <= intervals; k++) localPositions[k] = k === intervals ? length : (length * k) / intervals;
     for (let c = 0; c < combinationCount; c++) {
-      sampleSpanDeflections(solution, combinationFactors[c] as CaseFactors, span, localPositions, values, c, combinationCount);
+      const terms = combinationTerms?.[c];
+      if (terms !== undefined) sampleCombinedSpanDeflections(terms, span, localPositions, values, c, combinationCount);
+      else sampleSpanDeflections(solution, combinationFactors[c] as CaseFactors, span, localPositions, values, c, combinationCount);
     }
     for (let k = span === 0 ? 0 : 1; k <= intervals; k++) {
       // cloning a template keeps one hidden class: the stores below then hit existing fields
@@ -56,7 +60,8 @@ export interface CheckMemberOptions {
 export function checkMember(member: Member, profile: LimitProfile, catalogue?: CatalogueSection[], options: CheckMemberOptions = {}): MemberResult {
   assertMemberAndProfileValid(member, profile);
   const evaluation = evaluateValidatedMember(member, profile);
-  const outcome = evaluation.pass ? null : suggestResize(member, profile, evaluation, catalogue);
+  // a cracked member's I_e is not a section property that scales: no minimum I (concrete-notes.ts)
+  const outcome: SuggestionOutcome | null = evaluation.pass ? null : evaluation.cracked !== undefined ? getCrackedSuggestionOutcome() : suggestResize(member, profile, evaluation, catalogue);
   const result: MemberResult = {
     mark: member.mark,
     category: member.category,
@@ -69,12 +74,12 @@ export function checkMember(member: Member, profile: LimitProfile, catalogue?: C
     suggestion: outcome === null ? null : outcome.suggestion,
   };
   if (options.shape === true) {
-    result.shape = sampleShape(evaluation.solution, profile.combinations.map((combination) => combination.id), evaluation.combinationFactors);
+    result.shape = sampleShape(evaluation.solution, profile.combinations.map((combination) => combination.id), evaluation.combinationFactors, evaluation.cracked?.combinationTerms);
   }
   // most members have no notes: build the list only when there is one
-  const intakeNotes = member.intakeNotes;
-  const suggestionNotes = outcome !== null && outcome.notes.length > 0 ? outcome.notes : undefined;
-  if (intakeNotes !== undefined && intakeNotes.length > 0) result.notes = suggestionNotes ? [...intakeNotes, ...suggestionNotes] : intakeNotes;
-  else if (suggestionNotes) result.notes = suggestionNotes;
+  const concreteNotes = getConcreteNotes(member, evaluation.cracked);
+  const intakeNotes = member.intakeNotes ?? [];
+  const suggestionNotes = outcome === null ? [] : outcome.notes;
+  if (intakeNotes.length + concreteNotes.length + suggestionNotes.length > 0) result.notes = [...intakeNotes, ...concreteNotes, ...suggestionNotes];
   return result;
 }

@@ -19,6 +19,8 @@ export interface Material {
   creepFactor?: number;
   /** Where each value comes from. */
   source: string;
+  /** Concrete only: specified compressive strength f'c, MPa (for f_r and cracked sections). */
+  fcMpa?: number;
 }
 
 const KSI_TO_MPA = 1000 * PSI; // 1000 lbf / in^2 (NIST SP 811 Appendix B; exact from lbf and in)
@@ -123,6 +125,7 @@ export function createConcrete(fcMpa: number): Material {
     eMpa,
     gMpa: eMpa / (2 * (1 + CONCRETE_POISSON)),
     densityKgPerM3: CONCRETE_DENSITY_KG_PER_M3,
+    fcMpa,
     source:
       "ACI 318-19 19.2.2.1(b): Ec = 4,700 sqrt(f'c) MPa (from memory); Poisson's ratio 0.2 and density 2,400 kg/m3 (common practice)",
   };

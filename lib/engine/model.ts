@@ -43,6 +43,36 @@ export interface SpanSegment {
   gMpa?: number;
   /** Material density, for self-weight. */
   densityKgPerM3?: number;
+  /**
+   * Reinforced concrete: the span deflects with I_e (ACI 318-19 24.2.3.5) instead of iMm4, which
+   * is then the gross concrete I_g of the outline below. Absent for every other material.
+   */
+  reinforcedConcrete?: ReinforcedConcreteSection;
+}
+
+/**
+ * Outline and reinforcement of a reinforced concrete span, internal units (mm, mm^2, MPa). One
+ * layout per span: the section at the span's critical moment, depths measured from the
+ * compression face (bottom steel of a simple span, top steel of a cantilever). A flange, when
+ * given, is on the face in compression under sagging moment.
+ */
+export interface ReinforcedConcreteSection {
+  /** Web width b_w (the whole width of a rectangle) and overall depth h, mm. */
+  webWidthMm: number;
+  depthMm: number;
+  /** Flange width b_f and thickness h_f of a flanged (T) section, mm; both or neither. */
+  flangeWidthMm?: number;
+  flangeThicknessMm?: number;
+  /** Tension steel A_s (mm^2) at effective depth d (mm). */
+  tensionSteelMm2: number;
+  effectiveDepthMm: number;
+  /** Compression steel A's (mm^2) at depth d' (mm); both or neither. */
+  compressionSteelMm2?: number;
+  compressionDepthMm?: number;
+  /** Steel modulus E_s, MPa (ACI 318-19 20.2.2.2: 200,000). */
+  steelEMpa: number;
+  /** Modulus of rupture f_r, MPa (ACI 318-19 19.2.3.1: 0.62 lambda sqrt(f'c)). */
+  ruptureMpa: number;
 }
 
 /** Loads are positioned along the whole member, in mm from its left end. */
@@ -118,6 +148,11 @@ export interface Member {
   /** Assumptions intake made for this member (e.g. a conservative default), shown with its result. */
   intakeNotes?: string[];
   includeShearDeformation?: boolean;
+  /**
+   * A concrete member given without reinforcement and without an explicit effective I: checked
+   * with I_g, and every view says "gross section: cracking not included".
+   */
+  concreteGrossSection?: boolean;
   /** Where the member came from, for messages and catalogue re-sizing. */
   sectionName?: string;
   materialName?: string;

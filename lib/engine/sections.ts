@@ -25,7 +25,9 @@ export type SectionShape =
   | { shape: "round"; dMm: number }
   | { shape: "tube"; outerDMm: number; wallMm: number }
   | { shape: "i_plate"; bfMm: number; tfMm: number; dMm: number; twMm: number }
-  | { shape: "explicit"; iMm4: number; areaMm2: number | null; shearAreaMm2: number | null };
+  | { shape: "explicit"; iMm4: number; areaMm2: number | null; shearAreaMm2: number | null }
+  /** Flanged (T) concrete outline: flange bf x hf on top of a web bw, overall depth h. */
+  | { shape: "tee"; bfMm: number; hfMm: number; bwMm: number; hMm: number };
 
 export interface SectionProperties {
   iMm4: number;
@@ -71,6 +73,10 @@ export function findSectionProblems(section: SectionShape): SectionProblem[] {
         problems.push({ field: "shearArea", message: "shear area must not exceed the area A" });
       }
       break;
+    case "tee":
+      if (section.hfMm >= section.hMm) problems.push({ field: "hf", message: "the flange thickness hf must be less than the overall depth h" });
+      if (section.bwMm > section.bfMm) problems.push({ field: "bw", message: "the web width bw must not exceed the flange width bf" });
+      break;
     default:
       break;
   }
@@ -113,7 +119,26 @@ export function getSectionProperties(section: SectionShape): SectionProperties {
     }
     case "explicit":
       return { iMm4: section.iMm4, areaMm2: section.areaMm2, shearAreaMm2: section.shearAreaMm2 };
+    case "tee": {
+      const gross = getTeeGrossProperties(section.bfMm, section.hfMm, section.bwMm, section.hMm);
+      // the web carries the shear: 5/6 of bw h (common practice)
+      return { areaMm2: gross.areaMm2, iMm4: gross.iMm4, shearAreaMm2: RECTANGLE_SHEAR_COEFFICIENT * section.bwMm * section.hMm };
+    }
   }
+}
+
+/**
+ * Area and I about the centroid of a T (flange bf x hf on a web bw, overall depth h), by the
+ * parallel-axis theorem over the flange and the web below it (any mechanics-of-materials text).
+ */
+export function getTeeGrossProperties(bfMm: number, hfMm: number, bwMm: number, hMm: number): { areaMm2: number; iMm4: number; centroidFromTopMm: number } {
+  const flangeArea = bfMm * hfMm;
+  const webDepth = hMm - hfMm;
+  const webArea = bwMm * webDepth;
+  const areaMm2 = flangeArea + webArea;
+  const centroid = (flangeArea * (hfMm / 2) + webArea * (hfMm + webDepth / 2)) / areaMm2;
+  const iMm4 = (bfMm * hfMm ** 3) / 12 + flangeArea * (centroid - hfMm / 2) ** 2 + (bwMm * webDepth ** 3) / 12 + webArea * (hfMm + webDepth / 2 - centroid) ** 2;
+  return { areaMm2, iMm4, centroidFromTopMm: centroid };
 }
 
 function normaliseSectionName(name: string): string {

@@ -10,8 +10,17 @@ const SHAPE_COLUMNS: Record<string, string[]> = {
   tube: ["d", "t"],
   i_plate: ["bf", "tf", "d", "tw"],
   explicit: ["second_moment", "area", "shear_area"],
+  tee: ["bf", "hf", "bw", "h"],
 };
-export const SECTION_COLUMNS = ["b", "h", "t", "d", "bf", "tf", "tw", "area", "second_moment", "shear_area"];
+export const SECTION_COLUMNS = ["b", "h", "t", "d", "bf", "tf", "tw", "hf", "bw", "area", "second_moment", "shear_area"];
+/** CSV reinforcement column -> public `reinforcement` field (reinforced concrete). */
+export const REINFORCEMENT_FIELD_NAMES: Record<string, string> = {
+  tension_steel: "tensionSteel",
+  effective_depth: "effectiveDepth",
+  compression_steel: "compressionSteel",
+  compression_depth: "compressionDepth",
+  steel_e: "steelE",
+};
 const CUSTOM_MATERIAL_COLUMNS = ["e", "g", "density"];
 
 /** CSV section column -> public section field, per shape (columns not listed keep their name). */
@@ -48,7 +57,7 @@ export function mapMaterial(cells: Cells, member: PublicMember, readQuantity: Re
   const creep = cells.get("creep");
   const ratio = cells.get("compression_ratio");
   if (creep) {
-    const spec = parseCreep(creep.text, ratio?.text);
+    const spec = parseCreep(creep.text, ratio?.text, cells.has("tension_steel"));
     if (typeof spec === "string") fail(creep.column.header, "invalid_value", spec);
     else member.creep = spec;
   } else if (ratio) {
@@ -59,7 +68,7 @@ export function mapMaterial(cells: Cells, member: PublicMember, readQuantity: Re
   if (moisture) member.moistureCondition = moisture.text.trim().toLowerCase();
 }
 
-function parseCreep(text: string, ratioText: string | undefined): Record<string, unknown> | string {
+function parseCreep(text: string, ratioText: string | undefined, reinforced: boolean): Record<string, unknown> | string {
   const word = text.trim().toUpperCase();
   const serviceClass = /^SC([123])$/.exec(word);
   if (serviceClass) return { method: "en1995", serviceClass: Number(serviceClass[1]) };
@@ -67,7 +76,9 @@ function parseCreep(text: string, ratioText: string | undefined): Record<string,
   if (word === "NDS-WET") return { method: "nds", condition: "unseasoned_or_wet" };
   const aci = /^ACI-(3|6|12|60)$/.exec(word);
   if (aci) {
-    if (ratioText === undefined) return "ACI creep needs the compression_ratio column (rho', e.g. 0)";
+    // with reinforcement, rho' comes from compression_steel (intake refuses a ratio beside it)
+    if (ratioText === undefined && reinforced) return { method: "aci", durationMonths: Number(aci[1]) };
+    if (ratioText === undefined) return "ACI creep needs the compression_ratio column (rho', e.g. 0), or reinforcement columns";
     const ratio = parseCellNumber(ratioText);
     if (!ratio.ok) return `compression_ratio: ${ratio.message}`;
     return { method: "aci", durationMonths: Number(aci[1]), compressionRatio: ratio.value };
@@ -103,6 +114,16 @@ export function mapSection(cells: Cells, member: PublicMember, readQuantity: Rea
     }
   }
   member.section = out;
+}
+
+/** The reinforcement columns of a row, as the member's `reinforcement` (intake checks the rest). */
+export function mapReinforcement(cells: Cells, member: PublicMember, readQuantity: ReadQuantity): void {
+  const out: Record<string, unknown> = {};
+  for (const [column, field] of Object.entries(REINFORCEMENT_FIELD_NAMES)) {
+    const value = readQuantity(column);
+    if (value) out[field] = value;
+  }
+  if (Object.keys(out).length > 0 || cells.has("tension_steel") || cells.has("effective_depth")) member.reinforcement = out;
 }
 
 export function mapGeometry(columns: HeaderColumn[], cells: Cells, member: PublicMember, readQuantity: ReadQuantity, fail: Fail): void {

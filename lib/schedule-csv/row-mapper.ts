@@ -8,7 +8,7 @@
 import { QUANTITY_KIND_LABELS, SYSTEM_DEFAULT_UNITS, findUnit, type QuantityKind, type UnitSystem } from "../engine/units";
 import { getColumnRole, splitHeader, type HeaderColumn } from "./columns";
 import { findDelimiterInSingleColumnHeader } from "./delimiters";
-import { mapGeometry, mapLoads, mapMaterial, mapSection, SECTION_COLUMNS, SECTION_FIELD_NAMES, type Cells } from "./map-member-fields";
+import { mapGeometry, mapLoads, mapMaterial, mapReinforcement, mapSection, REINFORCEMENT_FIELD_NAMES, SECTION_COLUMNS, SECTION_FIELD_NAMES, type Cells } from "./map-member-fields";
 import { parseCellBoolean, parseCellNumber, splitCellList } from "./row-values";
 import { stripBom } from "./tokenize-csv";
 
@@ -154,6 +154,7 @@ function mapRow(columns: HeaderColumn[], width: number, fields: readonly string[
   }
   mapMaterial(cells, member, readQuantity, fail);
   mapSection(cells, member, readQuantity, fail);
+  mapReinforcement(cells, member, readQuantity);
   mapGeometry(columns, cells, member, readQuantity, fail);
   const sources: Record<string, string> = {};
   mapLoads(columns, cells, member, readQuantity, readQuantityList, fail, sources);
@@ -208,6 +209,11 @@ function describeSources(cells: Cells, member: PublicMember, loadSources: Record
       if (header) sources[`section.${SECTION_FIELD_NAMES[shape]?.[name] ?? name}`] = header;
     }
   }
+  for (const [name, field] of Object.entries(REINFORCEMENT_FIELD_NAMES)) {
+    const header = headerOf(name);
+    if (header) sources[`reinforcement.${field}`] = header;
+  }
+  if (member.reinforcement !== undefined) sources.reinforcement = headerOf("tension_steel") ?? headerOf("effective_depth") ?? "tension_steel";
   const spans = Array.isArray(member.spans) ? member.spans : [];
   spans.forEach((_, i) => {
     const header = headerOf(`span_${i + 1}`);

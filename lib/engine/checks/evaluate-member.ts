@@ -6,6 +6,8 @@ import { EngineInputError, prefixIssues } from "../solver/engine-input-error";
 import { solveValidatedMember, type MemberSolution } from "../solver/solve-member";
 import { collectMemberIssues } from "../solver/validate-member";
 import type { CaseFactors } from "../solver/deflection-field";
+import { collectReinforcementIssues } from "../concrete/validate-reinforcement";
+import { evaluateCrackedMember, hasReinforcedSpan, type CrackedMemberExtras } from "../concrete/evaluate-cracked-member";
 
 /** Everything checkMember derives before the suggestion and the sampled shape. */
 export interface MemberEvaluation {
@@ -18,11 +20,13 @@ export interface MemberEvaluation {
   frequency: FrequencyResult | null;
   pass: boolean;
   combinationFactors: CaseFactors[];
+  /** Reinforced concrete only: the cracked evaluation's terms and notes (concrete/evaluate-cracked-member.ts). */
+  cracked?: CrackedMemberExtras;
 }
 
 /** Throws EngineInputError with every member issue and every profile issue (paths `profile.`). */
 export function assertMemberAndProfileValid(member: Member, profile: LimitProfile): void {
-  const issues = collectMemberIssues(member);
+  const issues = collectReinforcementIssues(member, collectMemberIssues(member));
   const profileIssues = collectProfileIssues(profile, member);
   if (issues.length > 0 || profileIssues.length > 0) throw new EngineInputError([...issues, ...prefixIssues(profileIssues, "profile")]);
 }
@@ -33,6 +37,8 @@ export function assertMemberAndProfileValid(member: Member, profile: LimitProfil
  * frequency (when the profile asks for one) reaches its minimum.
  */
 export function evaluateValidatedMember(member: Member, profile: LimitProfile): MemberEvaluation {
+  // reinforced concrete deflects with load-dependent I_e (ACI 318-19 24.2.3): its own evaluation
+  if (hasReinforcedSpan(member)) return evaluateCrackedMember(member, profile);
   const solution = solveValidatedMember(member);
   const { checks, rotations, combinationFactors } = evaluateDeflectionChecks(member, profile, solution);
   const governing = getGoverningCheck(checks);

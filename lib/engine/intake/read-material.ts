@@ -120,7 +120,7 @@ const WOOD_CONSERVATIVE_NOTE =
   "IBC 2021 Table 1604.3 D + L row: the schedule does not say whether the wood is seasoned and in dry use, so the creep component is taken as 1.0 x dead (the conservative side); give moistureCondition \"seasoned_dry\" for 0.5 x dead";
 const CONCRETE_CONSERVATIVE_NOTE =
   "IBC 2021 Table 1604.3 D + L row: no ACI creep given, so the creep component is taken as lambda = 2.0 x dead (ACI 318-19 24.2.4.1 with xi = 2.0 and rho' = 0, the largest); give creep {\"method\": \"aci\", ...} for the member's own lambda";
-const CONCRETE_DEAD_ONLY_NOTE =
+export const CONCRETE_DEAD_ONLY_NOTE =
   "IBC 2021 Table 1604.3 D + L row on concrete: the creep component covers dead load only; the ACI 318-19 presets also add the creep of the sustained part of live load";
 
 /**
@@ -217,7 +217,7 @@ function resolveMaterialCreepFactor(ctx: ReadContext, material: Material, spec: 
     material.family === "timber"
       ? '{"method": "en1995", "serviceClass": 1}, {"method": "nds", "condition": "seasoned_dry"} or {"method": "factor", "factor": 0.6}'
       : material.family === "concrete"
-        ? '{"method": "aci", "durationMonths": 60, "compressionRatio": 0}'
+        ? '{"method": "aci", "durationMonths": 60, "compressionRatio": 0} (or give the reinforcement: rho\' then comes from it)'
         : 'material.creepFactor or {"method": "factor", "factor": ...}';
   ctx.issues.add(childPath(path, "creep"), `is required: the limit profile has long-term (creep) combinations and ${material.label} creeps; give ${hint}`);
   return null;

@@ -1,9 +1,10 @@
-import type { Load, Member, MemberCategory, SpanSegment, Support } from "../model";
+import type { Load, Member, MemberCategory, ReinforcedConcreteSection, SpanSegment, Support } from "../model";
 import type { Material } from "../materials";
 import { isStableSupportSet } from "../solver/validate-member";
 import { MAX_LOADS_PER_MEMBER, readLoad } from "./read-loads";
-import { readMaterial, resolveMemberCreep, type MemberCreep } from "./read-material";
+import { CONCRETE_DEAD_ONLY_NOTE, readMaterial, resolveMemberCreep, type MemberCreep } from "./read-material";
 import { readSection, type ResolvedSection } from "./read-section";
+import { createReinforcedSection, readReinforcement, resolveReinforcedCreepFactor, type ReinforcementInput } from "./read-reinforcement";
 import {
   childPath,
   createFieldSpec,
@@ -24,10 +25,10 @@ export const MEMBER_CATEGORIES: readonly MemberCategory[] = ["floor_beam", "roof
 export const MAX_SPANS_PER_MEMBER = 50;
 const SUPPORT_KINDS = ["pinned", "roller", "fixed", "free", "spring"] as const;
 const MEMBER_SPEC = createFieldSpec(
-  ["mark", "category", "quantity", "material", "creep", "moistureCondition", "section", "spans", "overhangs", "supports", "loads", "selfWeight", "shearDeformation", "notes"],
+  ["mark", "category", "quantity", "material", "creep", "moistureCondition", "section", "spans", "overhangs", "supports", "loads", "selfWeight", "shearDeformation", "notes", "reinforcement"],
   ["mark", "category", "quantity", "material", "section", "spans", "supports", "loads"],
 );
-const SEGMENT_SPEC = createFieldSpec(["length", "section", "material"], ["length"]);
+const SEGMENT_SPEC = createFieldSpec(["length", "section", "material", "reinforcement"], ["length"]);
 const OVERHANGS_SPEC = createFieldSpec(["left", "right"]);
 const SUPPORT_SPEC = createFieldSpec(["kind", "stiffness"], ["kind"]);
 
@@ -71,10 +72,15 @@ interface SegmentDraft {
   lengthMm: number;
   section: ResolvedSection;
   material: Material;
+  /** The span's reinforcement as read (its own or the member's), null for none. */
+  reinforcement: ReinforcementInput | null;
 }
 
 /** An overhang that is not given (or is zero long) adds no span. */
 type SegmentRead = SegmentDraft | null | "none";
+
+/** Reinforcement read so far: none given (null), given and read, or given with issues. */
+type ReinforcementRead = ReinforcementInput | null | "invalid";
 
 /** A span entry: a length (number or {value, unit}) or `{ length, section?, material? }`. */
 function readSegment(
@@ -84,6 +90,7 @@ function readSegment(
   origin: string,
   baseSection: ResolvedSection | null,
   baseMaterial: Material | null,
+  baseReinforcement: ReinforcementRead,
   findCatalogue: FindCatalogue,
   allowZero: boolean,
 ): SegmentRead {
@@ -91,6 +98,7 @@ function readSegment(
   let lengthPath = path;
   let section = baseSection;
   let material = baseMaterial;
+  let reinforcement = baseReinforcement;
   if (isJsonObject(value) && !isQuantityObject(value)) {
     const block = readObject(ctx, value, path, SEGMENT_SPEC);
     if (!block) return null;
@@ -98,11 +106,12 @@ function readSegment(
     lengthPath = childPath(path, "length");
     if (block.section !== undefined) section = readSection(ctx, block.section, childPath(path, "section"), findCatalogue);
     if (block.material !== undefined) material = readMaterial(ctx, block.material, childPath(path, "material"));
+    if (block.reinforcement !== undefined) reinforcement = readReinforcement(ctx, block.reinforcement, childPath(path, "reinforcement"));
   }
   const lengthMm = readQuantity(ctx, lengthValue, lengthPath, "length", allowZero ? "nonNegative" : "positive");
   if (lengthMm === 0 && allowZero) return "none";
-  if (lengthMm === null || section === null || material === null) return null;
-  return { origin, lengthMm, section, material };
+  if (lengthMm === null || section === null || material === null || reinforcement === "invalid") return null;
+  return { origin, lengthMm, section, material, reinforcement };
 }
 
 function readSupport(ctx: ReadContext, value: unknown, path: FieldPath): Support | null {
@@ -154,6 +163,7 @@ function readSpans(
   memberPath: string,
   section: ResolvedSection | null,
   material: Material | null,
+  reinforcement: ReinforcementRead,
   findCatalogue: FindCatalogue,
 ): (SegmentDraft | null)[] {
   const spansPath = childPath(memberPath, "spans");
@@ -163,7 +173,7 @@ function readSpans(
   }
   return value.map((entry, index) => {
     const origin = memberPath + getIndexSuffix(spanSuffixes, "spans", index);
-    const draft = readSegment(ctx, entry, childPath(spansPath, index), origin, section, material, findCatalogue, false);
+    const draft = readSegment(ctx, entry, childPath(spansPath, index), origin, section, material, reinforcement, findCatalogue, false);
     return draft === "none" ? null : draft;
   });
 }
@@ -232,19 +242,27 @@ export function readMember(
   const section = block.section === undefined ? null : readSection(ctx, block.section, childPath(path, "section"), findCatalogue);
   const selfWeight = block.selfWeight === undefined ? false : readBoolean(ctx, block.selfWeight, childPath(path, "selfWeight"));
   const withShear = block.shearDeformation === undefined ? false : readBoolean(ctx, block.shearDeformation, childPath(path, "shearDeformation"));
-  const creep = material ? resolveMemberCreep(ctx, material, block.creep, block.moistureCondition, path, { material: profile.usesCreep, ibc: profile.usesIbcCreep === true }) : null;
+  const memberReinforcement: ReinforcementRead = block.reinforcement === undefined ? null : (readReinforcement(ctx, block.reinforcement, childPath(path, "reinforcement")) ?? "invalid");
+  const hasReinforcement = block.reinforcement !== undefined || hasSpanReinforcement(block.spans);
+  // a reinforced member's creep factor needs rho' of its spans: resolved once they are read
+  const creep = hasReinforcement
+    ? undefined
+    : material
+      ? resolveMemberCreep(ctx, material, block.creep, block.moistureCondition, path, { material: profile.usesCreep, ibc: profile.usesIbcCreep === true })
+      : null;
+  if (hasReinforcement && block.moistureCondition !== undefined) ctx.issues.add(childPath(path, "moistureCondition"), "applies to wood only, not reinforced concrete");
 
-  const drafts = readSpans(ctx, block.spans, path, section, material, findCatalogue);
+  const drafts = readSpans(ctx, block.spans, path, section, material, memberReinforcement, findCatalogue);
   let left: SegmentRead = "none";
   let right: SegmentRead = "none";
   if (block.overhangs !== undefined) {
     const overhangPath = childPath(path, "overhangs");
     const sides = readObject(ctx, block.overhangs, overhangPath, OVERHANGS_SPEC);
     if (sides?.left !== undefined) {
-      left = readSegment(ctx, sides.left, childPath(overhangPath, "left"), path + LEFT_OVERHANG_SUFFIX, section, material, findCatalogue, true);
+      left = readSegment(ctx, sides.left, childPath(overhangPath, "left"), path + LEFT_OVERHANG_SUFFIX, section, material, memberReinforcement, findCatalogue, true);
     }
     if (sides?.right !== undefined) {
-      right = readSegment(ctx, sides.right, childPath(overhangPath, "right"), path + RIGHT_OVERHANG_SUFFIX, section, material, findCatalogue, true);
+      right = readSegment(ctx, sides.right, childPath(overhangPath, "right"), path + RIGHT_OVERHANG_SUFFIX, section, material, memberReinforcement, findCatalogue, true);
     }
   }
 
@@ -285,6 +303,9 @@ export function readMember(
     }
   }
 
+  const reinforced = segments && hasReinforcement ? segments.map((s) => (s.reinforcement === null ? null : createReinforcedSection(ctx, s.reinforcement, s.section, s.material, s.origin))) : null;
+  const memberCreep = hasReinforcement ? createReinforcedCreep(ctx, block.creep, path, reinforced, profile.usesIbcCreep === true) : creep;
+
   const allSupportsValid = !supports.includes(null);
   const listedSupports = dropNulls(supports);
   const fullSupports: Support[] =
@@ -296,11 +317,31 @@ export function readMember(
   }
 
   if (ctx.issues.count > before || !segments || mark === null || category === null || quantity === null || material === null || section === null) return null;
-  if (selfWeight === null || withShear === null || creep === null) return null;
+  if (selfWeight === null || withShear === null || memberCreep === null || memberCreep === undefined) return null;
+  const member = createMember(mark, category, quantity, fullSupports, segments, loads, selfWeight, withShear, memberCreep, section, material);
+  addConcreteFacts(member, segments, reinforced);
   return {
-    member: createMember(mark, category, quantity, fullSupports, segments, loads, selfWeight, withShear, creep, section, material),
+    member,
     origins: createOrigins(path, segments, supports, left !== "none", right !== "none"),
   };
+}
+
+/**
+ * A reinforced member's creep: lambda_Delta = xi / (1 + 50 rho') from its reinforcement (ACI 318-19
+ * 24.2.4.1.1, from memory), which is also the IBC D + L row's creep component for concrete (IBC 2021
+ * Table 1604.3 footnote, from memory: concrete follows ACI 318).
+ */
+function createReinforcedCreep(
+  ctx: ReadContext,
+  creepValue: unknown,
+  path: string,
+  reinforced: (ReinforcedConcreteSection | null)[] | null,
+  needsIbc: boolean,
+): MemberCreep | null {
+  if (reinforced === null) return null;
+  const factor = resolveReinforcedCreepFactor(ctx, creepValue, path, reinforced);
+  if (factor === null) return null;
+  return { materialCreepFactor: factor, ibcCreepComponentFactor: needsIbc ? factor : undefined, notes: needsIbc ? [CONCRETE_DEAD_ONLY_NOTE] : [] };
 }
 
 function createMember(
@@ -332,6 +373,27 @@ function createMember(
   member.sectionName = section.name;
   member.materialName = materialName;
   return member;
+}
+
+/** True when any entry of a member's `spans` gives its own reinforcement. */
+function hasSpanReinforcement(spans: unknown): boolean {
+  if (!Array.isArray(spans)) return false;
+  // a plain loop: this runs for every member, and most spans are bare numbers
+  for (const entry of spans) if (typeof entry === "object" && isJsonObject(entry) && entry.reinforcement !== undefined) return true;
+  return false;
+}
+
+/**
+ * Reinforced spans deflect cracked (their I is the outline's I_g); a library-concrete span with
+ * neither reinforcement nor an explicit I is checked with I_g and flagged on the member.
+ */
+function addConcreteFacts(member: Member, segments: readonly SegmentDraft[], reinforced: readonly (ReinforcedConcreteSection | null)[] | null): void {
+  for (let index = 0; index < segments.length; index++) {
+    const segment = segments[index]!;
+    const section = reinforced === null ? null : (reinforced[index] ?? null);
+    if (section !== null) member.spans[index]!.reinforcedConcrete = section;
+    else if (segment.material.family === "concrete" && segment.section.explicit !== true) member.concreteGrossSection = true;
+  }
 }
 
 function createOrigins(path: string, segments: readonly SegmentDraft[], listed: readonly unknown[], hasLeft: boolean, hasRight: boolean): MemberOrigins {

@@ -20,6 +20,18 @@ export interface ResolvedSection {
   iMm4: number;
   areaMm2: number | null;
   shearAreaMm2: number | null;
+  /** Concrete outline of a rectangle or tee, mm, for reinforcement (read-reinforcement.ts). */
+  outline?: ConcreteOutline;
+  /** An explicit section: its I is the schedule's own (for concrete, an explicit effective I). */
+  explicit?: true;
+}
+
+/** Web width b_w (a rectangle's b) and depth h; flange width and thickness for a tee. */
+export interface ConcreteOutline {
+  webWidthMm: number;
+  depthMm: number;
+  flangeWidthMm?: number;
+  flangeThicknessMm?: number;
 }
 
 /** Dimensions in mm (or mm^2, mm^4), aligned with ShapeSpec.fields; undefined = not given. */
@@ -53,6 +65,7 @@ const SHAPE_SPECS = new Map<string, ShapeSpec>([
   ["tube", createShapeSpec(["D", "t"], ["D", "t"])],
   ["i_plate", createShapeSpec(["bf", "tf", "d", "tw"], ["bf", "tf", "d", "tw"])],
   ["explicit", createShapeSpec(["A", "I", "shearArea"], ["I"])],
+  ["tee", createShapeSpec(["bf", "hf", "bw", "h"], ["bf", "hf", "bw", "h"])],
 ]);
 const SHAPE_LIST = [...SHAPE_SPECS.keys()].join(", ");
 const CATALOGUE_OBJECT_SPEC = createFieldSpec(["catalogue"]);
@@ -150,6 +163,9 @@ function resolveShape(ctx: ReadContext, shape: string, dims: Record<string, numb
   if (problems.length > 0) return null;
   const props = getSectionProperties(section);
   const resolved: ResolvedSection = { name: describeShape(section), iMm4: props.iMm4, areaMm2: props.areaMm2, shearAreaMm2: props.shearAreaMm2 };
+  if (section.shape === "rectangle") resolved.outline = { webWidthMm: section.bMm, depthMm: section.hMm };
+  if (section.shape === "tee") resolved.outline = { webWidthMm: section.bwMm, depthMm: section.hMm, flangeWidthMm: section.bfMm, flangeThicknessMm: section.hfMm };
+  if (section.shape === "explicit") resolved.explicit = true;
   if (resolvedShapes.size < RESOLVED_SHAPES_LIMIT) resolvedShapes.set(key, resolved);
   return resolved;
 }
@@ -169,6 +185,8 @@ function createShape(ctx: ReadContext, shape: string, dims: Record<string, numbe
       return { shape, outerDMm: getDim(dims, "D"), wallMm: getDim(dims, "t") };
     case "i_plate":
       return { shape, bfMm: getDim(dims, "bf"), tfMm: getDim(dims, "tf"), dMm: getDim(dims, "d"), twMm: getDim(dims, "tw") };
+    case "tee":
+      return { shape, bfMm: getDim(dims, "bf"), hfMm: getDim(dims, "hf"), bwMm: getDim(dims, "bw"), hMm: getDim(dims, "h") };
     case "explicit": {
       if (dims.A === null || dims.shearArea === null) return null;
       return { shape, iMm4: getDim(dims, "I"), areaMm2: dims.A ?? null, shearAreaMm2: dims.shearArea ?? null };
@@ -210,6 +228,8 @@ function getShapeKey(section: SectionShape): string {
       return `i_plate|${section.bfMm}|${section.tfMm}|${section.dMm}|${section.twMm}`;
     case "explicit":
       return `explicit|${section.iMm4}|${section.areaMm2}|${section.shearAreaMm2}`;
+    case "tee":
+      return `tee|${section.bfMm}|${section.hfMm}|${section.bwMm}|${section.hMm}`;
   }
 }
 
@@ -227,5 +247,7 @@ function describeShape(section: SectionShape): string {
       return `I ${formatMm(section.dMm)} x ${formatMm(section.bfMm)} mm (tf ${formatMm(section.tfMm)}, tw ${formatMm(section.twMm)})`;
     case "explicit":
       return `explicit I = ${Math.round(section.iMm4)} mm^4`;
+    case "tee":
+      return `tee ${formatMm(section.hMm)} deep, flange ${formatMm(section.bfMm)} x ${formatMm(section.hfMm)}, web ${formatMm(section.bwMm)} mm`;
   }
 }

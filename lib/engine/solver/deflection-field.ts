@@ -230,3 +230,14 @@ export function findSpanExtreme(solution: MemberSolution, factors: CaseFactors, 
   result.atMm = (solution.nodeXMm[span] as number) + bestS;
   return result;
 }
+
+/**
+ * Writes to `coef` the ascending coefficients (degree 5) of the deflection (mm) of `span` at local
+ * s0 + t under the combination, for the load-continuous piece that starts at s0 (0 or a
+ * breakpoint of solution.breakpointsMm). For sums over several solutions (cracked concrete,
+ * where each load level has its own stiffness).
+ */
+export function writeSpanPiecePolynomial(solution: MemberSolution, factors: CaseFactors, span: number, s0: number, coef: Float64Array): void {
+  const state = getElementState(solution, factors, span, stateScratch);
+  buildPiecePolynomial(solution, factors, span, state, s0, coef);
+}

@@ -84,7 +84,7 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
       operationId: "listResults",
       tags: ["Schedules"],
       summary: "The pass/fail table",
-      description: "One row per member, as JSON or CSV (cells that a spreadsheet would read as formulas are neutralised).",
+      description: "One row per member, as JSON or CSV (cells that a spreadsheet would read as formulas are neutralised). Each row carries the engine's notes on the member (CSV: the notes column, joined with \"; \"), e.g. \"gross section: cracking not included\" for concrete checked with its gross I.",
       parameters: [
         scheduleId,
         queryParameter("format", "Answer format (or send Accept: text/csv).", { enum: ["json", "csv"], default: "json" }),

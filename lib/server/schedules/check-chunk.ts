@@ -100,11 +100,11 @@ export function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
     const deflection = governing?.kind === "deflection" ? (r?.governing ?? null) : null;
     // Shape and rotations are recomputed on demand for one member (get-member-report.ts): cheap for
     // one, but a large share of the bytes written for every member of a big schedule.
-    const notes = r?.notes ?? null;
+    // Engine notes (e.g. "gross section: cracking not included") travel with the detail to every view.
     const detail = r
-      ? r.frequency === null && r.suggestion === null && notes === null
+      ? r.frequency === null && r.suggestion === null && r.notes === undefined
         ? null
-        : { frequency: r.frequency, suggestion: r.suggestion, error: null, ...(notes === null ? {} : { notes }) }
+        : { frequency: r.frequency, suggestion: r.suggestion, error: null, ...(r.notes === undefined ? {} : { notes: r.notes }) }
       : { frequency: null, suggestion: null, error: o.error };
     yield [
       scheduleId,

@@ -1,7 +1,7 @@
 import { checkMember } from "@/lib/engine/check-member";
 import { parseSchedule } from "@/lib/engine/intake";
 import type { FrequencyResult, RotationResult, ShapeSample } from "@/lib/engine/model";
-import { getMemberResult } from "@/db/queries/schedules";
+import { getMemberResult, readStoredNotes } from "@/db/queries/schedules";
 
 export interface MemberCheckRow {
   checkKey: string;
@@ -33,15 +33,15 @@ export interface MemberReport {
   utilization: number | null;
   factorOfSafety: number | null;
   checks: MemberCheckRow[];
-  /** Assumptions intake made and remarks from the engine (e.g. a conservative default taken). */
-  notes: string[];
   frequency: FrequencyResult | null;
   suggestion: { minIMm4: number; sectionName: string | null } | null;
+  /** Assumptions intake made and the engine's remarks, e.g. "gross section: cracking not included"; empty when none. */
+  notes: string[];
   rotations: RotationResult[];
   shape: ShapeSample[];
 }
 
-type StoredDetail = { frequency: FrequencyResult | null; suggestion: MemberReport["suggestion"]; error: string | null; notes?: string[] };
+type StoredDetail = { frequency: FrequencyResult | null; suggestion: MemberReport["suggestion"]; error: string | null; notes?: unknown };
 
 /**
  * Re-runs the engine for one stored member for what only its own page needs: the sampled shape
@@ -92,9 +92,9 @@ export async function getMemberReport(scheduleId: string, mark: string): Promise
       limitRatio: (c.limit_ratio as number | null) ?? null,
       achievedRatio: (c.achieved_ratio as number | null) ?? null,
     })),
-    notes: detail?.notes ?? [],
     frequency: detail?.frequency ?? null,
     suggestion: detail?.suggestion ?? null,
+    notes: readStoredNotes(detail?.notes),
     ...(checked && !detail?.error ? computeMemberDiagrams(header, member.input) : { shape: [], rotations: [] }),
   };
 }

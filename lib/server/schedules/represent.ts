@@ -35,6 +35,7 @@ export function representResult(r: ResultRow) {
     limitRatio: r.limitRatio,
     achievedRatio: r.achievedRatio,
     pass: r.status === "pass",
+    notes: r.notes,
   };
 }
 
@@ -49,10 +50,10 @@ function csvCell(value: string | number | boolean | null): string {
   return /[",\n\r]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
 }
 
-// limit_ratio and achieved_ratio (l/N) follow the older columns, so readers that go by position keep working.
-export const RESULT_CSV_HEADER = ["mark", "category", "status", "governing_check", "utilization", "factor_of_safety", "limit_ratio", "achieved_ratio"];
+// limit_ratio, achieved_ratio (l/N) and notes follow the older columns, so readers that go by position keep working.
+export const RESULT_CSV_HEADER = ["mark", "category", "status", "governing_check", "utilization", "factor_of_safety", "limit_ratio", "achieved_ratio", "notes"];
 
 export function resultsToCsv(rows: ResultRow[], withHeader: boolean): string {
-  const lines = rows.map((r) => [r.mark, r.category, r.status, r.governingCheck, r.utilization, r.factorOfSafety, r.limitRatio, r.achievedRatio].map(csvCell).join(","));
+  const lines = rows.map((r) => [r.mark, r.category, r.status, r.governingCheck, r.utilization, r.factorOfSafety, r.limitRatio, r.achievedRatio, r.notes.join("; ")].map(csvCell).join(","));
   return (withHeader ? [RESULT_CSV_HEADER.join(","), ...lines] : lines).join("\r\n") + "\r\n";
 }

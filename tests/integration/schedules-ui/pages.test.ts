@@ -220,7 +220,7 @@ describe("the CSV export", () => {
     expect(response.status).toBe(200);
     expect(response.headers["content-type"]).toContain("text/csv");
     const lines = response.text.trim().split("\r\n");
-    expect(lines[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety,limit_ratio,achieved_ratio");
+    expect(lines[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety,limit_ratio,achieved_ratio,notes");
     expect(lines).toHaveLength(10);
     // OWASP CSV injection guidance: a leading = + - @ is prefixed with a quote.
     expect(response.text).toContain(`"'=HYPERLINK(""http://evil.example"",""open"")"`);
@@ -248,5 +248,21 @@ describe("the CSV template", () => {
     expect(response.status).toBe(200);
     expect(response.headers["content-type"]).toContain("text/csv");
     expect(response.text.startsWith("mark,category,quantity,material")).toBe(true);
+  });
+});
+
+describe("concrete checked with its gross section", () => {
+  it("says so on the results table, the member page and the CSV export", async () => {
+    const rows = [BEAM_HEADER, ["PG-C1", "floor_beam", "1", "concrete-fc30", "rectangle", "300", "500", "4", "pinned roller", "5"]];
+    const created = await uploadCsv(submitter, toCsv(rows), { name: "Pages test concrete" });
+    expect(created.status).toBe(202);
+    await waitForSchedule(submitter, created.body.id);
+    const table = await viewer.get(`/schedules/${created.body.id}`);
+    expect(table.text).toMatch(/PG-C1[^]*?gross section: cracking not included/);
+    const member = await viewer.get(`/schedules/${created.body.id}/members/PG-C1`);
+    expect(member.text).toContain("Assumptions and remarks");
+    expect(member.text).toContain("gross section: cracking not included");
+    const csv = await viewer.get(`/schedules/${created.body.id}/results.csv`).buffer(true);
+    expect(csv.text.trim().split("\r\n")[1]).toMatch(/^PG-C1,.*,gross section: cracking not included$/);
   });
 });

@@ -49,6 +49,14 @@ const goodDocuments: [string, unknown][] = [
       },
     },
   })],
+  ["reinforced concrete on a tee, with compression steel and a span's own reinforcement", createDoc({
+    material: "concrete-fc30",
+    section: { shape: "tee", bf: 1200, hf: 100, bw: 300, h: 600 },
+    reinforcement: { tensionSteel: 2000, effectiveDepth: 530, compressionSteel: 400, compressionDepth: 60 },
+    spans: [6, { length: 5, reinforcement: { tensionSteel: { value: 2.5, unit: "in^2" }, effectiveDepth: 540, steelE: { value: 200, unit: "GPa" } } }],
+    supports: ["pinned", "pinned", "roller"],
+    creep: { method: "aci", durationMonths: 12 },
+  }, { limits: { preset: "aci-318-19-floor" } })],
   ["a preset with overrides", createDoc({}, { limits: { preset: "ibc-2021-floor", overrides: { combinations: { live: { limitRatio: 480 } }, frequency: { min: 4, massFactors: { dead: 1 } } } } })],
 ];
 
@@ -78,6 +86,8 @@ const badDocuments: [string, unknown][] = [
   ["a blank mark", withMember({ mark: "   " })],
   ["a negative load position", withMember({ loads: [{ case: "live", type: "point", at: -1, P: 1 }] })],
   ["a negative limit ratio override", createDoc({}, { limits: { preset: "ibc-2021-floor", overrides: { combinations: { live: { limitRatio: -1 } } } } })],
+  ["reinforcement without its effective depth", withMember({ material: "concrete-fc30", reinforcement: { tensionSteel: 1000 } })],
+  ["compression steel without its depth", withMember({ material: "concrete-fc30", reinforcement: { tensionSteel: 1000, effectiveDepth: 150, compressionSteel: 200 } })],
   ["a string where a number belongs", withMember({ spans: ["5 m"] })],
 ];
 

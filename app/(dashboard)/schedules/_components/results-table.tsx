@@ -41,7 +41,10 @@ export function ResultsTable({ scheduleId, rows }: ResultsTableProps) {
                 </Link>
               </th>
               <td className="px-3 py-1.5">{categoryLabels[r.category] ?? r.category}</td>
-              <td className="px-3 py-1.5">{formatCheckKey(r.governingCheck)}</td>
+              <td className="px-3 py-1.5">
+                {formatCheckKey(r.governingCheck)}
+                {r.notes.length > 0 ? <p className="text-xs text-caution [overflow-wrap:anywhere]">{r.notes.join("; ")}</p> : null}
+              </td>
               <td className="px-3 py-1.5 text-right">{formatSignedMm(r.governingDeflectionMm)}</td>
               <td className="px-3 py-1.5 text-right whitespace-nowrap">
                 {r.limitRatio === null ? "—" : `${formatSpanRatio(r.achievedRatio)} (${formatSpanRatio(r.limitRatio)})`}

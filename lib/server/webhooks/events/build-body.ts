@@ -1,6 +1,7 @@
 import { asc, eq } from "drizzle-orm";
 
 import { getDb } from "@/db/client";
+import { readStoredNotes } from "@/db/queries/schedules";
 import { memberOutcomes, schedules } from "@/db/schema";
 import { getEnv } from "@/lib/env";
 
@@ -57,12 +58,14 @@ export async function buildEventBody(event: OutboxEventRow): Promise<string> {
           limitRatio: memberOutcomes.limitRatio,
           achievedRatio: memberOutcomes.achievedRatio,
           pass: memberOutcomes.pass,
+          detail: memberOutcomes.detail,
         })
         .from(memberOutcomes)
         .where(eq(memberOutcomes.scheduleId, schedule.id))
         .orderBy(asc(memberOutcomes.memberIndex))
         .limit(RESULT_ROWS_CAP + 1);
-      return JSON.stringify(buildScheduleCompletedEvent({ schedule, rows, appUrl: getEnv().APP_URL, occurredAt }));
+      const withNotes = rows.map(({ detail, ...row }) => ({ ...row, notes: readStoredNotes((detail as { notes?: unknown } | null)?.notes) }));
+      return JSON.stringify(buildScheduleCompletedEvent({ schedule, rows: withNotes, appUrl: getEnv().APP_URL, occurredAt }));
     }
     case "schedule.failed": {
       const scheduleId = readScheduleId(event.payload) ?? "";

@@ -13,6 +13,8 @@ export interface ResultRow {
   limitRatio: number | null;
   achievedRatio: number | null;
   pass: boolean;
+  /** Engine remarks (e.g. "gross section: cracking not included"), only when there are any. */
+  notes?: string[];
 }
 
 export interface ScheduleCompletedData {
@@ -65,6 +67,7 @@ export function buildScheduleCompletedEvent(input: {
     limitRatio: toFiniteOrNull(r.limitRatio),
     achievedRatio: toFiniteOrNull(r.achievedRatio),
     pass: r.pass,
+    ...(r.notes !== undefined && r.notes.length > 0 ? { notes: r.notes } : {}),
   }));
   return createEnvelope("schedule.completed", input.occurredAt, {
     scheduleId: schedule.id,

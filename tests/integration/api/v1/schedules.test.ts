@@ -43,7 +43,7 @@ describe("POST /api/v1/schedules", () => {
 
     const csv = await api().get(`/api/v1/schedules/${response.body.id}/results`).set("authorization", `Bearer ${key}`).set("accept", "text/csv");
     expect(csv.headers["content-type"]).toContain("text/csv");
-    expect(csv.text.split("\r\n")[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety,limit_ratio,achieved_ratio");
+    expect(csv.text.split("\r\n")[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety,limit_ratio,achieved_ratio,notes");
     // Formula injection: the cell starts with a quote so a spreadsheet shows it as text.
     expect(csv.text).toContain(`"'=HYPERLINK(""x"")",floor_beam,pass`);
 
@@ -72,13 +72,28 @@ describe("POST /api/v1/schedules", () => {
     expect(results.body.data).toEqual([expect.objectContaining({ mark: "F-01", status: "fail", governingCheck: "frequency", limitRatio: null, achievedRatio: null })]);
     expect(results.body.data[0].utilization).toBeCloseTo(40 / f1Hz, 2);
     const csv = await api().get(`/api/v1/schedules/${response.body.id}/results`).set("authorization", `Bearer ${key}`).set("accept", "text/csv");
-    expect(csv.text.split("\r\n")[1]).toMatch(/^F-01,floor_beam,fail,frequency,[\d.]+,[\d.]+,,$/);
+    expect(csv.text.split("\r\n")[1]).toMatch(/^F-01,floor_beam,fail,frequency,[\d.]+,[\d.]+,,,/);
 
     const member = await api().get(`/api/v1/schedules/${response.body.id}/members/F-01`).set("authorization", `Bearer ${key}`);
     expect(member.body).toMatchObject({ governingCheck: "frequency", status: "fail" });
     const live = member.body.checks.find((c: { check: string }) => c.check === "live@0");
     expect(live).toMatchObject({ pass: true, limitRatio: 360 });
     expect(live.achievedRatio).toBeCloseTo(4000 / liveMm, 6);
+  });
+
+  it("flags concrete checked with its gross section on the results rows, the CSV export and the member answer", async () => {
+    const concrete = { ...createBeam("G-01", 6), material: "concrete-fc30", section: { shape: "rectangle", b: 300, h: 500 } };
+    const reinforced = { ...concrete, mark: "R-01", reinforcement: { tensionSteel: 1473, effectiveDepth: 440 } };
+    const response = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).send(createScheduleDoc([concrete, reinforced]));
+    expect(response.status).toBe(202);
+    expect((await waitForSchedule(key, response.body.id)).status).toBe("completed");
+    const results = await api().get(`/api/v1/schedules/${response.body.id}/results`).set("authorization", `Bearer ${key}`);
+    expect(results.body.data[0].notes).toContain("gross section: cracking not included");
+    expect(results.body.data[1].notes.join("\n")).toMatch(/^cracked section: I_e per ACI 318-19 Table 24\.2\.3\.5/m);
+    const csv = await api().get(`/api/v1/schedules/${response.body.id}/results`).set("authorization", `Bearer ${key}`).set("accept", "text/csv");
+    expect(csv.text.split("\r\n")[1]).toMatch(/gross section: cracking not included/);
+    const member = await api().get(`/api/v1/schedules/${response.body.id}/members/G-01`).set("authorization", `Bearer ${key}`);
+    expect(member.body.notes).toContain("gross section: cracking not included");
   });
 
   it("accepts the same schedule as CSV with units in the headers", async () => {

@@ -202,6 +202,26 @@ describe("npm run check", { timeout: 60_000 }, () => {
     expect(stdout).not.toMatch(/^W1\s.* down\s/m);
   });
 
+  it("flags a concrete member checked with its gross section and summarises a reinforced one (table and JSON)", () => {
+    const concrete = { category: "floor_beam", quantity: 1, material: "concrete-fc30", section: { shape: "rectangle", b: 300, h: 500 }, spans: [6], supports: ["pinned", "roller"], loads: [{ case: "dead", type: "uniform", w: 15 }, { case: "live", type: "uniform", w: 10 }] };
+    const doc = {
+      format: "sagline.schedule/v1",
+      name: "Invented RC beams",
+      units: { system: "SI" },
+      limits: { preset: "ibc-2021-floor" },
+      members: [
+        { mark: "G1", ...concrete },
+        { mark: "R1", ...concrete, reinforcement: { tensionSteel: 1473, effectiveDepth: 440 } },
+      ],
+    };
+    const path = writeTemp("concrete.json", JSON.stringify(doc));
+    const table = runCli([path]);
+    expect(table.stdout).toContain("G1: gross section: cracking not included");
+    expect(table.stdout).toMatch(/R1: cracked section: I_e per ACI 318-19 Table 24\.2\.3\.5/);
+    const json = JSON.parse(runCli([path, "--json"]).stdout);
+    expect(json.members[0].notes).toContain("gross section: cracking not included");
+  });
+
   it("passes --catalogue through: the failing member gets the lightest catalogue section with enough I", () => {
     const catalogueFile = "examples/catalogue-kestrel-plate-girders.json";
     const { code, stdout } = runCli([exampleJson, "--catalogue", catalogueFile]);

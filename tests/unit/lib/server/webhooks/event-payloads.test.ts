@@ -66,6 +66,21 @@ describe("event payloads conform to their published JSON Schemas", () => {
     expect(event.data.counts).toEqual({ members: 3, checked: 3, passed: 2, failed: 1, errors: 0 });
   });
 
+  it("schedule.completed carries a member's engine notes, and only when it has some", () => {
+    const event = buildScheduleCompletedEvent({
+      schedule,
+      rows: [
+        { mark: "C1", governingCheck: "live@0", utilization: 0.5, factorOfSafety: 2, pass: true, limitRatio: 360, achievedRatio: 720, notes: ["gross section: cracking not included"] },
+        { mark: "B1", governingCheck: "live@0", utilization: 0.5, factorOfSafety: 2, pass: true, limitRatio: 360, achievedRatio: 720, notes: [] },
+      ],
+      appUrl: "http://127.0.0.1:3790",
+      occurredAt,
+    });
+    expectValid("schedule.completed", event);
+    expect(event.data.rows[0]!.notes).toEqual(["gross section: cracking not included"]);
+    expect("notes" in event.data.rows[1]!).toBe(false);
+  });
+
   it("schedule.completed beyond the row cap is truncated and points at the results", () => {
     const big = { ...schedule, memberCount: RESULT_ROWS_CAP + 500, checkedCount: RESULT_ROWS_CAP + 500, passCount: RESULT_ROWS_CAP + 500, failCount: 0 };
     const event = buildScheduleCompletedEvent({ schedule: big, rows: rows(RESULT_ROWS_CAP + 1), appUrl: "https://sagline.example", occurredAt });

@@ -13,6 +13,7 @@ import { MemberChecksTable } from "../../../_components/member-checks-table";
 import { MemberFrequency, MemberSuggestion } from "../../../_components/member-findings";
 import { MemberInputs } from "../../../_components/member-inputs";
 import { MemberRotations } from "../../../_components/member-rotations";
+import { MemberNotes } from "../../../_components/member-notes";
 import { OutcomeLabel } from "../../../_components/outcome-label";
 import { ShapeDiagram } from "../../../_components/shape-diagram";
 
@@ -85,6 +86,7 @@ export default async function MemberPage({ params }: MemberPageProps) {
             </section>
           ) : null}
           {status === "pending" ? <p className="text-ink-soft">The workers have not checked this member yet.</p> : null}
+          <MemberNotes notes={report.notes} />
 
           <section aria-labelledby="checks-heading">
             <h2 id="checks-heading" className="mb-2 font-semibold">
@@ -99,19 +101,6 @@ export default async function MemberPage({ params }: MemberPageProps) {
             ) : null}
             <MemberChecksTable checks={checks} governingKey={report.governingCheck} />
           </section>
-
-          {report.notes.length > 0 ? (
-            <section aria-labelledby="notes-heading">
-              <h2 id="notes-heading" className="mb-2 font-semibold">
-                Assumptions and remarks
-              </h2>
-              <ul className="list-disc space-y-1 pl-5 [overflow-wrap:anywhere]">
-                {report.notes.map((note) => (
-                  <li key={note}>{note}</li>
-                ))}
-              </ul>
-            </section>
-          ) : null}
 
           <section aria-labelledby="shape-heading">
             <h2 id="shape-heading" className="mb-2 font-semibold">

@@ -1,0 +1,118 @@
+/**
+ * A reinforced concrete member solved at one service load level with the effective I of each
+ * span (ACI 318-19 24.2.3, from memory). I_e depends on the span's moment and, in an
+ * indeterminate member, the moments depend on the spans' stiffnesses, so the two are iterated to
+ * a fixed point (a statically determinate member converges at the second solve).
+ */
+import type { Member, ReinforcedConcreteSection } from "../model";
+import { createCaseFactors, type CaseFactors } from "../solver/deflection-field";
+import { findSpanMomentExtreme } from "../solver/moment-field";
+import { solveValidatedMember, type MemberSolution } from "../solver/solve-member";
+import { getCrackedSection, getCrackingMomentNmm, getGrossConcreteProperties, type MomentSign } from "./cracked-section";
+import { getEffectiveInertiaMm4 } from "./effective-inertia";
+
+/** Most solves per load level; then the lower of the last two iterates is used (and said). */
+export const MAX_CRACKED_ITERATIONS = 30;
+/** Relative change of every span's I_e below which the iteration has converged. */
+export const CRACKED_TOLERANCE = 1e-6;
+
+export interface CrackedState {
+  solution: MemberSolution;
+  factors: CaseFactors;
+  /** The I each span was solved with, mm^4 (I_e for reinforced spans, the given I otherwise). */
+  inertiaMm4: number[];
+  /** Service moment M_a of each span (largest magnitude, signed + sagging), N*mm. */
+  serviceMomentNmm: number[];
+  converged: boolean;
+}
+
+/** The member with each span's I replaced (everything else shared, not copied). */
+export function createMemberWithInertia(member: Member, inertiaMm4: readonly number[]): Member {
+  return { ...member, spans: member.spans.map((span, index) => ({ ...span, iMm4: inertiaMm4[index] as number })) };
+}
+
+interface SpanCrackingFacts {
+  iGMm4: number;
+  mCrNmm: number;
+  iCrSaggingMm4: number;
+  iCrHoggingMm4: number;
+}
+
+// Section facts depend only on the section and E_c: computed once per distinct section object.
+const factsBySection = new WeakMap<ReinforcedConcreteSection, Map<number, SpanCrackingFacts>>();
+
+function getSpanCrackingFacts(section: ReinforcedConcreteSection, concreteEMpa: number): SpanCrackingFacts {
+  let byModulus = factsBySection.get(section);
+  if (byModulus === undefined) {
+    byModulus = new Map();
+    factsBySection.set(section, byModulus);
+  }
+  let facts = byModulus.get(concreteEMpa);
+  if (facts === undefined) {
+    facts = {
+      iGMm4: getGrossConcreteProperties(section).iGMm4,
+      mCrNmm: getCrackingMomentNmm(section),
+      iCrSaggingMm4: getCrackedSection(section, concreteEMpa, "sagging").iCrMm4,
+      iCrHoggingMm4: getCrackedSection(section, concreteEMpa, "hogging").iCrMm4,
+    };
+    byModulus.set(concreteEMpa, facts);
+  }
+  return facts;
+}
+
+/**
+ * I_e of a reinforced span at service moment M_a (N*mm, + sagging): Table 24.2.3.5 with the
+ * cracked section for the moment's sign. The span's own largest moment sets one uniform I_e for
+ * the whole span: the lowest I_e that 24.2.3.6 and 24.2.3.7 (averaging, or the midspan value)
+ * could give, hence conservative (from memory).
+ */
+export function getSpanEffectiveInertiaMm4(section: ReinforcedConcreteSection, concreteEMpa: number, momentNmm: number): number {
+  const facts = getSpanCrackingFacts(section, concreteEMpa);
+  const sign: MomentSign = momentNmm >= 0 ? "sagging" : "hogging";
+  const iCr = sign === "sagging" ? facts.iCrSaggingMm4 : facts.iCrHoggingMm4;
+  return getEffectiveInertiaMm4(facts.iGMm4, iCr, facts.mCrNmm, momentNmm);
+}
+
+function getNextInertia(member: Member, solution: MemberSolution, factors: CaseFactors, current: readonly number[], moments: number[]): number[] {
+  return member.spans.map((span, index) => {
+    const moment = findSpanMomentExtreme(solution, factors, index).momentNmm;
+    moments[index] = moment;
+    return span.reinforcedConcrete === undefined ? (current[index] as number) : getSpanEffectiveInertiaMm4(span.reinforcedConcrete, span.eMpa, moment);
+  });
+}
+
+function getLargestRelativeChange(a: readonly number[], b: readonly number[]): number {
+  let change = 0;
+  for (let index = 0; index < a.length; index++) change = Math.max(change, Math.abs((a[index] as number) - (b[index] as number)) / (a[index] as number));
+  return change;
+}
+
+/**
+ * Solves a validated member at the service load level `stateFactors` (load case -> factor) with
+ * I_e in every reinforced span: start at the given I (I_g), solve, take each span's largest
+ * moment, recompute I_e, and repeat until no I_e changes by more than CRACKED_TOLERANCE. Without
+ * convergence in MAX_CRACKED_ITERATIONS solves, each span takes the lower I of the last two
+ * iterates (the softer, conservative side) and converged is false.
+ */
+export function solveCrackedState(member: Member, stateFactors: Record<string, number>): CrackedState {
+  let inertia = member.spans.map((span) => span.iMm4);
+  const moments = member.spans.map(() => 0);
+  for (let iteration = 1; iteration <= MAX_CRACKED_ITERATIONS; iteration++) {
+    const solution = solveValidatedMember(createMemberWithInertia(member, inertia));
+    const factors = createCaseFactors(solution, stateFactors);
+    const next = getNextInertia(member, solution, factors, inertia, moments);
+    if (getLargestRelativeChange(inertia, next) <= CRACKED_TOLERANCE) return { solution, factors, inertiaMm4: inertia, serviceMomentNmm: moments, converged: true };
+    if (iteration === MAX_CRACKED_ITERATIONS) inertia = inertia.map((value, index) => Math.min(value, next[index] as number));
+    else inertia = next;
+  }
+  const solution = solveValidatedMember(createMemberWithInertia(member, inertia));
+  const factors = createCaseFactors(solution, stateFactors);
+  getNextInertia(member, solution, factors, inertia, moments);
+  return { solution, factors, inertiaMm4: inertia, serviceMomentNmm: moments, converged: false };
+}
+
+/** True when any span of the member carries reinforcement (it deflects cracked). */
+export function hasReinforcedSpan(member: Member): boolean {
+  for (const span of member.spans) if (span.reinforcedConcrete !== undefined) return true;
+  return false;
+}
