@@ -53,7 +53,7 @@ export function MemberFrequency({ frequency }: MemberFrequencyProps) {
       </h2>
       {frequency ? (
         <p>
-          {formatNumber(frequency.hz)} Hz against a minimum of {formatNumber(frequency.minHz)} Hz ({frequency.method === "exact" ? "exact solution" : "Rayleigh estimate"}){" "}
+          {formatNumber(frequency.hz)} Hz against a minimum of {formatNumber(frequency.minHz)} Hz ({frequency.method === "exact" ? "exact solution" : frequency.method === "finite_element" ? "converged finite-element eigenvalue" : "Rayleigh estimate"}){" "}
           <OutcomeLabel status={frequency.pass ? "pass" : "fail"} />
         </p>
       ) : (
