@@ -14,15 +14,21 @@ const L = 6000;
 const W = 10; // N/mm
 const P = 20_000; // N
 
-export interface ClosedFormCase {
+/** Every unit a verification case may report in. */
+export type CaseUnit = "mm" | "rad" | "Hz" | "mm^4";
+
+/** One case; Unit narrows the units a case list uses (deflection cases: mm and rad). */
+export interface ClosedFormCase<Unit extends CaseUnit = "mm" | "rad"> {
   id: string;
   title: string;
   quantity: string;
   formula: string;
   source: string;
   expected: number;
-  unit: "mm" | "rad";
+  unit: Unit;
   compute: () => number;
+  /** Relative error the engine promises for this case; 1e-9 when absent (converged eigenvalues: 1e-3). */
+  tolerance?: number;
 }
 
 function createMember(supports: SupportKind[], loads: Load[]): Member {
