@@ -97,8 +97,8 @@ function getLambda(hz: number): number {
 
 // The first mesh only measures the change: it needs no certificate (a wrong mode there would only
 // show as a large change and one more refinement). Every finer mesh is certified.
-const COARSE_OPTIONS: EigenvalueOptions = { tolerance: 1e-9, certify: false, trialShift: 0 };
-const FINE_TOLERANCE = 1e-11;
+const COARSE_OPTIONS: EigenvalueOptions = { tolerance: 1e-8, certify: false, trialShift: 0 };
+const FINE_TOLERANCE = 1e-10;
 /** The refined mesh's eigenvalue is below the coarse one, and within discretisation error of it. */
 const REFINED_SHIFT = 0.995;
 

@@ -85,7 +85,7 @@ function narrowBracket(member: Member, profile: LimitProfile, lo: number, loTria
  * while (1 - MINIMUM_I_TOLERANCE) times it fails. Only I changes: E, the area (so the self-weight
  * and the vibrating mass), the shear area, the supports and the springs stay the member's own.
  * When deflection scales with 1/I and f^2 with I (no springs, no shear deformation) that I is
- * I x demand, and two rechecks confirm it. Otherwise (springs settle by a fixed amount, shear
+ * I x demand, and a recheck confirms it passes with a demand within the tolerance of 1. Otherwise (springs settle by a fixed amount, shear
  * deflection and spring-supported frequencies do not scale, the section's rotary inertia grows
  * with I) a bracketed search: expand by doubling (or halving) from that estimate until the
  * member passes (fails), then narrow the bracket. Null when even MAX_I_GROWTH times the current
@@ -99,12 +99,10 @@ function findMinimumI(member: Member, profile: LimitProfile, current?: MemberEva
   const atEstimate = evaluateAtI(member, profile, estimate);
   let steps = 1;
   if (atEstimate.pass) {
-    const below = estimate * (1 - MINIMUM_I_TOLERANCE);
-    const atBelow = evaluateAtI(member, profile, below);
-    steps += 1;
-    if (!atBelow.pass) return estimate;
-    let hi = below;
-    let hiTrial = atBelow;
+    // demand within the tolerance below 1: any smaller I raises it past 1 (it falls with I)
+    if (atEstimate.logDemand >= Math.log1p(-MINIMUM_I_TOLERANCE)) return estimate;
+    let hi = estimate;
+    let hiTrial = atEstimate;
     let lo = hi / 2;
     let loTrial = evaluateAtI(member, profile, lo);
     while (loTrial.pass && steps < MAX_SEARCH_STEPS) {

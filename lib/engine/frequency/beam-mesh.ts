@@ -70,6 +70,21 @@ function addShapeProduct(kg: number): void {
   local[9] = (local[9] as number) + kg * n3 * n3;
 }
 
+/** local += the uniform-mass element matrix m h / 420 [156, 22h, 54, -13h; ...] (upper entries). */
+function addUniformMass(kgPerMm: number, h: number): void {
+  const c = (kgPerMm * h) / 420;
+  local[0] = (local[0] as number) + 156 * c;
+  local[1] = (local[1] as number) + 22 * h * c;
+  local[2] = (local[2] as number) + 54 * c;
+  local[3] = (local[3] as number) - 13 * h * c;
+  local[4] = (local[4] as number) + 4 * h * h * c;
+  local[5] = (local[5] as number) + 13 * h * c;
+  local[6] = (local[6] as number) - 3 * h * h * c;
+  local[7] = (local[7] as number) + 156 * c;
+  local[8] = (local[8] as number) - 22 * h * c;
+  local[9] = (local[9] as number) + 4 * h * h * c;
+}
+
 /**
  * Consistent translational mass of one element on [xa, xa + h] (member mm) into `local`: the
  * integral of m(x) N_i N_j over each overlapping mass segment (Przemieniecki, Theory of Matrix
@@ -84,6 +99,10 @@ function setElementMass(model: MassModel, xa: number, h: number, tolMm: number):
     const hi = s.endMm < xb ? s.endMm : xb;
     if (!(hi - lo > tolMm)) continue;
     const slope = (s.endKgPerMm - s.startKgPerMm) / (s.endMm - s.startMm);
+    if (slope === 0 && lo - xa <= tolMm && xb - hi <= tolMm) {
+      addUniformMass(s.startKgPerMm, h);
+      continue;
+    }
     const width = hi - lo;
     for (let g = 0; g < 4; g++) {
       const x = lo + width * (GAUSS_XI[g] as number);

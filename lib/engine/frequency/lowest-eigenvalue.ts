@@ -73,8 +73,8 @@ function iterate(stiffness: Float64Array, mass: Float64Array, size: number, x: F
   let sigma = startSigma;
   let rho = Number.POSITIVE_INFINITY;
   let failedGap = 0;
+  multiplyBand(mass, size, x, work.mx);
   for (let iteration = 0; iteration < MAX_ITERATIONS; iteration++) {
-    multiplyBand(mass, size, x, work.mx);
     for (let i = 0; i < size; i++) work.y[i] = work.mx[i] as number;
     solveBand(work.factor, size, work.y);
     multiplyBand(mass, size, work.y, work.my);
@@ -83,7 +83,11 @@ function iterate(stiffness: Float64Array, mass: Float64Array, size: number, x: F
     // (K - sigma M) y = M x, so y^T K y / y^T M y = sigma + y^T M x / y^T M y
     const next = sigma + dot(work.y, work.mx, size) / yMy;
     const scale = 1 / Math.sqrt(yMy);
-    for (let i = 0; i < size; i++) x[i] = (work.y[i] as number) * scale;
+    // the next M x is M y scaled: no second product
+    for (let i = 0; i < size; i++) {
+      x[i] = (work.y[i] as number) * scale;
+      work.mx[i] = (work.my[i] as number) * scale;
+    }
     const change = Math.abs(rho - next) / next;
     rho = next;
     if (change <= tolerance) break;
