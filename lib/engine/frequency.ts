@@ -1,5 +1,5 @@
 import type { FrequencyResult, LimitProfile, Member } from "./model";
-import { assembleBeamMesh, type BeamMesh } from "./frequency/beam-mesh";
+import { assembleBeamMesh, createMeshLayout, refineMeshLayout, type BeamMesh, type MeshLayout } from "./frequency/beam-mesh";
 import { findLowestEigenvalue, type EigenvalueOptions } from "./frequency/lowest-eigenvalue";
 import { collectMassModel, getUniformMassKgPerMm, type MassModel } from "./frequency/mass-model";
 import { EngineInputError } from "./solver/engine-input-error";
@@ -18,7 +18,7 @@ export const FIRST_MODE_BETA_L = {
 } as const;
 
 /** Elements per span of the first mesh; each refinement doubles it. */
-export const START_ELEMENTS_PER_SPAN = 4;
+const START_ELEMENTS_PER_SPAN = 4;
 const MAX_ELEMENTS_PER_SPAN = 256;
 /** Refinement stops when the first frequency changes by less than this fraction. */
 export const FREQUENCY_CONVERGENCE = 1e-3;
@@ -56,27 +56,23 @@ function createStartVector(mesh: BeamMesh): Float64Array {
 }
 
 /**
- * The coarse mode on the mesh with twice the elements: nodes carried over, each new midpoint
- * from the element's Hermite cubic (v and dv/dx at xi = 1/2). A warm start for the refinement.
+ * The coarse mode on the refined layout (every element halved): nodes carried over, each new
+ * midpoint from the element's Hermite cubic (v and dv/dx at xi = 1/2). A warm start.
  */
-function refineVector(member: Member, coarse: Float64Array, coarsePerSpan: number, fine: BeamMesh): Float64Array {
+function refineVector(coarse: Float64Array, layout: MeshLayout, fine: BeamMesh): Float64Array {
   const x = new Float64Array(fine.dofCount);
-  let element = 0;
-  for (const span of member.spans) {
-    const h = span.lengthMm / coarsePerSpan;
-    for (let k = 0; k < coarsePerSpan; k++) {
-      const v0 = coarse[2 * element] as number;
-      const t0 = coarse[2 * element + 1] as number;
-      const v1 = coarse[2 * element + 2] as number;
-      const t1 = coarse[2 * element + 3] as number;
-      x[4 * element] = v0;
-      x[4 * element + 1] = t0;
-      x[4 * element + 2] = (v0 + v1) / 2 + (h * (t0 - t1)) / 8;
-      x[4 * element + 3] = (1.5 * (v1 - v0)) / h - (t0 + t1) / 4;
-      x[4 * element + 4] = v1;
-      x[4 * element + 5] = t1;
-      element += 1;
-    }
+  for (let element = 0; element < layout.elementSpan.length; element++) {
+    const h = (layout.nodeXMm[element + 1] as number) - (layout.nodeXMm[element] as number);
+    const v0 = coarse[2 * element] as number;
+    const t0 = coarse[2 * element + 1] as number;
+    const v1 = coarse[2 * element + 2] as number;
+    const t1 = coarse[2 * element + 3] as number;
+    x[4 * element] = v0;
+    x[4 * element + 1] = t0;
+    x[4 * element + 2] = (v0 + v1) / 2 + (h * (t0 - t1)) / 8;
+    x[4 * element + 3] = (1.5 * (v1 - v0)) / h - (t0 + t1) / 4;
+    x[4 * element + 4] = v1;
+    x[4 * element + 5] = t1;
   }
   for (let i = 0; i < fine.dofCount; i++) if (fine.constrained[i] === 1) x[i] = 0;
   return x;
@@ -104,27 +100,29 @@ const REFINED_SHIFT = 0.995;
 
 /**
  * First frequency (Hz) by consistent-mass beam finite elements: START_ELEMENTS_PER_SPAN equal
- * elements per span, doubled until the frequency changes by less than FREQUENCY_CONVERGENCE.
+ * elements per span with a node under every point mass (createMeshLayout), every element halved
+ * until the frequency changes by less than FREQUENCY_CONVERGENCE.
  * Consistent mass is a Rayleigh-Ritz model, so each mesh's frequency is an upper bound that falls
  * with every refinement; the value returned is the finest one less the last change, which stays
  * on the low (safe) side of the exact value while the error at least halves per refinement
- * (cubic elements: about 1/16 per halving for smooth mass, 1/8 with point masses).
+ * (cubic elements with nodes at the point masses: about 1/16 per halving).
  */
-function computeFiniteElementHz(member: Member, model: MassModel): { hz: number; elementsPerSpan: number } {
-  let perSpan = START_ELEMENTS_PER_SPAN;
+function computeFiniteElementHz(member: Member, model: MassModel): number {
+  let layout = createMeshLayout(member, model, START_ELEMENTS_PER_SPAN);
   let slot: 0 | 1 = 0;
-  const first = assembleBeamMesh(member, model, perSpan, slot);
+  const first = assembleBeamMesh(member, model, layout, slot);
   let x = createStartVector(first);
   let previousHz = solveMesh(first, x, COARSE_OPTIONS);
-  for (;;) {
+  for (let perSpan = 2 * START_ELEMENTS_PER_SPAN; ; perSpan *= 2) {
     slot = slot === 0 ? 1 : 0;
-    const finer = assembleBeamMesh(member, model, 2 * perSpan, slot);
-    const warm = refineVector(member, x, perSpan, finer);
+    const finerLayout = refineMeshLayout(layout);
+    const finer = assembleBeamMesh(member, model, finerLayout, slot);
+    const warm = refineVector(x, layout, finer);
     const hz = solveMesh(finer, warm, { tolerance: FINE_TOLERANCE, certify: true, trialShift: REFINED_SHIFT * getLambda(previousHz) });
-    perSpan *= 2;
     const change = Math.abs(previousHz - hz);
-    if (change < FREQUENCY_CONVERGENCE * hz || perSpan >= MAX_ELEMENTS_PER_SPAN) return { hz: hz - change, elementsPerSpan: perSpan };
+    if (change < FREQUENCY_CONVERGENCE * hz || perSpan >= MAX_ELEMENTS_PER_SPAN) return hz - change;
     previousHz = hz;
+    layout = finerLayout;
     x = warm;
   }
 }
@@ -156,7 +154,7 @@ export function computeFrequency(member: Member, profile: LimitProfile): Frequen
     hz = ((betaL * betaL) / (2 * Math.PI * span.lengthMm * span.lengthMm)) * Math.sqrt((1000 * span.eMpa * span.iMm4) / uniformMass);
     method = "exact";
   } else {
-    hz = computeFiniteElementHz(member, model).hz;
+    hz = computeFiniteElementHz(member, model);
     method = "finite_element";
   }
   if (!Number.isFinite(hz) || !(hz > 0)) {

@@ -7,18 +7,89 @@ const BAND = HALF_BANDWIDTH;
 const ROW = BAND + 1;
 
 /**
- * A member subdivided into beam elements for the eigenvalue: every span into elementsPerSpan
- * equal elements, two DOFs per node (v down, theta = dv/dx), matrices stored as upper bands in
- * the banded-ldl layout (band[i*4 + k] = A[i][i+k]). Units: stiffness N/mm, N, N*mm; mass kg,
- * kg*mm, kg*mm^2; so K x = lambda M x gives lambda in N/(mm kg) = 1000 / s^2.
- * DOFs held by supports have a unit stiffness diagonal and no mass (their eigenvalue is infinite).
+ * Where the nodes of a mesh lie: every support, every point mass (so the mode's kink under a point
+ * mass falls on a node and the elements converge at their full rate), and equal subdivisions of
+ * each span between them. Refining halves every element, so each mesh contains the previous one.
+ */
+export interface MeshLayout {
+  /** Node positions from the member's left end, mm, ascending. */
+  nodeXMm: number[];
+  /** The span each element lies in. */
+  elementSpan: number[];
+  /** The node of each support (spans + 1). */
+  supportNode: number[];
+}
+
+/**
+ * A member subdivided into beam elements for the eigenvalue: two DOFs per node (v down,
+ * theta = dv/dx), matrices stored as upper bands in the banded-ldl layout
+ * (band[i*4 + k] = A[i][i+k]). Units: stiffness N/mm, N, N*mm; mass kg, kg*mm, kg*mm^2; so
+ * K x = lambda M x gives lambda in N/(mm kg) = 1000 / s^2. DOFs held by supports have a unit
+ * stiffness diagonal and no mass (their eigenvalue is infinite).
  */
 export interface BeamMesh {
   dofCount: number;
-  elementsPerSpan: number;
   stiffness: Float64Array;
   mass: Float64Array;
   constrained: Uint8Array;
+}
+
+/**
+ * The first layout: elementsPerSpan equal elements per span, with a node at every point mass: the
+ * nearest equal-division node moves onto it when within a quarter element, otherwise a node is
+ * added. No node comes closer than an eighth of an element to another (a point mass that close
+ * stays inside its element), which keeps the stiffness well conditioned.
+ */
+export function createMeshLayout(member: Member, model: MassModel, elementsPerSpan: number): MeshLayout {
+  const nodeXMm: number[] = [0];
+  const elementSpan: number[] = [];
+  const supportNode: number[] = [0];
+  let x0 = 0;
+  member.spans.forEach((span, e) => {
+    const x1 = x0 + span.lengthMm;
+    const h = span.lengthMm / elementsPerSpan;
+    const cuts: number[] = [];
+    const moved: boolean[] = [];
+    for (let k = 1; k < elementsPerSpan; k++) {
+      cuts.push(x0 + k * h);
+      moved.push(false);
+    }
+    for (const p of model.points) {
+      if (!(p.atMm > x0 && p.atMm < x1)) continue;
+      const k = Math.round((p.atMm - x0) / h);
+      if (k >= 1 && k < elementsPerSpan && !moved[k - 1] && Math.abs(p.atMm - (cuts[k - 1] as number)) < h / 4) {
+        cuts[k - 1] = p.atMm;
+        moved[k - 1] = true;
+      } else {
+        cuts.push(p.atMm);
+      }
+    }
+    cuts.sort((a, b) => a - b);
+    const minimumMm = h / 8;
+    for (const x of cuts) {
+      if (x - (nodeXMm[nodeXMm.length - 1] as number) < minimumMm || x1 - x < minimumMm) continue;
+      nodeXMm.push(x);
+      elementSpan.push(e);
+    }
+    nodeXMm.push(x1);
+    elementSpan.push(e);
+    supportNode.push(nodeXMm.length - 1);
+    x0 = x1;
+  });
+  return { nodeXMm, elementSpan, supportNode };
+}
+
+/** The layout with every element halved. */
+export function refineMeshLayout(layout: MeshLayout): MeshLayout {
+  const nodeXMm: number[] = [layout.nodeXMm[0] as number];
+  const elementSpan: number[] = [];
+  for (let e = 0; e < layout.elementSpan.length; e++) {
+    const a = layout.nodeXMm[e] as number;
+    const b = layout.nodeXMm[e + 1] as number;
+    nodeXMm.push((a + b) / 2, b);
+    elementSpan.push(layout.elementSpan[e] as number, layout.elementSpan[e] as number);
+  }
+  return { nodeXMm, elementSpan, supportNode: layout.supportNode.map((node) => 2 * node) };
 }
 
 // 4-point Gauss-Legendre on [0, 1]: exact for the degree-7 integrand (linear mass x two cubics)
@@ -112,23 +183,19 @@ function setElementMass(model: MassModel, xa: number, h: number, tolMm: number):
   }
 }
 
-/** Each point mass m N_i N_j on the element holding it (a shared node: the element on its right). */
-function addPointMasses(member: Member, model: MassModel, elementsPerSpan: number, mass: Float64Array): void {
-  const spanCount = member.spans.length;
+/** Each point mass m N_i N_j on the element holding it (on a node: the element on its right). */
+function addPointMasses(layout: MeshLayout, model: MassModel, mass: Float64Array): void {
+  const last = layout.elementSpan.length - 1;
   for (const p of model.points) {
-    let x0 = 0;
     let e = 0;
-    while (e < spanCount - 1 && p.atMm >= x0 + member.spans[e]!.lengthMm) {
-      x0 += member.spans[e]!.lengthMm;
-      e += 1;
-    }
-    const h = member.spans[e]!.lengthMm / elementsPerSpan;
-    const k = Math.min(elementsPerSpan - 1, Math.max(0, Math.floor((p.atMm - x0) / h)));
-    const xi = Math.min(1, Math.max(0, (p.atMm - x0 - k * h) / h));
+    while (e < last && p.atMm >= (layout.nodeXMm[e + 1] as number)) e += 1;
+    const xa = layout.nodeXMm[e] as number;
+    const h = (layout.nodeXMm[e + 1] as number) - xa;
+    const xi = Math.min(1, Math.max(0, (p.atMm - xa) / h));
     for (let i = 0; i < 10; i++) local[i] = 0;
     setShape(xi, h);
     addShapeProduct(p.kg);
-    addUpper(mass, 2 * (e * elementsPerSpan + k) * ROW, local);
+    addUpper(mass, 2 * e * ROW, local);
   }
 }
 
@@ -141,7 +208,7 @@ function setUpper(m: number[], a: number, b: number, c: number, d: number, e: nu
 }
 
 // two meshes live at once (the coarse mode warm-starts the finer mesh): one scratch per slot
-const scratchMeshes: BeamMesh[] = [0, 1].map(() => ({ dofCount: 0, elementsPerSpan: 0, stiffness: new Float64Array(64), mass: new Float64Array(64), constrained: new Uint8Array(16) }));
+const scratchMeshes: BeamMesh[] = [0, 1].map(() => ({ dofCount: 0, stiffness: new Float64Array(64), mass: new Float64Array(64), constrained: new Uint8Array(16) }));
 
 function getScratchMesh(slot: 0 | 1, dofCount: number): BeamMesh {
   const mesh = scratchMeshes[slot]!;
@@ -154,21 +221,20 @@ function getScratchMesh(slot: 0 | 1, dofCount: number): BeamMesh {
 }
 
 /**
- * Assembles the stiffness and consistent mass bands of the member with elementsPerSpan equal
- * elements per span. Stiffness: Euler-Bernoulli, or Timoshenko with phi = 12 EI / (kGA h^2) when
+ * Assembles the stiffness and consistent mass bands of the member on the layout's elements.
+ * Stiffness: Euler-Bernoulli, or Timoshenko with phi = 12 EI / (kGA h^2) when
  * member.includeShearDeformation (the same element as the static solver; Przemieniecki, from
  * memory). Rotary inertia rho I of the member's own section is added, with the Hermite rotary
  * matrix rho I / (30 h) [36, 3h, -36, 3h; ...], only when shear deformation is included and the
  * self-weight is counted (Timoshenko beam theory takes both). Springs add to the v diagonal.
  * The mesh is scratch memory of the given slot, valid until the slot is assembled again.
  */
-export function assembleBeamMesh(member: Member, model: MassModel, elementsPerSpan: number, slot: 0 | 1): BeamMesh {
+export function assembleBeamMesh(member: Member, model: MassModel, layout: MeshLayout, slot: 0 | 1): BeamMesh {
   const spanCount = member.spans.length;
-  const nodeCount = spanCount * elementsPerSpan + 1;
-  const dofCount = 2 * nodeCount;
+  const elementCount = layout.elementSpan.length;
+  const dofCount = 2 * (elementCount + 1);
   const mesh = getScratchMesh(slot, dofCount);
   mesh.dofCount = dofCount;
-  mesh.elementsPerSpan = elementsPerSpan;
   const { stiffness, mass, constrained } = mesh;
   // plain loops: a fill() call per member costs more than clearing a few entries
   for (let i = 0; i < dofCount * ROW; i++) {
@@ -178,14 +244,11 @@ export function assembleBeamMesh(member: Member, model: MassModel, elementsPerSp
   for (let i = 0; i < dofCount; i++) constrained[i] = 0;
   const withShear = member.includeShearDeformation === true;
   const withRotaryInertia = withShear && member.selfWeightCase !== undefined;
-  let totalMm = 0;
-  for (const span of member.spans) totalMm += span.lengthMm;
-  const tolMm = totalMm * 1e-9;
-  let xStart = 0;
-  let element = 0;
-  for (let e = 0; e < spanCount; e++) {
-    const span = member.spans[e]!;
-    const h = span.lengthMm / elementsPerSpan;
+  const tolMm = (layout.nodeXMm[elementCount] as number) * 1e-9;
+  for (let element = 0; element < elementCount; element++) {
+    const span = member.spans[layout.elementSpan[element] as number]!;
+    const xa = layout.nodeXMm[element] as number;
+    const h = (layout.nodeXMm[element + 1] as number) - xa;
     const ei = span.eMpa * span.iMm4;
     const phi = withShear ? (12 * ei) / (span.gMpa! * span.shearAreaMm2! * h * h) : 0;
     const a = ei / ((1 + phi) * h * h * h);
@@ -194,23 +257,20 @@ export function assembleBeamMesh(member: Member, model: MassModel, elementsPerSp
     const k22 = (4 + phi) * h * h * a;
     const k24 = (2 - phi) * h * h * a;
     setUpper(elementStiffness, k11, k12, -k11, k12, k22, -k12, k24, k11, -k12, k22);
-    const j = withRotaryInertia ? (span.densityKgPerM3! * 1e-9 * span.iMm4) / (30 * h) : 0;
-    setUpper(rotary, 36 * j, 3 * h * j, -36 * j, 3 * h * j, 4 * h * h * j, -3 * h * j, -h * h * j, 36 * j, -3 * h * j, 4 * h * h * j);
-    for (let k = 0; k < elementsPerSpan; k++) {
-      const base = 2 * element * ROW;
-      const xa = k === elementsPerSpan - 1 ? xStart + span.lengthMm - h : xStart + k * h;
-      addUpper(stiffness, base, elementStiffness);
-      setElementMass(model, xa, h, tolMm);
-      addUpper(mass, base, local);
-      if (withRotaryInertia) addUpper(mass, base, rotary);
-      element += 1;
+    const base = 2 * element * ROW;
+    addUpper(stiffness, base, elementStiffness);
+    setElementMass(model, xa, h, tolMm);
+    addUpper(mass, base, local);
+    if (withRotaryInertia) {
+      const j = (span.densityKgPerM3! * 1e-9 * span.iMm4) / (30 * h);
+      setUpper(rotary, 36 * j, 3 * h * j, -36 * j, 3 * h * j, 4 * h * h * j, -3 * h * j, -h * h * j, 36 * j, -3 * h * j, 4 * h * h * j);
+      addUpper(mass, base, rotary);
     }
-    xStart += span.lengthMm;
   }
-  addPointMasses(member, model, elementsPerSpan, mass);
+  addPointMasses(layout, model, mass);
   for (let s = 0; s <= spanCount; s++) {
     const support = member.supports[s]!;
-    const dof = 2 * s * elementsPerSpan;
+    const dof = 2 * (layout.supportNode[s] as number);
     if (support.kind === "pinned" || support.kind === "roller" || support.kind === "fixed") constrained[dof] = 1;
     if (support.kind === "fixed") constrained[dof + 1] = 1;
     if (support.kind === "spring") stiffness[dof * ROW] = (stiffness[dof * ROW] as number) + support.springNPerMm!;

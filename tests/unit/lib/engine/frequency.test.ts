@@ -200,6 +200,8 @@ describe("against an independent finite-element model (ml-matrix)", () => {
     ["two unequal spans (6 m + 3 m)", createMember(createSpans([6000, 3000]), createSupports("pinned", "roller", "roller"), [dead(3)])],
     ["three unequal spans (4 + 7 + 3 m)", createMember(createSpans([4000, 7000, 3000]), createSupports("pinned", "roller", "roller", "roller"), [dead(3)])],
     ["point masses and an overhang", createMember(createSpans([5000, 4000, 2000]), createSupports("pinned", "roller", "roller", "free"), [dead(1), { kind: "point", loadCase: "dead", atMm: 1700, pN: 8000 }, { kind: "point", loadCase: "live", atMm: 10_900, pN: 30_000 }])],
+    // 0.1 mm from a quarter point of the 6 m span, and 0.5 mm from a support: no sliver elements
+    ["point masses next to a mesh node and a support", createMember(createSpans([6000, 4000]), createSupports("pinned", "roller", "roller"), [dead(2), { kind: "point", loadCase: "dead", atMm: 1500.1, pN: 15_000 }, { kind: "point", loadCase: "dead", atMm: 6000.5, pN: 9000 }])],
     ["springs, partial and linear mass", createMember(createSpans([5000, 6000]), [{ kind: "spring", springNPerMm: 3000 }, { kind: "pinned" }, { kind: "spring", springNPerMm: 1500 }], [dead(1), { kind: "uniform", loadCase: "live", wNPerMm: 20, startMm: 1200, endMm: 7300 }, { kind: "linear", loadCase: "dead", startMm: 6000, endMm: 11_000, wStartNPerMm: 0.5, wEndNPerMm: 4 }])],
   ])("%s", (_name, member) => {
     const reference = getReferenceFrequencyHz(member, massFactors);
