@@ -220,7 +220,12 @@ export interface FrequencyResult {
   hz: number;
   minHz: number;
   pass: boolean;
-  method: "exact" | "rayleigh";
+  /**
+   * "exact": closed form for one uniform span; "finite_element": converged consistent-mass
+   * eigenvalue (lib/engine/frequency.ts). "rayleigh" is no longer produced; it stays readable
+   * for results stored before the change.
+   */
+  method: "exact" | "finite_element" | "rayleigh";
 }
 
 export interface ShapeSample {

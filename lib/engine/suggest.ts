@@ -4,7 +4,10 @@ import { EngineInputError } from "./solver/engine-input-error";
 import { isPositiveFinite } from "./solver/validate-member";
 
 export interface SectionSuggestion {
-  /** Second moment (mm^4), the same in every span, at which the governing demand is exactly 1. */
+  /**
+   * Second moment (mm^4), the same in every span, at which the member passes and 1 - 1e-9 times
+   * which it fails; E, area (self-weight, mass), shear area and supports held (findMinimumI).
+   */
   minIMm4: number;
   /** Lightest catalogue section (by massKgPerM) that passes in every span, null when none. */
   sectionName: string | null;
@@ -24,36 +27,106 @@ function isUniformI(member: Member): boolean {
   return member.spans.every((span) => span.iMm4 === first);
 }
 
-function getDemandAtI(member: Member, profile: LimitProfile, iMm4: number): number {
-  return getStiffnessDemandRatio(evaluateValidatedMember(createUniformIMember(member, iMm4), profile));
+interface Trial {
+  pass: boolean;
+  /** ln of the demand ratio (getStiffnessDemandRatio): about -ln(I) + const near a scaling case. */
+  logDemand: number;
 }
 
-/** How far above the current I the shear-deformation search looks before giving up. */
+function evaluateAtI(member: Member, profile: LimitProfile, iMm4: number): Trial {
+  const evaluation = evaluateValidatedMember(createUniformIMember(member, iMm4), profile);
+  return { pass: evaluation.pass, logDemand: Math.log(getStiffnessDemandRatio(evaluation)) };
+}
+
+/** How far above the current I the search looks before giving up. */
 const MAX_I_GROWTH = 4 ** 10;
+/** The bracket's final relative width: the suggested I is at most this far above the minimum. */
+export const MINIMUM_I_TOLERANCE = 1e-9;
+/** A bound on evaluations per search (expansion plus bracketing: about 60 at the worst). */
+const MAX_SEARCH_STEPS = 200;
 
 /**
- * Minimum uniform I. Deflection scales with 1/I and f^2 with I when only I changes (the area,
- * hence self-weight and mass, stays), so without shear deformation I x demand is exact. Shear
- * deflection does not scale with I: then bisect on log I. Null when even MAX_I_GROWTH times the
- * current I fails (the shear deflection alone governs).
+ * The bracket [lo, hi] (lo fails, hi passes) narrowed to MINIMUM_I_TOLERANCE by false position
+ * on ln(demand) against ln(I), Illinois variant (Dowell and Jarratt, BIT 11, 1971, from memory),
+ * with a bisection step whenever a step does not halve the bracket. Returns hi.
+ */
+function narrowBracket(member: Member, profile: LimitProfile, lo: number, loTrial: Trial, hi: number, hiTrial: Trial, steps: number): number {
+  let logLo = Math.log(lo);
+  let logHi = Math.log(hi);
+  // the demand decides the interpolation only; pass/fail decides the bracket
+  let gLo = Math.max(loTrial.logDemand, 1e-15);
+  let gHi = Math.min(hiTrial.logDemand, -1e-15);
+  let retained = 0; // +1: hi kept last step, -1: lo kept
+  const tolerance = Math.log1p(MINIMUM_I_TOLERANCE);
+  let previousWidth = Number.POSITIVE_INFINITY;
+  for (let step = steps; step < MAX_SEARCH_STEPS && logHi - logLo > tolerance; step++) {
+    const width = logHi - logLo;
+    let t = width > previousWidth / 2 ? (logLo + logHi) / 2 : (logLo * gHi - logHi * gLo) / (gHi - gLo);
+    if (!(t > logLo && t < logHi)) t = (logLo + logHi) / 2;
+    previousWidth = width;
+    const trial = evaluateAtI(member, profile, Math.exp(t));
+    if (trial.pass) {
+      logHi = t;
+      gHi = Math.min(trial.logDemand, -1e-15);
+      if (retained === -1) gLo /= 2;
+      retained = -1;
+    } else {
+      logLo = t;
+      gLo = Math.max(trial.logDemand, 1e-15);
+      if (retained === 1) gHi /= 2;
+      retained = 1;
+    }
+  }
+  return Math.exp(logHi);
+}
+
+/**
+ * Minimum uniform I (mm^4): the I, the same in every span, at which the member passes every check
+ * while (1 - MINIMUM_I_TOLERANCE) times it fails. Only I changes: E, the area (so the self-weight
+ * and the vibrating mass), the shear area, the supports and the springs stay the member's own.
+ * When deflection scales with 1/I and f^2 with I (no springs, no shear deformation) that I is
+ * I x demand, and a recheck confirms it passes with a demand within the tolerance of 1. Otherwise (springs settle by a fixed amount, shear
+ * deflection and spring-supported frequencies do not scale, the section's rotary inertia grows
+ * with I) a bracketed search: expand by doubling (or halving) from that estimate until the
+ * member passes (fails), then narrow the bracket. Null when even MAX_I_GROWTH times the current
+ * I fails: the springs or the shear deflection alone exceed a limit.
  */
 function findMinimumI(member: Member, profile: LimitProfile, current?: MemberEvaluation): number | null {
   const referenceI = Math.max(...member.spans.map((span) => span.iMm4));
-  const demand = current !== undefined && isUniformI(member) ? getStiffnessDemandRatio(current) : getDemandAtI(member, profile, referenceI);
-  if (member.includeShearDeformation !== true) return referenceI * demand;
-  let lo = referenceI;
-  let hi = referenceI * Math.max(demand, 1);
-  while (getDemandAtI(member, profile, hi) > 1) {
-    lo = hi;
-    hi *= 4;
+  const referenceDemand = current !== undefined && isUniformI(member) ? getStiffnessDemandRatio(current) : Math.exp(evaluateAtI(member, profile, referenceI).logDemand);
+  const scaled = referenceI * referenceDemand;
+  const estimate = Number.isFinite(scaled) && scaled > 0 ? scaled * (1 + 1e-12) : referenceI;
+  const atEstimate = evaluateAtI(member, profile, estimate);
+  let steps = 1;
+  if (atEstimate.pass) {
+    // demand within the tolerance below 1: any smaller I raises it past 1 (it falls with I)
+    if (atEstimate.logDemand >= Math.log1p(-MINIMUM_I_TOLERANCE)) return estimate;
+    let hi = estimate;
+    let hiTrial = atEstimate;
+    let lo = hi / 2;
+    let loTrial = evaluateAtI(member, profile, lo);
+    while (loTrial.pass && steps < MAX_SEARCH_STEPS) {
+      hi = lo;
+      hiTrial = loTrial;
+      lo /= 2;
+      loTrial = evaluateAtI(member, profile, lo);
+      steps += 1;
+    }
+    return loTrial.pass ? lo : narrowBracket(member, profile, lo, loTrial, hi, hiTrial, steps);
+  }
+  let lo = estimate;
+  let loTrial = atEstimate;
+  let hi = estimate * 2;
+  let hiTrial = evaluateAtI(member, profile, hi);
+  while (!hiTrial.pass) {
     if (hi > referenceI * MAX_I_GROWTH) return null;
+    lo = hi;
+    loTrial = hiTrial;
+    hi *= 2;
+    hiTrial = evaluateAtI(member, profile, hi);
+    steps += 1;
   }
-  for (let iteration = 0; iteration < 80 && hi / lo > 1 + 1e-13; iteration++) {
-    const mid = Math.sqrt(lo * hi);
-    if (getDemandAtI(member, profile, mid) > 1) lo = mid;
-    else hi = mid;
-  }
-  return hi;
+  return narrowBracket(member, profile, lo, loTrial, hi, hiTrial, steps);
 }
 
 function collectCatalogueIssues(catalogue: CatalogueSection[]): InputIssue[] {
@@ -121,17 +194,27 @@ function findLightestPassingSection(member: Member, profile: LimitProfile, catal
   return null;
 }
 
+/** The result text beside every minimum I: what the search held fixed. */
+export const MINIMUM_I_BASIS_NOTE =
+  "Minimum I: the smallest second moment, the same in every span, at which every check passes (rechecked, with springs, creep, shear deformation and frequency included); E, the cross-section area (so the self-weight and the vibrating mass), the shear area and the supports are held at the member's own.";
+
 /**
- * Resizing advice for a failing, validated member: the minimum uniform I and the lightest passing
- * catalogue section (when a catalogue is given). When no I can pass (shear deflection alone
- * exceeds a limit) the suggestion is null and a note says why.
+ * Resizing advice for a failing, validated member: the minimum uniform I (findMinimumI: only I
+ * changes, area and self-weight held) and the lightest passing catalogue section (when a
+ * catalogue is given; each section's own area and self-weight). The notes always say what the
+ * minimum I held fixed; when no I can pass (the springs or the shear deflection alone exceed a
+ * limit) the suggestion is null and a note says why.
  */
 export function suggestResize(member: Member, profile: LimitProfile, current: MemberEvaluation, catalogue?: CatalogueSection[]): SuggestionOutcome {
   const minIMm4 = findMinimumI(member, profile, current);
   if (minIMm4 === null || !Number.isFinite(minIMm4)) {
-    return { suggestion: null, notes: [`No practical second moment of area makes this member pass (even ${MAX_I_GROWTH} times the current one fails): the shear deflection governs; increase the shear area or shorten the span.`] };
+    return {
+      suggestion: null,
+      notes: [`No practical second moment of area makes this member pass (even ${MAX_I_GROWTH} times the current one fails): the support springs, the shear deflection or the frequency on soft supports govern; stiffen the supports, increase the shear area or shorten the span.`],
+    };
   }
   const sectionName = catalogue === undefined || catalogue.length === 0 ? null : findLightestPassingSection(member, profile, catalogue);
-  const notes = catalogue !== undefined && catalogue.length > 0 && sectionName === null ? ["No catalogue section passes."] : [];
+  const notes = [MINIMUM_I_BASIS_NOTE];
+  if (catalogue !== undefined && catalogue.length > 0 && sectionName === null) notes.push("No catalogue section passes.");
   return { suggestion: { minIMm4, sectionName }, notes };
 }

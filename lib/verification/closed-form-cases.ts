@@ -18,9 +18,10 @@ const P = 20_000; // N
 export const DEFAULT_RELATIVE_TOLERANCE = 1e-9;
 
 /** The units a case's values are shown in (extend additively; the page formats each one). */
-export type CaseUnit = "mm" | "rad" | "mm^2" | "mm^4" | "kg/m^3" | "MPa" | "Hz";
+export type CaseUnit = "mm" | "rad" | "mm^2" | "mm^4" | "kg/m^3" | "MPa" | "Hz" | "N*mm" | "ratio";
 
-export interface ClosedFormCase {
+/** One case; Unit may narrow the units a case list uses. */
+export interface ClosedFormCase<Unit extends CaseUnit = CaseUnit> {
   id: string;
   title: string;
   quantity: string;
@@ -28,7 +29,7 @@ export interface ClosedFormCase {
   source: string;
   /** The reference value: the published formula or table value written out. */
   expected: number;
-  unit: CaseUnit;
+  unit: Unit;
   /** The engine's value for the same quantity. */
   compute: () => number;
   /**

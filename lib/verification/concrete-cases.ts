@@ -107,38 +107,9 @@ function getParsedCreepFactor(): number {
   return parsed.schedule.members[0]!.materialCreepFactor!;
 }
 
-/** Units beyond the closed-form cases' mm and rad: second moment, moment, a plain ratio. */
-export type ConcreteCaseUnit = ClosedFormCase["unit"] | "mm^4" | "N*mm" | "ratio";
-
-/**
- * A closed-form case whose unit may also be mm^4, N*mm or a ratio. The verification page's
- * formatter takes only mm and rad today: formatConcreteCaseValue formats every unit here.
- */
-export interface ConcreteCase extends Omit<ClosedFormCase, "unit"> {
-  unit: ConcreteCaseUnit;
-}
-
-/** A case value for display, in the case's unit (N*mm shown as kN*m). */
-export function formatConcreteCaseValue(value: number, unit: ConcreteCaseUnit): string {
-  switch (unit) {
-    case "mm":
-      return `${value.toFixed(4)} mm`;
-    case "rad":
-      return `${(value * 1000).toFixed(5)} mrad`;
-    case "mm^4":
-      return `${value.toExponential(6)} mm^4`;
-    case "N*mm":
-      return `${(value / 1e6).toFixed(4)} kN*m`;
-    case "ratio":
-      return value.toFixed(6);
-    default:
-      return `${value} ${unit}`;
-  }
-}
-
 const SECTION_TEXT = "b 300 x h 500 mm, d 440 mm, A_s 1,473 mm^2, f'c 30 MPa";
 
-export const concreteCases: ConcreteCase[] = [
+export const concreteCases: ClosedFormCase[] = [
   {
     id: "rc-icr-singly",
     title: `Cracked section, rectangle, tension steel only (${SECTION_TEXT})`,

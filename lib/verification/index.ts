@@ -4,6 +4,9 @@
  * entry below; the page and the test pick it up from here.
  */
 import { CASE_E_MPA, CASE_I_MM4, closedFormCases, runCases, type ClosedFormCase, type VerifiedCase } from "./closed-form-cases";
+import { concreteCases } from "./concrete-cases";
+import { frequencyCases } from "./frequency-cases";
+import { presetCases } from "./preset-cases";
 import { sectionMaterialCases } from "./section-material-cases";
 
 export interface VerificationGroup {
@@ -26,6 +29,24 @@ export const VERIFICATION_GROUPS: VerificationGroup[] = [
     title: "Section shear areas and timber densities",
     description: "The shear areas that shear deformation uses and the EN 338 mean densities that self-weight and frequency use, read from the libraries schedules use.",
     cases: sectionMaterialCases,
+  },
+  {
+    id: "presets",
+    title: "Limit profiles and the clauses they cite",
+    description: "Each preset's combinations, cantilever rule, creep component and limit ratio against the deflection the cited clause asks for, written out from the handbook formulas.",
+    cases: presetCases,
+  },
+  {
+    id: "frequency",
+    title: "First natural frequency and the minimum stiffness",
+    description: "Converged finite-element eigenvalues against published frequency coefficients, and the minimum I that a failing member needs against its closed form.",
+    cases: frequencyCases,
+  },
+  {
+    id: "concrete",
+    title: "Reinforced concrete: cracked section and effective I",
+    description: "I_cr, M_cr and I_e (ACI 318-19 24.2.3) and the resulting deflections of one rectangular beam, against the formulas written out independently.",
+    cases: concreteCases,
   },
 ];
 

@@ -1,7 +1,11 @@
 /**
  * Engine throughput on one core: members checked per second for
  *  (a) single-span simply supported members, uniform dead + live, two checks (L/360, D+L/240);
- *  (b) three-span continuous members with uniform, partial, point and moment loads, three checks.
+ *  (b) three-span continuous members with uniform, partial, point and moment loads, three checks
+ *      (live loads on every span, so pattern live loading, where the profile applies it, has
+ *      spans to choose);
+ *  (c) the members of (b) with a minimum first frequency as well (converged finite-element
+ *      eigenvalue, mass of dead + 10 % live).
  * Members are generated from a seeded generator so runs are repeatable. The last line is the
  * machine-readable summary.
  */
@@ -27,6 +31,12 @@ const continuousProfile: LimitProfile = {
     ...floorProfile.combinations,
     { id: "LT", label: "Long term", factors: { dead: 1, live: 1 }, sustainedFactors: { dead: 1, live: 0.3 }, creep: 0.6, limitRatio: 250, capMm: 40 },
   ],
+};
+
+const continuousFrequencyProfile: LimitProfile = {
+  ...continuousProfile,
+  id: "bench-continuous-frequency",
+  frequency: { minHz: 4, massFactors: { dead: 1, live: 0.1 } },
 };
 
 function createSingleSpanMembers(count: number, random: () => number): Member[] {
@@ -62,6 +72,7 @@ function createContinuousMembers(count: number, random: () => number): Member[] 
       spans,
       loads: [
         { kind: "uniform", loadCase: "dead", wNPerMm: 2 + random() * 6 },
+        { kind: "uniform", loadCase: "live", wNPerMm: 1 + random() * 3 },
         { kind: "uniform", loadCase: "live", wNPerMm: 1 + random() * 6, startMm: partialStart, endMm: partialStart + totalMm * 0.4 },
         { kind: "point", loadCase: "live", atMm: random() * totalMm, pN: 5000 + random() * 20000 },
         { kind: "moment", loadCase: "dead", atMm: random() * totalMm, mNmm: (random() - 0.5) * 2e7 },
@@ -113,5 +124,8 @@ console.log(`(a) single-span simply supported, uniform D + L, 2 checks: ${Math.r
 measure(continuous, continuousProfile, 1);
 const b = measure(continuous, continuousProfile, seconds);
 console.log(`(b) three-span continuous, uniform + partial + point + moment, 3 checks: ${Math.round(b.perCpuSecond)} members per CPU-second, ${Math.round(b.perWallSecond)} per wall-second (${(b.failing * 100).toFixed(1)}% failing; checksum ${b.checksum.toExponential(3)})`);
+measure(continuous, continuousFrequencyProfile, 1);
+const c = measure(continuous, continuousFrequencyProfile, seconds);
+console.log(`(c) the members of (b) with a first-frequency check (>= 4 Hz, finite-element eigenvalue): ${Math.round(c.perCpuSecond)} members per CPU-second, ${Math.round(c.perWallSecond)} per wall-second (${(c.failing * 100).toFixed(1)}% failing; checksum ${c.checksum.toExponential(3)})`);
 console.log(`node ${process.version}, one thread, ${seconds} s per measurement after 1 s warm-up; the summary uses CPU time so other processes on the machine do not skew it; the diagram shape is not sampled (checkMember samples it only on request, for a member's own page)`);
-console.log(`bench:engine single_span_per_s=${Math.round(a.perCpuSecond)} continuous_per_s=${Math.round(b.perCpuSecond)}`);
+console.log(`bench:engine single_span_per_s=${Math.round(a.perCpuSecond)} continuous_per_s=${Math.round(b.perCpuSecond)} continuous_freq_per_s=${Math.round(c.perCpuSecond)}`);

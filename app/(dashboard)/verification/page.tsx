@@ -26,6 +26,10 @@ function formatValue(value: number, unit: CaseUnit): string {
       return `${value.toLocaleString("en", { maximumFractionDigits: 1 })} MPa`;
     case "Hz":
       return `${value.toFixed(3)} Hz`;
+    case "N*mm":
+      return `${(value / 1e6).toFixed(4)} kN·m`;
+    case "ratio":
+      return value.toFixed(6);
   }
 }
 

@@ -50,11 +50,14 @@ export function evaluateValidatedMember(member: Member, profile: LimitProfile): 
 
 /**
  * The largest demand ratio of an evaluation, scaled so that it is proportional to 1/I for a
- * uniform change of I: the governing utilization, and (minHz / f)^2 for the frequency (f grows
- * with sqrt(EI) at fixed mass). A value <= 1 means the member passes.
+ * uniform change of I when nothing else changes (no springs, no shear deformation): the largest
+ * check utilization, and (minHz / f)^2 for the frequency (f grows with sqrt(EI) at fixed mass).
+ * A value <= 1 means the checks pass; the minimum-I search uses it only to aim its trials and
+ * decides on `pass` itself.
  */
-export function getStiffnessDemandRatio(evaluation: Pick<MemberEvaluation, "governing" | "frequency">): number {
-  let ratio = evaluation.governing === null ? 0 : evaluation.governing.utilization;
+export function getStiffnessDemandRatio(evaluation: Pick<MemberEvaluation, "checks" | "frequency">): number {
+  let ratio = 0;
+  for (const check of evaluation.checks) if (check.utilization > ratio) ratio = check.utilization;
   if (evaluation.frequency !== null) {
     const frequencyRatio = evaluation.frequency.minHz / evaluation.frequency.hz;
     ratio = Math.max(ratio, frequencyRatio * frequencyRatio);

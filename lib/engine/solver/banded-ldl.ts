@@ -17,8 +17,11 @@ export const SINGULAR_PIVOT_RATIO = 1e-10;
 /**
  * Factorises the band in place. Returns -1 on success or the index of the first DOF whose pivot
  * is not positive beyond round-off (the matrix is singular or not positive definite).
+ * minPivotRatio (default SINGULAR_PIVOT_RATIO) is the pivot floor relative to the diagonal; the
+ * frequency search passes 0 to ask only whether K - sigma M is positive definite (Sylvester's law
+ * of inertia: a negative pivot means an eigenvalue below sigma).
  */
-export function factorBandedLdl(band: Float64Array, size: number): number {
+export function factorBandedLdl(band: Float64Array, size: number, minPivotRatio = SINGULAR_PIVOT_RATIO): number {
   for (let j = 0; j < size; j++) {
     const diagonal = band[j * ROW] as number;
     let pivot = diagonal;
@@ -27,7 +30,7 @@ export function factorBandedLdl(band: Float64Array, size: number): number {
       const ljk = band[k * ROW + (j - k)] as number;
       pivot -= ljk * ljk * (band[k * ROW] as number);
     }
-    if (!(pivot > SINGULAR_PIVOT_RATIO * diagonal) || !(diagonal > 0)) return j;
+    if (!(pivot > minPivotRatio * diagonal) || !(diagonal > 0)) return j;
     band[j * ROW] = pivot;
     const iEnd = j + HALF_BANDWIDTH < size - 1 ? j + HALF_BANDWIDTH : size - 1;
     for (let i = j + 1; i <= iEnd; i++) {

@@ -28,7 +28,7 @@ export function MemberSuggestion({ status, suggestion }: MemberSuggestionProps) 
           <div>
             <dt className="text-xs font-medium uppercase tracking-wide text-ink-soft">Minimum second moment of area</dt>
             <dd>
-              <PowerOfTen value={suggestion.minIMm4} /> mm<sup>4</sup> <span className="text-ink-soft">(the same in every span)</span>
+              <PowerOfTen value={suggestion.minIMm4} /> mm<sup>4</sup> <span className="text-ink-soft">(the same in every span, rechecked with springs, creep, shear and frequency; E, area, self-weight and supports held at the member's own)</span>
             </dd>
           </div>
           <div>
@@ -53,7 +53,7 @@ export function MemberFrequency({ frequency }: MemberFrequencyProps) {
       </h2>
       {frequency ? (
         <p>
-          {formatNumber(frequency.hz)} Hz against a minimum of {formatNumber(frequency.minHz)} Hz ({frequency.method === "exact" ? "exact solution" : "Rayleigh estimate"}){" "}
+          {formatNumber(frequency.hz)} Hz against a minimum of {formatNumber(frequency.minHz)} Hz ({frequency.method === "exact" ? "exact solution" : frequency.method === "finite_element" ? "converged finite-element eigenvalue" : "Rayleigh estimate"}){" "}
           <OutcomeLabel status={frequency.pass ? "pass" : "fail"} />
         </p>
       ) : (

@@ -32,7 +32,7 @@ describe("checkMember", () => {
     expect(result.checks).toHaveLength(2 * 3);
     expect(result.checks.map((c) => `${c.combinationId}/${c.spanIndex}/${c.spanKind}`)).toEqual(["L/0/span", "L/1/span", "L/2/cantilever", "D+L/0/span", "D+L/1/span", "D+L/2/cantilever"]);
     expect(result.rotations).toHaveLength(2 * 4);
-    expect(result.frequency?.method).toBe("rayleigh");
+    expect(result.frequency?.method).toBe("finite_element");
     const highest = Math.max(...result.checks.map((c) => c.utilization));
     expect(result.governing?.utilization).toBe(highest);
     expect(result.pass).toBe(result.checks.every((c) => c.pass) && result.frequency!.pass);
