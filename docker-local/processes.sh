@@ -40,10 +40,27 @@ wait_for_url() {
   return 1
 }
 
+# The hash of everything a build can read: every tracked or new (not ignored) file except tests,
+# docs and these scripts, so a change anywhere the app may import (lib, db, workers, examples,
+# schemas, configuration) rebuilds. Deleted-but-tracked files are skipped, not an error.
+list_source_files() {
+  if git -C "$ROOT" rev-parse --git-dir >/dev/null 2>&1; then
+    git ls-files -co --exclude-standard -z -- . ':!tests/' ':!docs/' ':!docker-local/' ':!.ci/' ':!*.md'
+  else # an exported tree without .git
+    find . \( -name node_modules -o -name '.next*' -o -name .local -o -name .git -o -path ./tests -o -path ./docs -o -path ./docker-local -o -path ./.ci \) -prune \
+      -o -type f ! -name '*.md' -printf '%P\0'
+  fi
+}
+source_hash() {
+  (cd "$ROOT" && list_source_files \
+    | while IFS= read -r -d '' f; do [ -f "$f" ] && printf '%s\0' "$f"; done \
+    | sort -z | xargs -0 -r sha1sum | sha1sum | cut -d' ' -f1)
+}
+
 # Builds the web app only when its sources changed since the last build into DIST.
 build_web_if_needed() {
   local dist="$1" stamp="$1/.sagline-source-hash" hash
-  hash="$(cd "$ROOT" && { git ls-files -co --exclude-standard -- app components lib db api-schemas proxy.ts instrumentation.ts next.config.mjs package-lock.json postcss.config.mjs tsconfig.json 2>/dev/null || true; } | sort | xargs -r sha1sum 2>/dev/null | sha1sum | cut -d' ' -f1)"
+  hash="$(source_hash)"
   if [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$hash" ]; then return 0; fi
   log "building the web app (next build)"
   (cd "$ROOT" && SAGLINE_DIST_DIR="$dist" NEXT_TELEMETRY_DISABLED=1 npx next build >"$LOCAL_DIR/build-$(basename "$dist").log" 2>&1) || { tail -40 "$LOCAL_DIR/build-$(basename "$dist").log"; exit 1; }
