@@ -37,6 +37,12 @@ resolve_pg_dir() {
 
 # port_taken PORT: true when something on 127.0.0.1 accepts connections on PORT.
 port_taken() { (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
+# free_port_near PORT: the first of PORT+10, PORT+20, ... that nothing listens on (for suggestions).
+free_port_near() {
+  local p="$1"
+  for _ in $(seq 1 20); do p=$((p + 10)); port_taken "$p" || break; done
+  echo "$p"
+}
 
 # pid file helpers: stop only what we started.
 pid_alive() { [ -f "$1" ] && kill -0 "$(cat "$1")" 2>/dev/null; }

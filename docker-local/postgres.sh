@@ -22,10 +22,16 @@ case "${1:-}" in
       [ "$PGD" = "$LOCAL_DIR/postgres" ] || log "(the postgres user cannot enter $LOCAL_DIR, so the cluster lives outside the checkout)"
       as_postgres "$PG_BIN/initdb" -D "$PGD/data" -U postgres --auth-local=trust --auth-host=scram-sha-256 -E UTF8 --locale=C.UTF-8 >/dev/null
     fi
+    running_port="$(sed -n 4p "$PGD/data/postmaster.pid" 2>/dev/null || true)"
+    if pg_running && [ -n "$running_port" ] && [ "$running_port" != "$PG_PORT" ]; then
+      echo "PostgreSQL: this checkout's cluster is already running on port $running_port, not $PG_PORT." >&2
+      echo "Use SAGLINE_PG_PORT=$running_port, or stop it first with SAGLINE_PG_PORT=$running_port npm run stop." >&2
+      exit 1
+    fi
     if ! pg_running; then
       if port_taken "$PG_PORT"; then
         echo "PostgreSQL: port $PG_PORT on 127.0.0.1 is taken by another program (another checkout's PostgreSQL?)." >&2
-        echo "Set SAGLINE_PG_PORT to a free port, e.g. SAGLINE_PG_PORT=$((PG_PORT + 10)) npm start (and the same for npm run stop and npm test)." >&2
+        echo "Set SAGLINE_PG_PORT to a free port, e.g. SAGLINE_PG_PORT=$(free_port_near "$PG_PORT") npm start (and the same for npm run stop and npm test)." >&2
         exit 1
       fi
       log "starting PostgreSQL on 127.0.0.1:$PG_PORT"

@@ -10,7 +10,7 @@ redis_dir() { timeout 3 redis-cli -h 127.0.0.1 -p "$REDIS_PORT" config get dir 2
 redis_is_ours() { [ "$(redis_dir)" = "$(cd "$RD" 2>/dev/null && pwd -P)" ]; }
 taken() {
   echo "Redis: port $REDIS_PORT on 127.0.0.1 is taken by $1." >&2
-  echo "Set SAGLINE_REDIS_PORT to a free port, e.g. SAGLINE_REDIS_PORT=$((REDIS_PORT + 10)) npm start (and the same for npm run stop and npm test)." >&2
+  echo "Set SAGLINE_REDIS_PORT to a free port, e.g. SAGLINE_REDIS_PORT=$(free_port_near "$REDIS_PORT") npm start (and the same for npm run stop and npm test)." >&2
   exit 1
 }
 case "${1:-}" in
