@@ -58,7 +58,8 @@ while :; do
   {
     echo "$(date -u +%Y-%m-%dT%H:%M:%SZ) $name: pid $child $cause after ${ran_s} s; restarting in ${delay_s} s (restart $restarts)"
     echo "  last lines of $logfile:"
-    tail -n 25 "$logfile" | grep -v '^\[supervisor ' | sed 's/^/    /'
+    # Without the supervisor's own lines and bash's job notice ("...: line N: PID Killed ...").
+    tail -n 25 "$logfile" | grep -v -e '^\[supervisor ' -e 'supervise\.sh: line [0-9]*: *[0-9]* ' | sed 's/^/    /'
   } >> "$crash_log"
   child=""
   sleep "$delay_s" &
