@@ -14,8 +14,34 @@ export ROOT LOCAL_DIR PG_PORT REDIS_PORT APP_PORT SMTP_PORT MAIL_UI_PORT PARTNER
 
 log() { printf '\033[1m[sagline]\033[0m %s\n' "$*"; }
 
+# As root, PostgreSQL's tools run as the postgres user (initdb refuses root), from / because the
+# checkout may sit in a folder that user cannot enter. Anyone else runs the cluster as themselves.
 as_postgres() {
-  if [ "$(id -u)" = "0" ]; then runuser -u postgres -- "$@"; else "$@"; fi
+  if [ "$(id -u)" = "0" ]; then (cd / && runuser -u postgres -- "$@"); else "$@"; fi
+}
+
+# Where the PostgreSQL cluster lives: $LOCAL_DIR/postgres (ignored by git), unless we are root and
+# the postgres user cannot reach that folder (a clone in root's own 0700 home directory); then
+# /var/lib/sagline/<first 12 hex of sha1 of the checkout path>/postgres. An existing cluster is
+# never moved. $LOCAL_DIR/postgres-location names the folder in use.
+resolve_pg_dir() {
+  local inside="$LOCAL_DIR/postgres" outside
+  mkdir -p "$LOCAL_DIR"
+  outside="/var/lib/sagline/$(printf '%s' "$LOCAL_DIR" | sha1sum | cut -c1-12)/postgres"
+  if [ -f "$inside/data/PG_VERSION" ] || [ "$(id -u)" != "0" ] || runuser -u postgres -- test -x "$LOCAL_DIR" 2>/dev/null; then
+    echo "$inside"
+  else
+    echo "$outside"
+  fi
+}
+
+# port_taken PORT: true when something on 127.0.0.1 accepts connections on PORT.
+port_taken() { (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
+# free_port_near PORT: the first of PORT+10, PORT+20, ... that nothing listens on (for suggestions).
+free_port_near() {
+  local p="$1"
+  for _ in $(seq 1 20); do p=$((p + 10)); port_taken "$p" || break; done
+  echo "$p"
 }
 
 # pid file helpers: stop only what we started.

@@ -9,7 +9,7 @@ bash docker-local/ensure-node-modules.sh
 
 redis_was_up=0; pg_was_up=0
 redis-cli -h 127.0.0.1 -p "$REDIS_PORT" ping >/dev/null 2>&1 && redis_was_up=1
-[ -f "$LOCAL_DIR/postgres/data/postmaster.pid" ] && pg_was_up=1
+[ -f "$(resolve_pg_dir)/data/postmaster.pid" ] && pg_was_up=1
 TEST_DB="${SAGLINE_TEST_DB:-sagline_test}"
 TEST_REDIS_DB="${SAGLINE_TEST_REDIS_DB:-1}"
 bash docker-local/postgres.sh start "$TEST_DB"
@@ -33,6 +33,9 @@ export SIGN_IN_MAX_FAILURES=5
 export WEBHOOK_ALLOWLIST="127.0.0.1:$PARTNER_PORT"
 export WEBHOOK_RETRY_SCALE="${WEBHOOK_RETRY_SCALE:-0.0002}"
 export WEBHOOK_TIMEOUT_MS="${WEBHOOK_TIMEOUT_MS:-3000}"
+# This set-up's settings, for the test that runs the operator commands the way an operator would.
+export SAGLINE_TEST_INSTANCE_ENV="$LOCAL_DIR/instance-$TEST_DB.env"
+write_instance_env "$SAGLINE_TEST_INSTANCE_ENV"
 
 cleanup() {
   for name in web worker smtp-fake partner-fake; do stop_process "$name" "$RUN"; done
@@ -53,10 +56,10 @@ npx tsc --noEmit -p .
 npx tsx db/migrate.ts
 npx tsx db/seed.ts >/dev/null
 build_web_if_needed "$SAGLINE_DIST_DIR"
-start_process smtp-fake "$RUN" "$LOCAL_DIR/logs/$TEST_DB-smtp-fake.log" npx tsx docker-local/fakes/smtp-fake.ts
-start_process partner-fake "$RUN" "$LOCAL_DIR/logs/$TEST_DB-partner-fake.log" npx tsx docker-local/fakes/partner-fake.ts
-start_process worker "$RUN" "$LOCAL_DIR/logs/$TEST_DB-worker.log" npx tsx workers/index.ts
-START_PORT="$TEST_APP_PORT" start_process web "$RUN" "$LOCAL_DIR/logs/$TEST_DB-web.log" npx next start -H 127.0.0.1 -p "$TEST_APP_PORT"
+START_PORT="$SMTP_PORT" START_PORT_VAR=SAGLINE_TEST_SMTP_PORT start_process smtp-fake "$RUN" "$LOCAL_DIR/logs/$TEST_DB-smtp-fake.log" npx tsx docker-local/fakes/smtp-fake.ts
+START_PORT="$PARTNER_PORT" START_PORT_VAR=SAGLINE_TEST_PARTNER_PORT start_process partner-fake "$RUN" "$LOCAL_DIR/logs/$TEST_DB-partner-fake.log" npx tsx docker-local/fakes/partner-fake.ts
+start_supervised worker "$RUN" "$LOCAL_DIR/logs/$TEST_DB-worker.log" node --import tsx workers/index.ts
+START_PORT="$TEST_APP_PORT" START_PORT_VAR=SAGLINE_TEST_APP_PORT start_supervised web "$RUN" "$LOCAL_DIR/logs/$TEST_DB-web.log" node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$TEST_APP_PORT"
 wait_for_url "$APP_URL/api/health" 60 || { tail -30 "$LOCAL_DIR/logs/$TEST_DB-web.log"; exit 1; }
 wait_for_url "$MAIL_UI_URL" 30
 wait_for_url "http://127.0.0.1:$PARTNER_PORT/" 30

@@ -27,6 +27,9 @@ async function main(): Promise<number> {
       return 2;
     }
     console.error("key:create failed:", error instanceof Error ? error.message : error);
+    if (error instanceof Error && error.message.startsWith("Invalid environment")) {
+      console.error("Run it as npm run key:create -- ... (after npm start it reads .local/instance.env), or set DATABASE_URL and the rest yourself (README, Operations).");
+    }
     return 3;
   } finally {
     await closeDb();

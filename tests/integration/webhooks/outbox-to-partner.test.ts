@@ -233,7 +233,11 @@ describe("sustained failure on the worker", () => {
     });
     expect(state.processed).toEqual([eventId]);
     expect(state.deliveries.every((d) => d.verified && d.webhookId === eventId)).toBe(true);
-    const after = (await deliveriesOf(eventId)).find((d) => d.endpointId === endpoint.id);
+    // The partner answers before the worker records the answer: wait for the row, not the partner.
+    const after = await waitFor("the resent delivery to be recorded", async () => {
+      const row = (await deliveriesOf(eventId)).find((d) => d.endpointId === endpoint.id);
+      return row?.status === "pending" ? null : row;
+    });
     expect(after).toMatchObject({ status: "succeeded", attemptCount: 10 });
   });
 });
