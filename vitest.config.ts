@@ -19,6 +19,18 @@ export default defineConfig({
         },
       },
       {
+        // Hostile input, stalls and access (npm run test:hostile); every file under tests/hostile/ belongs here.
+        extends: true,
+        test: {
+          name: "hostile",
+          include: ["tests/hostile/**/*.test.ts", "tests/hostile/**/*.spec.ts"],
+          setupFiles: ["tests/helpers/integration-setup.ts"],
+          testTimeout: 120_000,
+          hookTimeout: 180_000,
+          fileParallelism: false,
+        },
+      },
+      {
         extends: true,
         test: {
           name: "e2e",
