@@ -1,4 +1,5 @@
-import { CSV_DELIMITER_CHARS, CSV_DELIMITERS, mapIssueToCsvRow, parseScheduleCsv, type CsvDelimiter } from "@/lib/schedule-csv";
+import { CSV_DELIMITER_CHARS, CSV_DELIMITERS, mapIssueToCsvRow, type CsvDelimiter } from "@/lib/schedule-csv";
+import { CsvEncodingError, parseScheduleCsvBytes } from "@/lib/schedule-csv/parse-schedule-csv-stream";
 import type { InputIssue } from "@/lib/engine/model";
 import { DomainError, type FieldError } from "@/lib/server/errors";
 
@@ -48,12 +49,21 @@ export function readCsvParameters(get: (name: string) => string | null, fallback
   return { name, reference, limits: { preset: limits }, delimiter: delimiter!, units: system ? { system: system as "SI" | "US" } : undefined };
 }
 
-/** Turns a CSV into a public-format document; row errors carry row, line, column and a code. */
-export function readScheduleCsv(text: string, parameters: CsvParameters) {
-  const parsed = parseScheduleCsv(text, { ...parameters, units: parameters.units ?? {} });
+/**
+ * Turns CSV bytes into a public-format document, read as a stream (bounded memory, row limits
+ * enforced while reading); row errors carry row, line, column and a code.
+ */
+export async function readScheduleCsv(bytes: Uint8Array, parameters: CsvParameters) {
+  let parsed: Awaited<ReturnType<typeof parseScheduleCsvBytes>>;
+  try {
+    parsed = await parseScheduleCsvBytes(bytes, { ...parameters, units: parameters.units ?? {} });
+  } catch (error) {
+    if (error instanceof CsvEncodingError) throw new DomainError("bad_request", error.message, [{ pointer: "/file", message: error.message }]);
+    throw error;
+  }
   if (!parsed.ok) {
     const errors: FieldError[] = parsed.errors.map((e) => ({ row: e.row, ...(e.line === undefined ? {} : { line: e.line }), column: e.column, code: e.code, message: e.message }));
-    throwInvalidSchedule(errors.slice(0, MAX_LISTED_ERRORS), errors.length);
+    throwInvalidSchedule(errors.slice(0, MAX_LISTED_ERRORS), parsed.errorCount ?? errors.length);
   }
   const toFieldErrors = (issues: InputIssue[]): FieldError[] =>
     issues.map((issue) => {
