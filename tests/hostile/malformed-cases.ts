@@ -105,7 +105,7 @@ export function buildOperationCases(operation: Operation): MalformedCase[] {
   const method = operation.method.toLowerCase() as MalformedCase["method"];
   const path = fillPath(operation.path, {});
   const cases: MalformedCase[] = [
-    { label: "a garbage bearer token", method, path, headers: { authorization: "Bearer sgl_\u0001garbage" } },
+    { label: "a garbage bearer token", method, path, headers: { authorization: "Bearer sgl_live_!!!!'\"<>garbage" } },
     { label: "a 10,000-character bearer token", method, path, headers: { authorization: `Bearer ${"k".repeat(10_000)}` } },
     { label: "Basic credentials instead of a bearer key", method, path, headers: { authorization: "Basic YWRtaW46YWRtaW4=" } },
   ];
