@@ -2,6 +2,8 @@ import { fileURLToPath } from "node:url";
 import { defineConfig } from "vitest/config";
 
 // Projects keep fast pure tests apart from the ones that need the running services.
+// The access matrices live beside the code they check but run with the hostile suite.
+const accessMatrices = ["tests/integration/auth/access-matrix.test.ts", "tests/integration/api/v1/api-access-matrix.test.ts"];
 export default defineConfig({
   resolve: { alias: { "@": fileURLToPath(new URL("./", import.meta.url)) } },
   test: {
@@ -12,6 +14,7 @@ export default defineConfig({
         test: {
           name: "integration",
           include: ["tests/integration/**/*.test.ts", "tests/contract/**/*.test.ts"],
+          exclude: accessMatrices,
           testTimeout: 60_000,
           hookTimeout: 120_000,
           fileParallelism: false,
@@ -19,15 +22,15 @@ export default defineConfig({
         },
       },
       {
-        // Adversarial suite against the running services: same settings as integration.
+        // Hostile input, stalls and access (npm run test:hostile); every file under tests/hostile/ belongs here.
         extends: true,
         test: {
           name: "hostile",
-          include: ["tests/hostile/**/*.test.ts"],
-          testTimeout: 60_000,
-          hookTimeout: 120_000,
-          fileParallelism: false,
+          include: ["tests/hostile/**/*.test.ts", "tests/hostile/**/*.spec.ts", ...accessMatrices],
           setupFiles: ["tests/helpers/integration-setup.ts"],
+          testTimeout: 120_000,
+          hookTimeout: 180_000,
+          fileParallelism: false,
         },
       },
       {

@@ -72,7 +72,11 @@ function toScheduleRow(r: Record<string, unknown>): ScheduleRow {
 }
 
 /** Another organization's schedule reads exactly like a missing one: null. */
+// Ids are written by createId("sch"): anything else cannot exist (and a NUL would fail in PostgreSQL).
+const SCHEDULE_ID_PATTERN = /^sch_[0-9a-z]{1,40}$/;
+
 export async function getSchedule(organizationId: string, scheduleId: string): Promise<ScheduleRow | null> {
+  if (!SCHEDULE_ID_PATTERN.test(scheduleId)) return null;
   const [row] = await getSql().unsafe(`select ${scheduleColumns} from ${scheduleSource} where s.organization_id = $1 and s.id = $2`, [organizationId, scheduleId]);
   return row ? toScheduleRow(row) : null;
 }

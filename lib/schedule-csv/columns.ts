@@ -101,9 +101,19 @@ export function getColumnRole(name: string): { role: ColumnRole; spec: ColumnSpe
   return null;
 }
 
-/** Splits `name [unit]` into its parts. */
+/** The longest header cell read; longer ones are refused by name before any parsing. */
+export const MAX_HEADER_CELL_CHARS = 200;
+
+/**
+ * Splits `name [unit]` into its parts, or null when the brackets are misplaced. A scan with
+ * indexOf, not a regular expression: a backtracking pattern took cubic time on long blank runs.
+ */
 export function splitHeader(header: string): { name: string; unit: string | null } | null {
-  const match = /^([^[\]]*?)\s*(?:\[([^[\]]*)\])?\s*$/.exec(header.trim());
-  if (!match) return null;
-  return { name: normaliseColumnName(match[1] ?? ""), unit: match[2] === undefined ? null : match[2].trim() };
+  const text = header.trim();
+  const open = text.indexOf("[");
+  if (open === -1) return text.includes("]") ? null : { name: normaliseColumnName(text), unit: null };
+  const name = text.slice(0, open);
+  const unit = text.slice(open + 1, -1);
+  if (!text.endsWith("]") || name.includes("]") || unit.includes("[") || unit.includes("]")) return null;
+  return { name: normaliseColumnName(name), unit: unit.trim() };
 }

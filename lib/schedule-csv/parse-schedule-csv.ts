@@ -1,8 +1,8 @@
-import { SCHEDULE_FORMAT } from "../engine/intake";
+import { MAX_MEMBERS, SCHEDULE_FORMAT } from "../engine/intake";
 import type { InputIssue } from "../engine/model";
 import { isCsvDelimiter, type CsvDelimiter } from "./delimiters";
+import { readCsvRecords, type CsvReadResult, type CsvRecordLimits, type CsvRecordSink } from "./read-csv-records";
 import { createCsvRowMapper, type CsvMapperOptions, type CsvRowError, type CsvRowMapper, type PublicMember } from "./row-mapper";
-import { tokenizeCsv } from "./tokenize-csv";
 
 export interface ParseScheduleCsvOptions extends CsvMapperOptions {
   /** Field delimiter, taken from the caller and never guessed. Default ",". */
@@ -23,30 +23,64 @@ export interface CsvRowPlace {
 
 export type ParseScheduleCsvResult =
   | { ok: true; doc: Record<string, unknown>; places: CsvRowPlace[] }
-  | { ok: false; errors: CsvRowError[] };
+  /** `errorCount` counts every error when `errors` keeps only the first MAX_KEPT_ROW_ERRORS. */
+  | { ok: false; errors: CsvRowError[]; errorCount?: number };
+
+/** Row errors kept in full; later ones are only counted. */
+export const MAX_KEPT_ROW_ERRORS = 1000;
+
+/** Rows a schedule CSV may have: the header, a member per row, and as many blank rows again. */
+export const CSV_ROW_LIMITS: CsvRecordLimits = { maxRows: 2 * MAX_MEMBERS + 1, maxFilledRows: MAX_MEMBERS + 1 };
 
 /**
  * Reads a whole CSV schedule into a public-format document (for parseSchedule), with the row and
- * line each member came from. Every row error is collected.
+ * line each member came from. Row errors are collected (the first MAX_KEPT_ROW_ERRORS kept).
  */
 export function parseScheduleCsv(text: string, options: ParseScheduleCsvOptions): ParseScheduleCsvResult {
   const delimiter = options.delimiter ?? ",";
-  if (!isCsvDelimiter(delimiter)) {
-    return { ok: false, errors: [{ row: 0, column: "", code: "invalid_delimiter", message: 'the delimiter must be ",", ";" or a tab' }] };
-  }
-  const tokens = tokenizeCsv(text, delimiter);
-  if (!tokens.ok) return { ok: false, errors: [{ row: 0, line: tokens.line, column: "", code: "unterminated_quote", message: tokens.message }] };
-  const [header, ...records] = tokens.records;
-  if (!header) return { ok: false, errors: [{ row: 1, line: 1, column: "", code: "empty_file", message: "the file has no header row" }] };
-  const created = createCsvRowMapper(header.fields, options);
-  if (!created.ok) return { ok: false, errors: created.errors.map((e) => ({ ...e, line: header.line })) };
-  const rows = records.map((record, index) => ({ fields: record.fields, row: index + 2, line: record.line }));
-  return mapCsvRecordsToSchedule(rows, (record, where) => created.mapper.mapRow(record.fields, where), {
-    name: options.name,
-    reference: options.reference,
-    units: options.units ?? {},
-    limits: options.limits,
-  });
+  if (!isCsvDelimiter(delimiter)) return invalidDelimiter();
+  const reader = createScheduleCsvReader(options);
+  return reader.finish(readCsvRecords(text, delimiter, CSV_ROW_LIMITS, reader.sink));
+}
+
+export function invalidDelimiter(): ParseScheduleCsvResult {
+  return { ok: false, errors: [{ row: 0, column: "", code: "invalid_delimiter", message: 'the delimiter must be ",", ";" or a tab' }] };
+}
+
+/**
+ * The record sink behind parseScheduleCsv and the streaming server reader: the first record is
+ * the header (checked once), each later one becomes a member; only members and errors are kept.
+ */
+export function createScheduleCsvReader(options: ParseScheduleCsvOptions): { sink: CsvRecordSink; finish(read: CsvReadResult): ParseScheduleCsvResult } {
+  let headerLine: number | null = null;
+  let headerErrors: CsvRowError[] = [];
+  let collector: ReturnType<typeof createScheduleCollector> | null = null;
+  const sink: CsvRecordSink = (record) => {
+    if (headerLine === null) {
+      headerLine = record.line;
+      if (record.fields.every((f) => f.trim() === "")) {
+        headerErrors = [{ row: 1, line: record.line, column: "", code: "empty_file", message: "the file has no header row (the first row is blank)" }];
+        return false;
+      }
+      const created = createCsvRowMapper(record.fields, options);
+      if (!created.ok) {
+        headerErrors = created.errors.map((e) => ({ ...e, line: record.line }));
+        return false;
+      }
+      const mapper = created.mapper;
+      collector = createScheduleCollector((r, where) => mapper.mapRow(r.fields, where), { name: options.name, reference: options.reference, units: options.units ?? {}, limits: options.limits });
+      return true;
+    }
+    collector?.add(record);
+    return true;
+  };
+  const finish = (read: CsvReadResult): ParseScheduleCsvResult => {
+    if (!read.ok) return { ok: false, errors: [read.error] };
+    if (headerLine === null) return { ok: false, errors: [{ row: 1, line: 1, column: "", code: "empty_file", message: "the file has no header row" }] };
+    if (headerErrors.length > 0 || !collector) return { ok: false, errors: headerErrors };
+    return collector.finish();
+  };
+  return { sink, finish };
 }
 
 /** One data record of a CSV schedule: its fields, spreadsheet row and starting line. */
@@ -67,35 +101,60 @@ export interface CsvScheduleFields {
 }
 
 /**
- * Maps every data record to a member (blank records give none) and writes the public-format
- * document around them. Every row error is collected before giving up; a file without a single
- * member is an error of its own. Shared by parseScheduleCsv and the upload page, whose
- * `mapRecord` first checks the record against the file as the person wrote it.
+ * Maps data records to members one at a time (blank records give none) and writes the
+ * public-format document around them. Once a row has failed, members are no longer kept, only
+ * errors (the first MAX_KEPT_ROW_ERRORS) and their count; a file without a single member is an
+ * error of its own.
  */
-export function mapCsvRecordsToSchedule(records: Iterable<CsvMemberRecord>, mapRecord: MapCsvRecord, schedule: CsvScheduleFields): ParseScheduleCsvResult {
-  const members: PublicMember[] = [];
-  const places: CsvRowPlace[] = [];
+export function createScheduleCollector(mapRecord: MapCsvRecord, schedule: CsvScheduleFields) {
+  let members: PublicMember[] = [];
+  let places: CsvRowPlace[] = [];
   const errors: CsvRowError[] = [];
-  for (const record of records) {
-    const where = { row: record.row, line: record.line };
-    const mapped = mapRecord(record, where);
-    if (!mapped.ok) errors.push(...mapped.errors);
-    else if (mapped.member) {
-      members.push(mapped.member);
-      places.push(mapped.sources ? { ...where, sources: mapped.sources } : where);
-    }
-  }
-  if (errors.length > 0) return { ok: false, errors };
-  if (members.length === 0) return { ok: false, errors: [{ row: 2, column: "", code: "no_rows", message: "the file has no member rows" }] };
-  const doc: Record<string, unknown> = {
-    format: SCHEDULE_FORMAT,
-    name: schedule.name,
-    ...(schedule.reference === undefined ? {} : { reference: schedule.reference }),
-    units: schedule.units,
-    limits: schedule.limits,
-    members,
+  let errorCount = 0;
+  // Rows with the same filled columns have equal field->header maps: keep one of each, not one per row.
+  const sharedSources = new Map<string, Record<string, string>>();
+  const share = (sources: Record<string, string>) => {
+    const key = JSON.stringify(sources);
+    const known = sharedSources.get(key);
+    if (known) return known;
+    sharedSources.set(key, sources);
+    return sources;
   };
-  return { ok: true, doc, places };
+  return {
+    add(record: CsvMemberRecord): void {
+      const where = { row: record.row, line: record.line };
+      const mapped = mapRecord(record, where);
+      if (!mapped.ok) {
+        errorCount += mapped.errors.length;
+        errors.push(...mapped.errors.slice(0, Math.max(0, MAX_KEPT_ROW_ERRORS - errors.length)));
+        members = [];
+        places = [];
+      } else if (mapped.member && errorCount === 0) {
+        members.push(mapped.member);
+        places.push(mapped.sources ? { ...where, sources: share(mapped.sources) } : where);
+      }
+    },
+    finish(): ParseScheduleCsvResult {
+      if (errorCount > 0) return { ok: false, errors, errorCount };
+      if (members.length === 0) return { ok: false, errors: [{ row: 2, column: "", code: "no_rows", message: "the file has no member rows" }] };
+      const doc: Record<string, unknown> = {
+        format: SCHEDULE_FORMAT,
+        name: schedule.name,
+        ...(schedule.reference === undefined ? {} : { reference: schedule.reference }),
+        units: schedule.units,
+        limits: schedule.limits,
+        members,
+      };
+      return { ok: true, doc, places };
+    },
+  };
+}
+
+/** Every record through createScheduleCollector; the upload page's `mapRecord` first checks the record against the file as written. */
+export function mapCsvRecordsToSchedule(records: Iterable<CsvMemberRecord>, mapRecord: MapCsvRecord, schedule: CsvScheduleFields): ParseScheduleCsvResult {
+  const collector = createScheduleCollector(mapRecord, schedule);
+  for (const record of records) collector.add(record);
+  return collector.finish();
 }
 
 /**

@@ -1,16 +1,15 @@
 /**
  * Streaming-friendly CSV mapping: check the header once, then map each data row to one member
  * of the public schedule format (every quantity written as {"value", "unit"} with the column's
- * unit), or to row errors naming row, line and column. parseScheduleCsv (API uploads, the CLI)
- * feeds it the records of tokenizeCsv; the upload page feeds it the rows papaparse splits in the
- * browser, so both check every row the same way.
+ * unit), or to row errors naming row, line and column. The server and the upload page both feed
+ * it the records papaparse splits (read-csv-records.ts), so both check every row the same way.
  */
 import { QUANTITY_KIND_LABELS, SYSTEM_DEFAULT_UNITS, findUnit, type QuantityKind, type UnitSystem } from "../engine/units";
-import { getColumnRole, splitHeader, type HeaderColumn } from "./columns";
+import { MAX_HEADER_CELL_CHARS, getColumnRole, splitHeader, type HeaderColumn } from "./columns";
 import { findDelimiterInSingleColumnHeader } from "./delimiters";
 import { mapGeometry, mapLoads, mapMaterial, mapReinforcement, mapSection, REINFORCEMENT_FIELD_NAMES, SECTION_COLUMNS, SECTION_FIELD_NAMES, type Cells } from "./map-member-fields";
 import { parseCellBoolean, parseCellNumber, splitCellList } from "./row-values";
-import { stripBom } from "./tokenize-csv";
+import { stripBom } from "./read-csv-records";
 
 export interface CsvRowError {
   /** Spreadsheet row: the header is row 1, the first data row is row 2. */
@@ -59,6 +58,11 @@ export function createCsvRowMapper(headerRow: readonly string[], options: CsvMap
   }
   headerRow.forEach((rawHeader, index) => {
     const header = index === 0 ? stripBom(rawHeader) : rawHeader;
+    if (header.length > MAX_HEADER_CELL_CHARS) {
+      const shown = `${header.trim().slice(0, 40)}...`;
+      errors.push({ row: 1, column: shown, code: "header_too_long", message: `column ${index + 1}: the header "${shown}" is ${header.length} characters long; at most ${MAX_HEADER_CELL_CHARS}` });
+      return;
+    }
     const fail = (code: string, message: string) => errors.push({ row: 1, column: header, code, message });
     const parts = splitHeader(header);
     if (!parts || parts.name === "") return fail("invalid_header", `column ${index + 1}: header "${header}" is not a column name with an optional [unit]`);

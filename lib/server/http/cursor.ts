@@ -5,9 +5,26 @@ export function encodeCursor(value: unknown): string {
   return Buffer.from(JSON.stringify(value)).toString("base64url");
 }
 
+/** Longest cursor text read; ours are well under it. */
+const MAX_CURSOR_CHARS = 512;
+
+// A cursor is only a position: every part is checked to the shape this API writes, so a crafted
+// one is a 400 here rather than an error from PostgreSQL (bad timestamp, number out of range).
+const ISO_TIMESTAMP = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(?:\.\d{1,6})?Z$/;
+export const isCursorTimestamp = (v: unknown): v is string => typeof v === "string" && ISO_TIMESTAMP.test(v) && !Number.isNaN(Date.parse(v));
+export const isCursorId = (prefix: string, v: unknown): v is string => typeof v === "string" && v.length <= 64 && v.startsWith(`${prefix}_`) && /^[a-z]+_[0-9a-z]+$/.test(v);
+const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === "object" && v !== null && !Array.isArray(v);
+
+/** The schedule list's position: the last schedule of the previous page. */
+export const isScheduleCursor = (v: unknown): v is { createdAt: string; id: string } => isRecord(v) && isCursorTimestamp(v.createdAt) && isCursorId("sch", v.id);
+
+/** A results page's position: the last member index shown (-1 before the first). */
+export const isIndexCursor = (v: unknown): v is { after: number } => isRecord(v) && Number.isSafeInteger(v.after) && (v.after as number) >= -1 && (v.after as number) < 2 ** 31;
+
 export function decodeCursor<T>(text: string | null, isValid: (value: unknown) => value is T): T | undefined {
   if (text === null || text === "") return undefined;
   try {
+    if (text.length > MAX_CURSOR_CHARS) throw new RangeError("cursor too long");
     const value: unknown = JSON.parse(Buffer.from(text, "base64url").toString("utf8"));
     if (isValid(value)) return value;
   } catch {

@@ -1,46 +1,16 @@
-import { readFileSync } from "node:fs";
-import { join } from "node:path";
-
-import Ajv2020 from "ajv/dist/2020.js";
-import addFormats from "ajv-formats";
-
-import { CSV_DELIMITER_CHARS, CSV_DELIMITERS, mapIssueToCsvRow, parseScheduleCsv, type CsvDelimiter } from "@/lib/schedule-csv";
+import { CSV_DELIMITER_CHARS, CSV_DELIMITERS, mapIssueToCsvRow, type CsvDelimiter } from "@/lib/schedule-csv";
+import { CsvEncodingError, parseScheduleCsvBytes } from "@/lib/schedule-csv/parse-schedule-csv-stream";
 import type { InputIssue } from "@/lib/engine/model";
 import { DomainError, type FieldError } from "@/lib/server/errors";
 
 import { MAX_LISTED_ERRORS } from "./issue-pointers";
 import { throwInvalidSchedule } from "./submit-schedule";
+import { findScheduleSchemaErrors } from "./validate-schedule-schema";
 
-type Validator = ReturnType<Ajv2020["compile"]>;
-let validators: { quick: Validator; full: Validator } | undefined;
-
-/**
- * Two compilations of the same schema: `quick` stops at the first error, about twice as fast on a
- * valid 100,000-member schedule; `full` (allErrors) runs only on a schedule already known to be
- * invalid, to list every error.
- */
-function getScheduleValidators() {
-  if (!validators) {
-    const schema = JSON.parse(readFileSync(join(process.cwd(), "api-schemas", "v1", "schedule.schema.json"), "utf8"));
-    const compile = (allErrors: boolean) => {
-      const ajv = new Ajv2020({ allErrors, strict: false, allowUnionTypes: true });
-      addFormats(ajv);
-      return ajv.compile(schema);
-    };
-    validators = { quick: compile(false), full: compile(true) };
-  }
-  return validators;
-}
-
-/** Checks a JSON document against the public JSON Schema; every error with its JSON pointer. */
+/** Checks a JSON document against the public JSON Schema; 422 listing the problems with their JSON pointers. */
 export function assertMatchesScheduleSchema(doc: unknown): void {
-  const { quick, full } = getScheduleValidators();
-  if (quick(doc) || full(doc)) return;
-  const errors = (full.errors ?? []).map((e) => ({
-    pointer: e.instancePath,
-    message: e.keyword === "additionalProperties" ? `unknown field "${String(e.params.additionalProperty)}"` : (e.message ?? "is invalid"),
-  }));
-  throwInvalidSchedule(errors.slice(0, MAX_LISTED_ERRORS), errors.length);
+  const found = findScheduleSchemaErrors(doc);
+  if (found) throwInvalidSchedule(found.listed, found.total);
 }
 
 export function parseJsonBody(text: string): unknown {
@@ -79,12 +49,21 @@ export function readCsvParameters(get: (name: string) => string | null, fallback
   return { name, reference, limits: { preset: limits }, delimiter: delimiter!, units: system ? { system: system as "SI" | "US" } : undefined };
 }
 
-/** Turns a CSV into a public-format document; row errors carry row, line, column and a code. */
-export function readScheduleCsv(text: string, parameters: CsvParameters) {
-  const parsed = parseScheduleCsv(text, { ...parameters, units: parameters.units ?? {} });
+/**
+ * Turns CSV bytes into a public-format document, read as a stream (bounded memory, row limits
+ * enforced while reading); row errors carry row, line, column and a code.
+ */
+export async function readScheduleCsv(bytes: Uint8Array, parameters: CsvParameters) {
+  let parsed: Awaited<ReturnType<typeof parseScheduleCsvBytes>>;
+  try {
+    parsed = await parseScheduleCsvBytes(bytes, { ...parameters, units: parameters.units ?? {} });
+  } catch (error) {
+    if (error instanceof CsvEncodingError) throw new DomainError("bad_request", error.message, [{ pointer: "/file", message: error.message }]);
+    throw error;
+  }
   if (!parsed.ok) {
     const errors: FieldError[] = parsed.errors.map((e) => ({ row: e.row, ...(e.line === undefined ? {} : { line: e.line }), column: e.column, code: e.code, message: e.message }));
-    throwInvalidSchedule(errors.slice(0, MAX_LISTED_ERRORS), errors.length);
+    throwInvalidSchedule(errors.slice(0, MAX_LISTED_ERRORS), parsed.errorCount ?? errors.length);
   }
   const toFieldErrors = (issues: InputIssue[]): FieldError[] =>
     issues.map((issue) => {

@@ -39,21 +39,37 @@ export function representResult(r: ResultRow) {
   };
 }
 
-// OWASP CSV injection: a cell that a spreadsheet would read as a formula is prefixed with '.
-function neutralise(text: string): string {
-  return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
+/**
+ * OWASP CSV injection: text a spreadsheet could read as a formula (= + - @, tab, CR) is prefixed
+ * with '. Not only at the cell's start: a reader that splits on ; or tab, or ignores quoted line
+ * breaks, starts a cell after any of those, so a trigger after one is prefixed too.
+ */
+export function neutraliseFormulaText(text: string): string {
+  let out = "";
+  let cellStart = true;
+  for (const char of text) {
+    if (cellStart && FORMULA_TRIGGERS.has(char)) out += "'";
+    out += char;
+    cellStart = CELL_STARTERS.has(char);
+  }
+  return out;
 }
 
-function csvCell(value: string | number | boolean | null): string {
+const FORMULA_TRIGGERS = new Set(["=", "+", "-", "@", "\t", "\r"]);
+// After these, some reader starts a new cell: the delimiters and line breaks.
+const CELL_STARTERS = new Set([",", ";", "\t", "\r", "\n"]);
+
+/** One exported cell: numbers as written, text neutralised and quoted when it holds , ; tab, quote or a line break. */
+export function formatCsvCell(value: string | number | boolean | null): string {
   if (value === null) return "";
-  const text = typeof value === "string" ? neutralise(value) : String(value);
-  return /[",\n\r]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
+  const text = typeof value === "string" ? neutraliseFormulaText(value) : String(value);
+  return /[",;\t\n\r]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
 }
 
 // limit_ratio, achieved_ratio (l/N) and notes follow the older columns, so readers that go by position keep working.
 export const RESULT_CSV_HEADER = ["mark", "category", "status", "governing_check", "utilization", "factor_of_safety", "limit_ratio", "achieved_ratio", "notes"];
 
 export function resultsToCsv(rows: ResultRow[], withHeader: boolean): string {
-  const lines = rows.map((r) => [r.mark, r.category, r.status, r.governingCheck, r.utilization, r.factorOfSafety, r.limitRatio, r.achievedRatio, r.notes.join("; ")].map(csvCell).join(","));
+  const lines = rows.map((r) => [r.mark, r.category, r.status, r.governingCheck, r.utilization, r.factorOfSafety, r.limitRatio, r.achievedRatio, r.notes.join("; ")].map(formatCsvCell).join(","));
   return (withHeader ? [RESULT_CSV_HEADER.join(","), ...lines] : lines).join("\r\n") + "\r\n";
 }

@@ -18,7 +18,7 @@ async function buildSubmission(fullType: string, type: string, bytes: Uint8Array
     return { doc, source: "api-json" };
   }
   if (type === "text/csv") {
-    const csv = readScheduleCsv(decodeUtf8(bytes, "CSV"), readCsvParameters((n) => params.get(n), "CSV schedule"));
+    const csv = await readScheduleCsv(bytes, readCsvParameters((n) => params.get(n), "CSV schedule"));
     return { ...csv, source: "api-csv" };
   }
   if (type === "multipart/form-data") return buildFromMultipart(bytes, params, fullType);
@@ -34,18 +34,18 @@ async function buildFromMultipart(bytes: Uint8Array, params: URLSearchParams, co
   }
   const file = form.get("file");
   if (!(file instanceof Blob)) throw new DomainError("bad_request", 'The multipart body needs a "file" part.', [{ pointer: "/file", message: "missing" }]);
-  const text = decodeUtf8(new Uint8Array(await file.arrayBuffer()), "file");
+  const fileBytes = new Uint8Array(await file.arrayBuffer());
   const fileName = file instanceof File ? file.name : "schedule";
   const get = (name: string) => {
     const v = form.get(name);
     return typeof v === "string" ? v : params.get(name);
   };
   if (file.type === "application/json" || fileName.toLowerCase().endsWith(".json")) {
-    const doc = parseJsonBody(text);
+    const doc = parseJsonBody(decodeUtf8(fileBytes, "file"));
     assertMatchesScheduleSchema(doc);
     return { doc, source: "api-json" as const };
   }
-  const csv = readScheduleCsv(text, readCsvParameters(get, fileName.replace(/\.[^.]+$/, "")));
+  const csv = await readScheduleCsv(fileBytes, readCsvParameters(get, fileName.replace(/\.[^.]+$/, "")));
   return { ...csv, source: "api-csv" as const };
 }
 

@@ -14,7 +14,15 @@ export interface GuardOptions {
   allowlist: readonly string[];
   /** Injected in tests; defaults to the system resolver. */
   resolve?: Resolver;
+  /** A name that does not resolve in this time is refused (default DNS_TIMEOUT_MS). */
+  dnsTimeoutMs?: number;
 }
+
+/** How long a webhook host's DNS lookup may take before the URL is refused. */
+export const DNS_TIMEOUT_MS = 3_000;
+
+/** Ports a webhook may use unless the allowlist names `host:port`. */
+const WEB_PORTS = new Set(["80", "443"]);
 
 export interface VettedTarget {
   url: URL;
@@ -54,9 +62,9 @@ for (const [net, prefix] of [
 ] as const) {
   blockedV4.addSubnet(net, prefix, "ipv4");
 }
-// IPv6: unspecified, loopback, IPv4-mapped and -compatible, NAT64, 6to4 (they embed IPv4
-// addresses that could be private), unique local (fd00:ec2::254 included), link-local,
-// site-local, documentation and multicast.
+// IPv6: unspecified, loopback, IPv4-mapped and -compatible, NAT64 (well-known and local-use),
+// Teredo and 6to4 (they embed IPv4 addresses that could be private), discard-only, unique local
+// (fd00:ec2::254 included), link-local, site-local, documentation and multicast.
 for (const [net, prefix] of [
   ["::", 128],
   ["::1", 128],
@@ -64,6 +72,8 @@ for (const [net, prefix] of [
   ["::ffff:0:0", 96],
   ["64:ff9b::", 96],
   ["64:ff9b:1::", 48],
+  ["100::", 64],
+  ["2001::", 32],
   ["2002::", 16],
   ["fc00::", 7],
   ["fe80::", 10],
@@ -100,6 +110,23 @@ export function isAllowlisted(url: URL, allowlist: readonly string[]): boolean {
   return allowlist.some((entry) => entry === host || entry === hostPort);
 }
 
+/** Ports 80 and 443 only, unless the allowlist names this host with this very port. */
+function assertPortAllowed(url: URL, allowlist: readonly string[]): void {
+  const port = defaultPort(url);
+  if (WEB_PORTS.has(port)) return;
+  const host = stripBrackets(url.hostname).replace(/\.$/, "").toLowerCase();
+  if (allowlist.includes(`${host}:${port}`)) return;
+  throw new UnsafeUrlError(`uses port ${port}; webhooks use ports 80 and 443 unless WEBHOOK_ALLOWLIST names ${host}:${port}`);
+}
+
+function withTimeout<T>(work: Promise<T>, ms: number, message: string): Promise<T> {
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  const timeout = new Promise<never>((_, reject) => {
+    timer = setTimeout(() => reject(new UnsafeUrlError(message)), ms);
+  });
+  return Promise.race([work, timeout]).finally(() => clearTimeout(timer));
+}
+
 /**
  * Parses a webhook URL and refuses what can never be safe: other schemes, credentials in the URL,
  * a blocked literal address (the WHATWG parser has already turned decimal, octal, hex and short
@@ -115,16 +142,21 @@ export function parseWebhookUrl(raw: string, allowlist: readonly string[]): URL 
   if (url.protocol !== "https:" && url.protocol !== "http:") throw new UnsafeUrlError("must start with https:// or http://");
   if (url.username || url.password) throw new UnsafeUrlError("must not contain a user name or password");
   if (!url.hostname) throw new UnsafeUrlError("has no host");
-  if (isAllowlisted(url, allowlist)) return url;
+  if (isAllowlisted(url, allowlist)) {
+    assertPortAllowed(url, allowlist);
+    return url;
+  }
   const host = stripBrackets(url.hostname).replace(/\.$/, "").toLowerCase();
   if (isIP(host)) {
     const reason = getBlockedAddressReason(host);
     if (reason) throw new UnsafeUrlError(`points at a non-public address: ${reason}`);
+    assertPortAllowed(url, allowlist);
     return url;
   }
   if (blockedNames.some((pattern) => pattern.test(host))) throw new UnsafeUrlError(`points at a non-public host (${host})`);
   // A bare number that the parser did not take as an address (e.g. out of range) is no host name.
   if (/^[0-9.]+$/.test(host) || /^0x[0-9a-f.]+$/i.test(host)) throw new UnsafeUrlError("has a malformed numeric host");
+  assertPortAllowed(url, allowlist);
   return url;
 }
 
@@ -145,9 +177,11 @@ export async function vetWebhookUrl(raw: string, options: GuardOptions): Promise
   if (isIP(host)) {
     addresses = [host];
   } else {
+    const timeoutMs = options.dnsTimeoutMs ?? DNS_TIMEOUT_MS;
     try {
-      addresses = await (options.resolve ?? resolveWithSystem)(host);
-    } catch {
+      addresses = await withTimeout((options.resolve ?? resolveWithSystem)(host), timeoutMs, `host ${host} did not resolve within ${timeoutMs} ms`);
+    } catch (error) {
+      if (error instanceof UnsafeUrlError) throw error;
       throw new UnsafeUrlError(`host ${host} could not be resolved`);
     }
   }

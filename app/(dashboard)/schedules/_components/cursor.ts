@@ -14,12 +14,4 @@ export function readPageCursor<T>(text: string | null, isValid: (value: unknown)
 
 export { encodeCursor };
 
-export const isScheduleCursor = (v: unknown): v is { createdAt: string; id: string } =>
-  typeof v === "object" &&
-  v !== null &&
-  typeof (v as { createdAt?: unknown }).createdAt === "string" &&
-  typeof (v as { id?: unknown }).id === "string" &&
-  !Number.isNaN(Date.parse((v as { createdAt: string }).createdAt));
-
-export const isIndexCursor = (v: unknown): v is { after: number } =>
-  typeof v === "object" && v !== null && Number.isInteger((v as { after?: unknown }).after) && (v as { after: number }).after >= -1;
+export { isIndexCursor, isScheduleCursor } from "@/lib/server/http/cursor";

@@ -1,5 +1,5 @@
 import { DomainError } from "@/lib/server/errors";
-import { decodeUtf8, readBodyBytes } from "@/lib/server/http/read-body";
+import { readBodyBytes } from "@/lib/server/http/read-body";
 import { withSessionRoute } from "@/lib/server/auth/guards";
 import { readCsvParameters, readScheduleCsv } from "@/lib/server/schedules/read-schedule-body";
 import { MAX_SCHEDULE_BODY_BYTES } from "@/lib/server/schedules/submit-from-request";
@@ -24,13 +24,13 @@ export const POST = withSessionRoute("POST /api/schedules/upload", async (reques
   const form = await readMultipart(request);
   const file = form.get("file");
   if (!(file instanceof Blob)) throw new DomainError("bad_request", 'The upload needs a "file" part.', [{ pointer: "/file", message: "missing" }]);
-  const text = decodeUtf8(new Uint8Array(await file.arrayBuffer()), "file");
+  const bytes = new Uint8Array(await file.arrayBuffer());
   const fileName = file instanceof File && file.name ? file.name : "CSV schedule";
   const get = (name: string) => {
     const value = form.get(name);
     return typeof value === "string" && value !== "" ? value : null;
   };
-  const csv = readScheduleCsv(text, readCsvParameters(get, fileName.replace(/\.[^.]+$/, "")));
+  const csv = await readScheduleCsv(bytes, readCsvParameters(get, fileName.replace(/\.[^.]+$/, "")));
   const created = await submitSchedule({
     organizationId: context!.active!.organizationId,
     source: "upload",

@@ -2,6 +2,7 @@ import Ajv2020, { type ErrorObject, type ValidateFunction } from "ajv/dist/2020.
 import addFormats from "ajv-formats";
 
 import { DomainError, type FieldError } from "@/lib/server/errors";
+import { listErrorsBounded } from "@/lib/server/http/bounded-validation";
 
 /** Default cap for small JSON bodies (keys, webhook endpoints); schedules pass their own. */
 export const JSON_BODY_MAX_BYTES = 64 * 1024;
@@ -10,11 +11,18 @@ export const MAX_FIELD_ERRORS = 100;
 
 const ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true });
 addFormats(ajv);
+// The same schemas stopping at the first error: validity is decided by these (see bounded-validation.ts).
+const ajvFirstError = new Ajv2020({ allErrors: false, strict: true, allowUnionTypes: true });
+addFormats(ajvFirstError);
+const firstErrorValidators = new WeakMap<ValidateFunction, ValidateFunction>();
 
-/** Compiles a JSON Schema (2020-12) once per $id in the shared instance. */
+/** Compiles a JSON Schema (2020-12) once per $id in the shared instances. */
 export function compileSchema<T>(schema: { $id?: string } & Record<string, unknown>): ValidateFunction<T> {
   const existing = schema.$id ? ajv.getSchema<T>(schema.$id) : undefined;
-  return existing ?? ajv.compile<T>(schema);
+  if (existing) return existing;
+  const validate = ajv.compile<T>(schema);
+  firstErrorValidators.set(validate, ajvFirstError.compile(schema));
+  return validate;
 }
 
 function joinPointer(base: string, property: unknown): string {
@@ -110,8 +118,10 @@ export function parseJsonText(text: string): unknown {
 
 /** Throws 422 with every {pointer, message} (capped at MAX_FIELD_ERRORS) unless value matches the schema. */
 export function assertValid<T>(validate: ValidateFunction<T>, value: unknown): T {
-  if (validate(value)) return value;
-  const errors = toFieldErrors(validate.errors);
+  const firstError = firstErrorValidators.get(validate) ?? validate;
+  const found = listErrorsBounded({ firstError, allErrors: validate }, value);
+  if (found === null) return value as T;
+  const errors = toFieldErrors(found);
   const extensions = errors.length > MAX_FIELD_ERRORS ? { errorCount: errors.length } : {};
   throw new DomainError("invalid_input", "The request body does not match the schema; see errors.", errors.slice(0, MAX_FIELD_ERRORS), undefined, extensions);
 }

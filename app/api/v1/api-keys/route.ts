@@ -1,6 +1,7 @@
 import { createApiKey } from "@/lib/server/api-keys/create-api-key";
 import { API_KEY_PAGE_DEFAULT, API_KEY_PAGE_MAX } from "@/lib/server/api-keys/limits";
 import { listApiKeys, type ApiKeyCursor } from "@/lib/server/api-keys/list-api-keys";
+import { isCursorTimestamp } from "@/lib/server/http/cursor";
 
 import { validateApiKeyCreate } from "../_lib/api-key-schemas";
 import { buildNextLink, decodeCursor, encodeCursor, readPageQuery } from "../_lib/pagination";
@@ -11,9 +12,8 @@ export const dynamic = "force-dynamic";
 
 function readKeyCursor(value: Record<string, unknown>): ApiKeyCursor | null {
   const { c, i } = value;
-  if (typeof c !== "string" || typeof i !== "string" || !/^key_[0-9a-z]{1,40}$/.test(i)) return null;
-  const createdAt = new Date(c);
-  return Number.isNaN(createdAt.getTime()) ? null : { createdAt, id: i };
+  if (!isCursorTimestamp(c) || typeof i !== "string" || !/^key_[0-9a-z]{1,40}$/.test(i)) return null;
+  return { createdAt: new Date(c), id: i };
 }
 
 // GET /api/v1/api-keys: this organization's keys, newest first, keyset-paginated (Link rel="next").

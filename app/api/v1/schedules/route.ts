@@ -1,6 +1,6 @@
 import { withApiKey } from "@/app/api/v1/_lib/with-api-key";
 import { listSchedules } from "@/db/queries/schedules";
-import { decodeCursor, encodeCursor, nextLink, readLimit } from "@/lib/server/http/cursor";
+import { decodeCursor, encodeCursor, isScheduleCursor, nextLink, readLimit } from "@/lib/server/http/cursor";
 import { SCHEDULE_PAGE_DEFAULT, SCHEDULE_PAGE_MAX } from "@/lib/server/schedules/page-limits";
 import { representSchedule } from "@/lib/server/schedules/represent";
 import { submitScheduleRequest } from "@/lib/server/schedules/submit-from-request";
@@ -17,9 +17,6 @@ export const POST = withApiKey("schedules:write", async (request, key) => {
     headers: { location: `/api/v1/schedules/${id}`, ...(replayed ? { "idempotent-replayed": "true" } : {}) },
   });
 });
-
-const isScheduleCursor = (v: unknown): v is { createdAt: string; id: string } =>
-  typeof v === "object" && v !== null && typeof (v as { createdAt?: unknown }).createdAt === "string" && typeof (v as { id?: unknown }).id === "string" && !Number.isNaN(Date.parse((v as { createdAt: string }).createdAt));
 
 // GET /api/v1/schedules: the organization's schedules, newest first, cursor-paginated.
 export const GET = withApiKey("results:read", async (request, key) => {

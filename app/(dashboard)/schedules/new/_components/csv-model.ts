@@ -10,12 +10,15 @@ import { getPreset, listProfileLoadCases } from "@/lib/engine/presets";
 import { QUANTITY_KIND_LABELS, SYSTEM_DEFAULT_UNITS, type QuantityKind, type UnitSystem } from "@/lib/engine/units";
 import {
   CSV_DELIMITER_CHARS,
+  CSV_ROW_LIMITS,
   createCsvRowMapper,
   findDelimiterInSingleColumnHeader,
   mapCsvRecordsToSchedule,
   mapIssueToCsvRow,
+  readCsvRecords,
   stripBom,
   type CsvDelimiter,
+  type CsvRecord,
   type CsvDelimiterName,
   type CsvRowError,
 } from "@/lib/schedule-csv";
@@ -28,13 +31,7 @@ export const DELIMITERS: Record<DelimiterName, { char: CsvDelimiter; label: stri
   tab: { char: CSV_DELIMITER_CHARS.tab, label: "Tab" },
 };
 
-export interface CsvRecord {
-  fields: string[];
-  /** Spreadsheet row: header 1, first member 2. */
-  row: number;
-  /** Physical line the record starts on. */
-  line: number;
-}
+export type { CsvRecord };
 
 export type ParsedCsv = { ok: true; header: CsvRecord; records: CsvRecord[] } | { ok: false; errors: CsvRowError[] };
 
@@ -56,35 +53,13 @@ export function suggestDelimiter(text: string): DelimiterName | null {
 }
 
 /**
- * Splits the text into records with their row and starting line. Line ends are made uniform first
- * (CRLF and a lone CR become LF, quoted ones too), because papaparse takes one line-end style per
- * file while the server's tokenizer takes all three; each counts as one line either way.
+ * Splits the text into records with their row and starting line: the same papaparse reading, with
+ * the same limits and errors, as the server (lib/schedule-csv/read-csv-records.ts).
  */
 export function parseCsvText(text: string, delimiter: DelimiterName): ParsedCsv {
-  const uniform = stripBom(text).replace(/\r\n?/g, "\n");
   const records: CsvRecord[] = [];
-  const errors: CsvRowError[] = [];
-  let start = 0;
-  let line = 1;
-  Papa.parse<string[]>(uniform, {
-    delimiter: DELIMITERS[delimiter].char,
-    newline: "\n",
-    skipEmptyLines: false,
-    step: (result) => {
-      const row = records.length + 1;
-      for (const e of result.errors) {
-        if (e.code === "MissingQuotes") errors.push({ row, line, column: "", code: "unterminated_quote", message: "a quoted field is not closed" });
-      }
-      records.push({ fields: result.data, row, line });
-      const end = result.meta.cursor;
-      for (let i = start; i < end; i++) if (uniform.charCodeAt(i) === 10) line++;
-      start = end;
-    },
-  });
-  // A final line break does not start another record.
-  const last = records.at(-1);
-  if (last && last.fields.length === 1 && last.fields[0] === "" && uniform.endsWith("\n")) records.pop();
-  if (errors.length > 0) return { ok: false, errors };
+  const read = readCsvRecords(text, DELIMITERS[delimiter].char, CSV_ROW_LIMITS, (record) => void records.push(record));
+  if (!read.ok) return { ok: false, errors: [read.error] };
   const [header, ...rest] = records;
   if (!header || header.fields.every((f) => f.trim() === "")) return { ok: false, errors: [{ row: 1, line: 1, column: "", code: "empty_file", message: "the file has no header row" }] };
   return { ok: true, header, records: rest };

@@ -13,6 +13,7 @@ const fakeDns: Record<string, string[]> = {
   "v6-mapped.example": ["::ffff:10.0.0.1"],
   "v6-public.example": ["2606:4700:4700::1111"],
   "cgnat.example": ["100.64.0.1"],
+  "teredo.example": ["2001::1"],
 };
 const resolve: Resolver = async (hostname) => {
   const answer = fakeDns[hostname];
@@ -55,6 +56,11 @@ describe("the SSRF guard refuses non-public targets", () => {
     ["IPv6 multicast", "http://[ff02::1]/"],
     ["IPv4-mapped IPv6 loopback", "http://[::ffff:127.0.0.1]/"],
     ["IPv4-mapped IPv6 of a public address", "http://[::ffff:8.8.8.8]/"],
+    ["IPv4-mapped IPv6 written in hex (::ffff:0:0/96)", "http://[::ffff:7f00:1]/"],
+    ["NAT64 64:ff9b::/96 of a private address", "http://[64:ff9b::a00:1]/"],
+    ["NAT64 64:ff9b::/96 of the metadata address", "http://[64:ff9b::169.254.169.254]/"],
+    ["discard-only 100::/64", "http://[100::1]/"],
+    ["Teredo 2001::/32", "http://[2001:0:4136:e378:8000:63bf:3fff:fdd2]/"],
     ["decimal integer loopback", "http://2130706433/"],
     ["hex short form", "http://0x7f.1/"],
     ["hex integer", "http://0x7f000001/"],
@@ -78,6 +84,7 @@ describe("the SSRF guard refuses non-public targets", () => {
     ["v6-ula.example", "fd00:ec2::254"],
     ["v6-mapped.example", "::ffff:10.0.0.1"],
     ["cgnat.example", "100.64.0.1"],
+    ["teredo.example", "2001::1"],
   ])("refuses a name resolving to a non-public address (%s)", async (name, address) => {
     const message = await refusal(`https://${name}/hook`);
     expect(message).toContain(`resolves to a non-public address`);
@@ -118,10 +125,24 @@ describe("the SSRF guard lets public targets through and pins the address", () =
   it("lets an allowlisted loopback host and host:port through, and nothing else on loopback", async () => {
     const allowlist = ["127.0.0.1:3795", "localhost"];
     expect((await vetWebhookUrl("http://127.0.0.1:3795/hooks/a", { allowlist, resolve: async () => ["127.0.0.1"] })).allowlisted).toBe(true);
-    expect((await vetWebhookUrl("http://localhost:4000/", { allowlist, resolve: async () => ["127.0.0.1"] })).address).toBe("127.0.0.1");
+    expect((await vetWebhookUrl("http://localhost/", { allowlist, resolve: async () => ["127.0.0.1"] })).address).toBe("127.0.0.1");
+    // A bare host in the allowlist does not open other ports: only host:port does.
+    expect(await refusal("http://localhost:4000/", allowlist)).toMatch(/port 4000/);
     expect(await refusal("http://127.0.0.1:3796/", allowlist)).toMatch(/non-public/);
     expect(isAllowlisted(new URL("http://127.0.0.1/"), ["127.0.0.1:80"])).toBe(true);
     expect(isAllowlisted(new URL("https://127.0.0.1/"), ["127.0.0.1:80"])).toBe(false);
+  });
+
+  it("refuses ports other than 80 and 443 unless the allowlist names host:port", async () => {
+    expect(await refusal("https://partner.example:8443/")).toMatch(/port 8443.*partner\.example:8443/);
+    expect(await refusal("http://93.184.215.14:22/")).toMatch(/port 22/);
+    expect((await vetWebhookUrl("https://partner.example:443/", { allowlist: [], resolve })).address).toBe("93.184.215.14");
+    expect((await vetWebhookUrl("https://partner.example:8443/", { allowlist: ["partner.example:8443"], resolve })).url.port).toBe("8443");
+  });
+
+  it("refuses a name whose lookup does not answer in time", async () => {
+    const never: Resolver = () => new Promise(() => undefined);
+    await expect(vetWebhookUrl("https://slow.example/", { allowlist: [], resolve: never, dnsTimeoutMs: 50 })).rejects.toThrow(/did not resolve within 50 ms/);
   });
 
   it("normalises encoded hosts before checking, so the parse and the connection agree", () => {

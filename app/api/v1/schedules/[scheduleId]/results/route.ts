@@ -1,13 +1,12 @@
 import { withApiKey } from "@/app/api/v1/_lib/with-api-key";
 import { getSchedule, listResults, type ResultStatus } from "@/db/queries/schedules";
 import { DomainError, assertFound } from "@/lib/server/errors";
-import { decodeCursor, encodeCursor, nextLink, readLimit } from "@/lib/server/http/cursor";
+import { decodeCursor, encodeCursor, isIndexCursor, nextLink, readLimit } from "@/lib/server/http/cursor";
 import { SAFETY_CAUTION } from "@/lib/safety";
 import { RESULT_PAGE_DEFAULT, RESULT_PAGE_MAX } from "@/lib/server/schedules/page-limits";
 import { representResult, resultsToCsv } from "@/lib/server/schedules/represent";
 
 const statuses: ResultStatus[] = ["pass", "fail", "error"];
-const isIndexCursor = (v: unknown): v is { after: number } => typeof v === "object" && v !== null && Number.isInteger((v as { after?: unknown }).after);
 
 function wantsCsv(request: Request, url: URL): boolean {
   const format = url.searchParams.get("format");
