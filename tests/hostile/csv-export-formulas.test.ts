@@ -30,6 +30,11 @@ const rows: ResultRow[] = hostile.map((text, i) => ({
   governingCheck: text,
   utilization: -0.5,
   factorOfSafety: 2,
+  governingDeflectionMm: -1.5,
+  limitRatio: 360,
+  achievedRatio: 720,
+  // notes are text too: the same hostile strings go through the last column
+  notes: [text],
 }));
 
 // A plain negative number is a number to every reader, not a formula.
