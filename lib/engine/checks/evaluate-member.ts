@@ -6,6 +6,7 @@ import { EngineInputError, prefixIssues } from "../solver/engine-input-error";
 import { solveValidatedMember, type MemberSolution } from "../solver/solve-member";
 import { collectMemberIssues } from "../solver/validate-member";
 import type { CaseFactors } from "../solver/deflection-field";
+import { getPatternSplit, getSpanJudgements } from "./span-groups";
 
 /** Everything checkMember derives before the suggestion and the sampled shape. */
 export interface MemberEvaluation {
@@ -27,11 +28,14 @@ export function assertMemberAndProfileValid(member: Member, profile: LimitProfil
 
 /**
  * Solves and checks a member already validated with assertMemberAndProfileValid: every
- * combination on every span, rotations, the frequency check. Pass = every check passes and the
- * frequency (when the profile asks for one) reaches its minimum.
+ * combination on every span (variable cases in their worst pattern, span-groups.ts), rotations,
+ * the frequency check. Pass = every check passes and the frequency (when the profile asks for
+ * one) reaches its minimum.
  */
 export function evaluateValidatedMember(member: Member, profile: LimitProfile): MemberEvaluation {
-  const solution = solveValidatedMember(member);
+  // one span with no overhang has one pattern group: no split, the single-span fast path
+  const split = member.spans.length === 1 && member.supports[0]!.kind !== "free" && member.supports[1]!.kind !== "free" ? undefined : getPatternSplit(member, profile, getSpanJudgements(member));
+  const solution = solveValidatedMember(member, split);
   const { checks, rotations, combinationFactors } = evaluateDeflectionChecks(member, profile, solution);
   const governing = getGoverningCheck(checks);
   const frequency = computeFrequency(member, profile);
