@@ -2,7 +2,7 @@ import type { CheckResult, Combination, LimitProfile, Member, RotationResult } f
 import { createCaseFactors, findSpanExtreme, getNodeRotation, type CaseFactors, type SpanExtreme } from "../solver/deflection-field";
 import { EngineInputError } from "../solver/engine-input-error";
 import type { MemberSolution } from "../solver/solve-member";
-import { addPatternFigures, createPatternUnits, hasSpringSupport, type PatternUnits } from "./pattern-checks";
+import { addPatternFigures, createMemberPatternContext, findPatternExtreme, needsPatternPath } from "./pattern-checks";
 import { getSpanJudgements, type SpanJudgement } from "./span-groups";
 import { getCreepFactor } from "./validate-profile";
 
@@ -66,21 +66,21 @@ export function evaluateDeflectionChecks(member: Member, profile: LimitProfile, 
   const rotations: RotationResult[] = [];
   const combinationFactors: CaseFactors[] = [];
   const extreme: SpanExtreme = { deflectionMm: 0, atMm: 0 };
-  const springs = hasSpringSupport(member);
+  const patternContext = createMemberPatternContext(member, solution, judgements);
   for (const combination of profile.combinations) {
     const factors = createCombinationFactors(solution, combination, getCreepFactor(combination, member));
     combinationFactors.push(factors);
     // fast path: no variable part to arrange and no support that moves
-    const units: PatternUnits | null = createPatternUnits(solution, factors);
+    const general = needsPatternPath(patternContext, factors);
     for (let span = 0; span < solution.spanCount; span++) {
       const judgement = judgements[span]!;
-      const figures = units === null && !springs ? null : addPatternFigures(solution, factors, units, span, judgement, springs, extreme, judgements);
-      if (figures === null) findSpanExtreme(solution, factors, span, extreme);
+      if (general) findPatternExtreme(patternContext, factors, span, extreme);
+      else findSpanExtreme(solution, factors, span, extreme);
       if (!Number.isFinite(extreme.deflectionMm)) {
         throw new EngineInputError([{ path: "loads", message: `combination "${combination.id}" gives a deflection beyond the range of double precision: check the load and stiffness magnitudes and units` }]);
       }
       const check = createCheckResult(combination, span, judgement, profile.cantileverSpanMultiplier, extreme);
-      if (figures !== null) Object.assign(check, figures);
+      if (general) addPatternFigures(patternContext, check);
       checks.push(check);
     }
     for (let node = 0; node <= solution.spanCount; node++) {

@@ -1,32 +1,21 @@
 import type { CheckResult, Member } from "../model";
 import { getNodeDeflection, type CaseFactors, type SpanExtreme } from "../solver/deflection-field";
-import { findEnvelopeExtreme, type EnvelopeExtreme } from "../solver/pattern-envelope";
+import { createSpanPatternBasis, findEnvelopeExtreme, type EnvelopeExtreme, type SpanPatternBasis } from "../solver/pattern-envelope";
 import type { MemberSolution } from "../solver/solve-member";
 import type { SpanJudgement } from "./span-groups";
 
 /**
- * The variable parts of one combination: each solved per-span part of a variable case with a
- * non-zero factor is a unit that an arrangement includes or leaves off; fixedFactors holds the
- * rest (everything that is always present).
+ * What the checks of one member share for patterns and moving supports: the solved per-span
+ * parts of its variable cases (solve-member.ts PatternSplit), whether a support is a spring,
+ * and each span's pattern basis, built on first use and reused by every combination.
  */
-export interface PatternUnits {
-  cases: number[];
-  factors: number[];
-  fixedFactors: CaseFactors;
-}
-
-/** The combination's pattern units, null when it has none (then every load is always present). */
-export function createPatternUnits(solution: MemberSolution, factors: CaseFactors): PatternUnits | null {
-  let units: PatternUnits | null = null;
-  for (let c = 0; c < factors.length; c++) {
-    const factor = factors[c] as number;
-    if (factor === 0 || (solution.casePatternGroup[c] as number) < 0) continue;
-    units ??= { cases: [], factors: [], fixedFactors: factors.slice() };
-    units.cases.push(c);
-    units.factors.push(factor);
-    units.fixedFactors[c] = 0;
-  }
-  return units;
+export interface MemberPatternContext {
+  solution: MemberSolution;
+  judgements: readonly SpanJudgement[];
+  partCases: number[];
+  springs: boolean;
+  totalBases: (SpanPatternBasis | undefined)[];
+  chordBases: (SpanPatternBasis | undefined)[];
 }
 
 /** Whether any support of the member moves under load (a spring). */
@@ -35,73 +24,116 @@ export function hasSpringSupport(member: Member): boolean {
   return false;
 }
 
-/** Fields a check gains from patterns and from moving supports (model.ts CheckResult). */
-export type PatternFigures = Pick<CheckResult, "loadedSpans" | "chordDeflectionMm" | "totalDeflectionMm" | "supportSettlementMm" | "deflectionBasis">;
+export function createMemberPatternContext(member: Member, solution: MemberSolution, judgements: readonly SpanJudgement[]): MemberPatternContext {
+  const partCases: number[] = [];
+  for (let c = 0; c < solution.casePatternGroup.length; c++) if ((solution.casePatternGroup[c] as number) >= 0) partCases.push(c);
+  return { solution, judgements, partCases, springs: hasSpringSupport(member), totalBases: [], chordBases: [] };
+}
 
-const NO_UNITS: number[] = [];
+/**
+ * Whether a combination needs the general path: it gives a variable part a non-zero factor, or
+ * a support moves. Otherwise every load is always present and the deflection is total.
+ */
+export function needsPatternPath(context: MemberPatternContext, factors: CaseFactors): boolean {
+  if (context.springs) return true;
+  for (const c of context.partCases) if ((factors[c] as number) !== 0) return true;
+  return false;
+}
+
+
 const totalScratch: EnvelopeExtreme = { deflectionMm: 0, atMm: 0, selected: new Uint8Array(16) };
 const chordScratch: EnvelopeExtreme = { deflectionMm: 0, atMm: 0, selected: new Uint8Array(16) };
+const fixedScratch: CaseFactors = [];
+// bases of the previous member, whose arrays the next member's bases overwrite
+const totalPool: SpanPatternBasis[] = [];
+const chordPool: SpanPatternBasis[] = [];
+// figures of the last findPatternExtreme call, read by addPatternFigures
+let lastLoadedSpans: Record<string, number[]> | null = null;
+const lastChord = { chordDeflectionMm: 0, totalDeflectionMm: 0, startMm: 0, endMm: null as number | null, basis: "total" as "total" | "chord" };
 
-function getArrangedNodeDeflection(solution: MemberSolution, units: PatternUnits | null, factors: CaseFactors, selected: Uint8Array, node: number): number {
-  if (units === null) return getNodeDeflection(solution, factors, node);
-  let value = getNodeDeflection(solution, units.fixedFactors, node);
-  for (let u = 0; u < units.cases.length; u++) {
-    if (selected[u] === 1) value += (units.factors[u] as number) * (solution.caseStates[(units.cases[u] as number) * solution.caseStride + 2 * node] as number);
+function getArrangedNodeDeflection(context: MemberPatternContext, factors: CaseFactors, fixedFactors: CaseFactors, selected: Uint8Array, node: number): number {
+  const solution = context.solution;
+  let value = getNodeDeflection(solution, fixedFactors, node);
+  for (let u = 0; u < context.partCases.length; u++) {
+    const c = context.partCases[u] as number;
+    if (selected[u] === 1) value += (factors[c] as number) * (solution.caseStates[c * solution.caseStride + 2 * node] as number);
   }
   return value;
 }
 
-/** Per variable case, the spans (element indices, ascending) of the selected units. */
-function getLoadedSpans(solution: MemberSolution, units: PatternUnits, selected: Uint8Array, judgements: readonly SpanJudgement[]): Record<string, number[]> {
-  const loaded: Record<string, number[]> = {};
-  for (let u = 0; u < units.cases.length; u++) {
-    const caseIndex = units.cases[u] as number;
-    const name = solution.caseNames[caseIndex] as string;
-    const spans = (loaded[name] ??= []);
-    if (selected[u] !== 1) continue;
-    const group = solution.casePatternGroup[caseIndex] as number;
-    for (let e = 0; e < judgements.length; e++) if (judgements[e]!.groupIndex === group) spans.push(e);
+/**
+ * Per variable case with a non-zero factor, the spans (element indices, ascending) loaded.
+ * Null when the combination has no such case.
+ */
+function getLoadedSpans(context: MemberPatternContext, factors: CaseFactors, selected: Uint8Array): Record<string, number[]> | null {
+  const { solution, partCases, judgements } = context;
+  let loaded: Record<string, number[]> | null = null;
+  for (let u = 0; u < partCases.length; u++) {
+    const caseIndex = partCases[u] as number;
+    if ((factors[caseIndex] as number) === 0) continue;
+    loaded ??= {};
+    loaded[solution.caseNames[caseIndex] as string] ??= [];
   }
-  for (const name in loaded) loaded[name]!.sort((a, b) => a - b);
+  if (loaded === null) return null;
+  // spans in ascending order: each belongs to one group, so each is pushed at most once per case
+  for (let e = 0; e < judgements.length; e++) {
+    const group = judgements[e]!.groupIndex;
+    for (let u = 0; u < partCases.length; u++) {
+      const caseIndex = partCases[u] as number;
+      if (selected[u] !== 1 || (factors[caseIndex] as number) === 0 || solution.casePatternGroup[caseIndex] !== group) continue;
+      const spans = loaded[solution.caseNames[caseIndex] as string]!;
+      if (spans[spans.length - 1] !== e) spans.push(e);
+    }
+  }
   return loaded;
 }
 
 /**
  * The check's deflection under the worst arrangement of the combination's variable parts
- * (findEnvelopeExtreme), written to `out`, and the figures that go with it: the spans loaded and,
- * on spring supports, the extreme measured from the chord between the span's supports beside the
- * total one. A check on springs judges the larger in magnitude of the two: a span/N limit can be
- * read as the member's own bending (chord) or as the movement a finish sees (total), and neither
- * is always the larger (a support can rise), so taking the larger is the conservative reading.
+ * (pattern-envelope.ts), written to `out`, and the figures that go with it: the spans loaded
+ * and, on spring supports, the extreme measured from the chord between the span's supports
+ * beside the total one. A check on springs judges the larger in magnitude of the two: a span/N
+ * limit can be read as the member's own bending (chord) or as the movement a finish sees
+ * (total), and neither is always the larger (a support can rise), so the larger is the
+ * conservative reading.
  */
-export function addPatternFigures(
-  solution: MemberSolution,
-  factors: CaseFactors,
-  units: PatternUnits | null,
-  span: number,
-  judgement: SpanJudgement,
-  springs: boolean,
-  out: SpanExtreme,
-  judgements: readonly SpanJudgement[],
-): PatternFigures {
-  const fixedFactors = units === null ? factors : units.fixedFactors;
-  const unitCases = units === null ? NO_UNITS : units.cases;
-  const unitFactors = units === null ? NO_UNITS : units.factors;
-  const total = findEnvelopeExtreme(solution, fixedFactors, unitCases, unitFactors, span, null, totalScratch);
+export function findPatternExtreme(context: MemberPatternContext, factors: CaseFactors, span: number, out: SpanExtreme): void {
+  const { solution, partCases } = context;
+  const judgement = context.judgements[span]!;
+  const fixedFactors = fixedScratch;
+  fixedFactors.length = 0;
+  for (let c = 0; c < factors.length; c++) fixedFactors.push(factors[c] as number);
+  for (const c of partCases) fixedFactors[c] = 0;
+  const totalBasis = (context.totalBases[span] ??= createSpanPatternBasis(solution, span, partCases, null, totalPool[span]));
+  totalPool[span] = totalBasis;
+  const total = findEnvelopeExtreme(solution, totalBasis, fixedFactors, factors, totalScratch);
   let judged = total;
-  const figures: PatternFigures = {};
-  if (springs) {
-    const chord = findEnvelopeExtreme(solution, fixedFactors, unitCases, unitFactors, span, { startNode: judgement.chordStartNode, endNode: judgement.chordEndNode }, chordScratch);
+  if (context.springs) {
+    const reference = { startNode: judgement.chordStartNode, endNode: judgement.chordEndNode };
+    const chordBasis = (context.chordBases[span] ??= createSpanPatternBasis(solution, span, partCases, reference, chordPool[span]));
+    chordPool[span] = chordBasis;
+    const chord = findEnvelopeExtreme(solution, chordBasis, fixedFactors, factors, chordScratch);
     if (Math.abs(chord.deflectionMm) > Math.abs(total.deflectionMm)) judged = chord;
-    figures.chordDeflectionMm = chord.deflectionMm;
-    figures.totalDeflectionMm = total.deflectionMm;
-    const settlement = [getArrangedNodeDeflection(solution, units, factors, judged.selected, judgement.chordStartNode)];
-    if (judgement.chordEndNode !== judgement.chordStartNode) settlement.push(getArrangedNodeDeflection(solution, units, factors, judged.selected, judgement.chordEndNode));
-    figures.supportSettlementMm = settlement;
-    figures.deflectionBasis = judged === chord ? "chord" : "total";
+    lastChord.chordDeflectionMm = chord.deflectionMm;
+    lastChord.totalDeflectionMm = total.deflectionMm;
+    lastChord.startMm = getArrangedNodeDeflection(context, factors, fixedFactors, judged.selected, judgement.chordStartNode);
+    lastChord.endMm = judgement.chordEndNode === judgement.chordStartNode ? null : getArrangedNodeDeflection(context, factors, fixedFactors, judged.selected, judgement.chordEndNode);
+    lastChord.basis = judged === chord ? "chord" : "total";
   }
-  if (units !== null) figures.loadedSpans = getLoadedSpans(solution, units, judged.selected, judgements);
+  lastLoadedSpans = getLoadedSpans(context, factors, judged.selected);
   out.deflectionMm = judged.deflectionMm;
   out.atMm = judged.atMm;
-  return figures;
+}
+
+/**
+ * Adds to a check the figures of the findPatternExtreme call that produced its deflection (the
+ * spans loaded; on springs the chord and total extremes, the settlements and which was judged).
+ */
+export function addPatternFigures(context: MemberPatternContext, check: CheckResult): void {
+  if (lastLoadedSpans !== null) check.loadedSpans = lastLoadedSpans;
+  if (!context.springs) return;
+  check.chordDeflectionMm = lastChord.chordDeflectionMm;
+  check.totalDeflectionMm = lastChord.totalDeflectionMm;
+  check.supportSettlementMm = lastChord.endMm === null ? [lastChord.startMm] : [lastChord.startMm, lastChord.endMm];
+  check.deflectionBasis = lastChord.basis;
 }
