@@ -1,6 +1,6 @@
 import { checkMember } from "@/lib/engine/check-member";
 import { parseSchedule } from "@/lib/engine/intake";
-import type { FrequencyResult, RotationResult, ShapeSample } from "@/lib/engine/model";
+import type { CheckResult, FrequencyResult, RotationResult, ShapeSample } from "@/lib/engine/model";
 import { getMemberResult } from "@/db/queries/schedules";
 
 export interface MemberCheckRow {
@@ -14,6 +14,24 @@ export interface MemberCheckRow {
   utilization: number;
   factorOfSafety: number | null;
   pass: boolean;
+  /** Pattern loading and spring-support figures of the check (model.ts CheckResult), when it has them. */
+  loadedSpans?: Record<string, number[]>;
+  chordDeflectionMm?: number;
+  totalDeflectionMm?: number;
+  supportSettlementMm?: number[];
+  deflectionBasis?: "total" | "chord";
+}
+
+type CheckFigures = Pick<CheckResult, "loadedSpans" | "chordDeflectionMm" | "totalDeflectionMm" | "supportSettlementMm" | "deflectionBasis">;
+
+function pickFigures(check: CheckResult): CheckFigures {
+  const figures: CheckFigures = {};
+  if (check.loadedSpans !== undefined) figures.loadedSpans = check.loadedSpans;
+  if (check.chordDeflectionMm !== undefined) figures.chordDeflectionMm = check.chordDeflectionMm;
+  if (check.totalDeflectionMm !== undefined) figures.totalDeflectionMm = check.totalDeflectionMm;
+  if (check.supportSettlementMm !== undefined) figures.supportSettlementMm = check.supportSettlementMm;
+  if (check.deflectionBasis !== undefined) figures.deflectionBasis = check.deflectionBasis;
+  return figures;
 }
 
 /** One member's whole result, as both the member page and the member API route show it. */
@@ -37,19 +55,28 @@ export interface MemberReport {
 
 type StoredDetail = { frequency: FrequencyResult | null; suggestion: MemberReport["suggestion"]; error: string | null };
 
+interface MemberDiagrams extends Pick<MemberReport, "shape" | "rotations"> {
+  /** Per check (combination id and span index), its pattern and spring-support figures. */
+  figures: Map<string, CheckFigures>;
+}
+
+const figuresKeyOf = (combinationId: string, spanIndex: number): string => `${combinationId}\u0000${spanIndex}`;
+
 /**
- * Re-runs the engine for one stored member for what only its own page needs: the sampled shape
- * and the support rotations. Cheap for one member; storing them for every member of a 100,000-
- * member schedule is not.
+ * Re-runs the engine for one stored member for what only its own page needs: the sampled shape,
+ * the support rotations and each check's figures (spans loaded, chord and settlement). Cheap for
+ * one member; storing them for every member of a 100,000-member schedule is not.
  */
-function computeMemberDiagrams(header: Record<string, unknown>, input: unknown): Pick<MemberReport, "shape" | "rotations"> {
+function computeMemberDiagrams(header: Record<string, unknown>, input: unknown): MemberDiagrams {
+  const none: MemberDiagrams = { shape: [], rotations: [], figures: new Map() };
   const parsed = parseSchedule({ ...header, members: [input] });
-  if (!parsed.ok) return { shape: [], rotations: [] };
+  if (!parsed.ok) return none;
   try {
     const result = checkMember(parsed.schedule.members[0]!, parsed.schedule.profile, undefined, { shape: true });
-    return { shape: result.shape ?? [], rotations: result.rotations };
+    const figures = new Map(result.checks.map((check) => [figuresKeyOf(check.combinationId, check.spanIndex), pickFigures(check)] as const));
+    return { shape: result.shape ?? [], rotations: result.rotations, figures };
   } catch {
-    return { shape: [], rotations: [] };
+    return none;
   }
 }
 
@@ -62,6 +89,7 @@ export async function getMemberReport(scheduleId: string, mark: string): Promise
   const checked = member.checked === true;
   const detail = (member.detail ?? null) as StoredDetail | null;
   const header = member.header as Record<string, unknown>;
+  const diagrams = checked && !detail?.error ? computeMemberDiagrams(header, member.input) : { shape: [], rotations: [], figures: new Map<string, CheckFigures>() };
   return {
     mark: member.mark as string,
     category: member.category as string,
@@ -83,9 +111,11 @@ export async function getMemberReport(scheduleId: string, mark: string): Promise
       utilization: c.utilization as number,
       factorOfSafety: (c.factor_of_safety as number | null) ?? null,
       pass: c.pass as boolean,
+      ...diagrams.figures.get(figuresKeyOf(c.combination_id as string, c.span_index as number)),
     })),
     frequency: detail?.frequency ?? null,
     suggestion: detail?.suggestion ?? null,
-    ...(checked && !detail?.error ? computeMemberDiagrams(header, member.input) : { shape: [], rotations: [] }),
+    shape: diagrams.shape,
+    rotations: diagrams.rotations,
   };
 }
