@@ -58,10 +58,11 @@ export interface DeflectionEvaluation {
 
 /**
  * Runs every combination of the profile on every span of a solved member: the checks (combination
- * order, then span order) and the rotation at every node. Assumes the profile was validated.
+ * order, then span order; variable parts in their worst arrangement, pattern-checks.ts) and the
+ * rotation at every node (every load as given). Assumes the profile was validated. `judgements`:
+ * getSpanJudgements(member), when the caller already has them.
  */
-export function evaluateDeflectionChecks(member: Member, profile: LimitProfile, solution: MemberSolution): DeflectionEvaluation {
-  const judgements = getSpanJudgements(member);
+export function evaluateDeflectionChecks(member: Member, profile: LimitProfile, solution: MemberSolution, judgements: readonly SpanJudgement[] = getSpanJudgements(member)): DeflectionEvaluation {
   const checks: CheckResult[] = [];
   const rotations: RotationResult[] = [];
   const combinationFactors: CaseFactors[] = [];
@@ -71,16 +72,16 @@ export function evaluateDeflectionChecks(member: Member, profile: LimitProfile, 
     const factors = createCombinationFactors(solution, combination, getCreepFactor(combination, member));
     combinationFactors.push(factors);
     // fast path: no variable part to arrange and no support that moves
-    const general = needsPatternPath(patternContext, factors);
+    const general = needsPatternPath(patternContext, factors) ? patternContext : null;
     for (let span = 0; span < solution.spanCount; span++) {
       const judgement = judgements[span]!;
-      if (general) findPatternExtreme(patternContext, factors, span, extreme);
+      if (general !== null) findPatternExtreme(general, factors, span, extreme);
       else findSpanExtreme(solution, factors, span, extreme);
       if (!Number.isFinite(extreme.deflectionMm)) {
         throw new EngineInputError([{ path: "loads", message: `combination "${combination.id}" gives a deflection beyond the range of double precision: check the load and stiffness magnitudes and units` }]);
       }
       const check = createCheckResult(combination, span, judgement, profile.cantileverSpanMultiplier, extreme);
-      if (general) addPatternFigures(patternContext, check);
+      if (general !== null) addPatternFigures(general, check);
       checks.push(check);
     }
     for (let node = 0; node <= solution.spanCount; node++) {

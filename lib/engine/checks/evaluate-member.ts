@@ -33,10 +33,11 @@ export function assertMemberAndProfileValid(member: Member, profile: LimitProfil
  * one) reaches its minimum.
  */
 export function evaluateValidatedMember(member: Member, profile: LimitProfile): MemberEvaluation {
-  // one span with no overhang has one pattern group: no split, the single-span fast path
-  const split = member.spans.length === 1 && member.supports[0]!.kind !== "free" && member.supports[1]!.kind !== "free" ? undefined : getPatternSplit(member, profile, getSpanJudgements(member));
+  const judgements = getSpanJudgements(member);
+  // one span with no overhang is one pattern group: no split, the single-span fast path
+  const split = member.spans.length === 1 && member.supports[0]!.kind !== "free" && member.supports[1]!.kind !== "free" ? undefined : getPatternSplit(member, profile, judgements);
   const solution = solveValidatedMember(member, split);
-  const { checks, rotations, combinationFactors } = evaluateDeflectionChecks(member, profile, solution);
+  const { checks, rotations, combinationFactors } = evaluateDeflectionChecks(member, profile, solution, judgements);
   const governing = getGoverningCheck(checks);
   const frequency = computeFrequency(member, profile);
   let pass = frequency === null || frequency.pass;

@@ -24,17 +24,24 @@ export function hasSpringSupport(member: Member): boolean {
   return false;
 }
 
-export function createMemberPatternContext(member: Member, solution: MemberSolution, judgements: readonly SpanJudgement[]): MemberPatternContext {
-  const partCases: number[] = [];
-  for (let c = 0; c < solution.casePatternGroup.length; c++) if ((solution.casePatternGroup[c] as number) >= 0) partCases.push(c);
-  return { solution, judgements, partCases, springs: hasSpringSupport(member), totalBases: [], chordBases: [] };
+/**
+ * The member's pattern context; null when no check needs it (no variable part was solved and no
+ * support moves), which keeps single spans on the plain path.
+ */
+export function createMemberPatternContext(member: Member, solution: MemberSolution, judgements: readonly SpanJudgement[]): MemberPatternContext | null {
+  let partCases: number[] | null = null;
+  for (let c = 0; c < solution.casePatternGroup.length; c++) if ((solution.casePatternGroup[c] as number) >= 0) (partCases ??= []).push(c);
+  const springs = hasSpringSupport(member);
+  if (partCases === null && !springs) return null;
+  return { solution, judgements, partCases: partCases ?? [], springs, totalBases: [], chordBases: [] };
 }
 
 /**
  * Whether a combination needs the general path: it gives a variable part a non-zero factor, or
  * a support moves. Otherwise every load is always present and the deflection is total.
  */
-export function needsPatternPath(context: MemberPatternContext, factors: CaseFactors): boolean {
+export function needsPatternPath(context: MemberPatternContext | null, factors: CaseFactors): context is MemberPatternContext {
+  if (context === null) return false;
   if (context.springs) return true;
   for (const c of context.partCases) if ((factors[c] as number) !== 0) return true;
   return false;
