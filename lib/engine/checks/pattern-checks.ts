@@ -97,9 +97,10 @@ function getLoadedSpans(context: MemberPatternContext, factors: CaseFactors, sel
 
 /**
  * The check's deflection under the worst arrangement of the combination's variable parts
- * (pattern-envelope.ts), written to `out`, and the figures that go with it: the spans loaded
- * and, on spring supports, the extreme measured from the chord between the span's supports
- * beside the total one. A check on springs judges the larger in magnitude of the two: a span/N
+ * (pattern-envelope.ts), in mm (+ down) with its position in mm from the left end, written to
+ * `out`; the figures that go with it (the spans loaded and, on spring supports, the extreme
+ * measured from the chord between the span's supports beside the total one) are kept for
+ * addPatternFigures, which must be called next. A check on springs judges the larger in magnitude of the two: a span/N
  * limit can be read as the member's own bending (chord) or as the movement a finish sees
  * (total), and neither is always the larger (a support can rise), so the larger is the
  * conservative reading.
