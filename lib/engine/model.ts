@@ -75,9 +75,13 @@ export interface ReinforcedConcreteSection {
   ruptureMpa: number;
 }
 
-/** Loads are positioned along the whole member, in mm from its left end. */
+/**
+ * Loads are positioned along the whole member, in mm from its left end. `fixed`: the load is
+ * always present in full with its case (a tank or plant at fixed positions), so it is never
+ * patterned span by span even when its case is variable (see LimitProfile.patternLoads).
+ */
 export type Load =
-  | { kind: "uniform"; loadCase: string; wNPerMm: number; startMm?: number; endMm?: number }
+  | { kind: "uniform"; loadCase: string; wNPerMm: number; startMm?: number; endMm?: number; fixed?: boolean }
   | {
       kind: "linear";
       loadCase: string;
@@ -85,9 +89,10 @@ export type Load =
       endMm: number;
       wStartNPerMm: number;
       wEndNPerMm: number;
+      fixed?: boolean;
     }
-  | { kind: "point"; loadCase: string; atMm: number; pN: number }
-  | { kind: "moment"; loadCase: string; atMm: number; mNmm: number };
+  | { kind: "point"; loadCase: string; atMm: number; pN: number; fixed?: boolean }
+  | { kind: "moment"; loadCase: string; atMm: number; mNmm: number; fixed?: boolean };
 
 /**
  * One serviceability combination. Deflection of the combination =
@@ -125,6 +130,14 @@ export interface LimitProfile {
   cantileverSpanMultiplier: number;
   /** Optional minimum first natural frequency; mass from the named load cases' factors. */
   frequency?: { minHz: number; massFactors: Record<string, number> };
+  /**
+   * Pattern (partial) loading of variable cases, span by span, in the worst arrangement for each
+   * check. On unless this is false (false: every load is present everywhere at once, for loads
+   * that cannot be partial). Variable cases: live, roof_live, snow, plus variableCases.
+   */
+  patternLoads?: boolean;
+  /** User load cases that are variable (patterned) besides live, roof_live and snow. */
+  variableCases?: string[];
 }
 
 export interface Member {
@@ -190,6 +203,25 @@ export interface CheckResult {
   /** allowed / actual; Infinity is never returned: a zero deflection gives null. */
   factorOfSafety: number | null;
   pass: boolean;
+  /**
+   * Pattern loading: per variable case of the combination, the spans (indices) whose variable
+   * loads were present in the worst arrangement for this check; a case with [] was left off
+   * everywhere. Absent when no pattern applied (one clear span, patterns off, no variable load).
+   */
+  loadedSpans?: Record<string, number[]>;
+  /**
+   * Only for members on spring supports (rigid supports do not move, so the two are equal): the
+   * span's extreme measured from the chord between its supports (for an overhang, from its
+   * support), the extreme of the total deflection (settlement included), both mm, + down, and
+   * the settlement of those supports (left to right, one for an overhang) under the arrangement
+   * judged. deflectionMm is the larger in magnitude of the two extremes (the conservative
+   * choice where a limit can be read either way).
+   */
+  chordDeflectionMm?: number;
+  totalDeflectionMm?: number;
+  supportSettlementMm?: number[];
+  /** Which extreme deflectionMm is: "total" (settlement included) or "chord". */
+  deflectionBasis?: "total" | "chord";
   /** The limit as l/N: the N the check used (the cantilever ratio for a cantilever when the combination has one). */
   limitRatio?: number;
   /** The achieved l/N: effectiveSpanMm / |deflectionMm|; null for zero deflection. */

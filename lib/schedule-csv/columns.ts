@@ -56,6 +56,7 @@ export const FIXED_COLUMNS: Record<string, ColumnSpec> = {
   supports: { description: "One support per span end, left to right: pinned, roller, fixed, free, spring; separated by spaces, | or ;." },
   spring_stiffness: { quantity: "springStiffness", description: "Stiffness of every spring support in the row." },
   tributary_width: { quantity: "length", description: "Width for <case>_area_load columns (joist spacing)." },
+  fixed_cases: { description: "Load cases whose loads in this row are fixed (always present in full, never patterned span by span), e.g. live; separated by spaces, | or ;." },
   self_weight: { description: "yes/no: add self-weight to the dead case." },
   shear_deformation: { description: "yes/no: include shear deformation." },
   notes: { description: "Free text." },

@@ -227,5 +227,21 @@ export function mapLoads(
       }
     }
   }
+  markFixedLoads(cells, loads, fail);
   member.loads = loads;
+}
+
+/** fixed_cases: the named cases' loads in the row are always present in full (never patterned). */
+function markFixedLoads(cells: Cells, loads: Record<string, unknown>[], fail: Fail): void {
+  const cell = cells.get("fixed_cases");
+  if (!cell) return;
+  for (const name of splitCellList(cell.text)) {
+    const loadCase = name.toLowerCase();
+    const matching = loads.filter((load) => load.case === loadCase);
+    if (matching.length === 0) {
+      fail(cell.column.header, "not_applicable", `fixed_cases names "${name}" but the row has no ${loadCase} load`);
+      continue;
+    }
+    for (const load of matching) load.fixed = true;
+  }
 }

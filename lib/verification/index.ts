@@ -6,6 +6,7 @@
 import { CASE_E_MPA, CASE_I_MM4, closedFormCases, runCases, type ClosedFormCase, type VerifiedCase } from "./closed-form-cases";
 import { concreteCases } from "./concrete-cases";
 import { frequencyCases } from "./frequency-cases";
+import { patternCases } from "./pattern-cases";
 import { presetCases } from "./preset-cases";
 import { sectionMaterialCases } from "./section-material-cases";
 
@@ -35,6 +36,12 @@ export const VERIFICATION_GROUPS: VerificationGroup[] = [
     title: "Limit profiles and the clauses they cite",
     description: "Each preset's combinations, cantilever rule, creep component and limit ratio against the deflection the cited clause asks for, written out from the handbook formulas.",
     cases: presetCases,
+  },
+  {
+    id: "pattern",
+    title: "Pattern (partial) live load",
+    description: "Variable loads placed span by span in the worst arrangement for each check, against the handbook cases for partly loaded continuous beams and overhangs.",
+    cases: patternCases,
   },
   {
     id: "frequency",

@@ -2,6 +2,7 @@ import type { CheckResult, Combination, FrequencyResult, GoverningCheck, LimitPr
 import { createCaseFactors, findSpanExtreme, getNodeRotation, type CaseFactors, type SpanExtreme } from "../solver/deflection-field";
 import { EngineInputError } from "../solver/engine-input-error";
 import type { MemberSolution } from "../solver/solve-member";
+import { addPatternFigures, createMemberPatternContext, findPatternExtreme, needsPatternPath } from "./pattern-checks";
 import { getSpanJudgements, type SpanJudgement } from "./span-groups";
 import { getCreepFactor } from "./validate-profile";
 
@@ -67,23 +68,31 @@ export interface DeflectionEvaluation {
 
 /**
  * Runs every combination of the profile on every span of a solved member: the checks (combination
- * order, then span order) and the rotation at every node. Assumes the profile was validated.
+ * order, then span order; variable parts in their worst arrangement, pattern-checks.ts) and the
+ * rotation at every node (every load as given). Assumes the profile was validated. `judgements`:
+ * getSpanJudgements(member), when the caller already has them.
  */
-export function evaluateDeflectionChecks(member: Member, profile: LimitProfile, solution: MemberSolution): DeflectionEvaluation {
-  const judgements = getSpanJudgements(member);
+export function evaluateDeflectionChecks(member: Member, profile: LimitProfile, solution: MemberSolution, judgements: readonly SpanJudgement[] = getSpanJudgements(member)): DeflectionEvaluation {
   const checks: CheckResult[] = [];
   const rotations: RotationResult[] = [];
   const combinationFactors: CaseFactors[] = [];
   const extreme: SpanExtreme = { deflectionMm: 0, atMm: 0 };
+  const patternContext = createMemberPatternContext(member, solution, judgements);
   for (const combination of profile.combinations) {
     const factors = createCombinationFactors(solution, combination, getCreepFactor(combination, member));
     combinationFactors.push(factors);
+    // fast path: no variable part to arrange and no support that moves
+    const general = needsPatternPath(patternContext, factors) ? patternContext : null;
     for (let span = 0; span < solution.spanCount; span++) {
-      findSpanExtreme(solution, factors, span, extreme);
+      const judgement = judgements[span]!;
+      if (general !== null) findPatternExtreme(general, factors, span, extreme);
+      else findSpanExtreme(solution, factors, span, extreme);
       if (!Number.isFinite(extreme.deflectionMm)) {
         throw new EngineInputError([{ path: "loads", message: `combination "${combination.id}" gives a deflection beyond the range of double precision: check the load and stiffness magnitudes and units` }]);
       }
-      checks.push(createCheckResult(combination, span, judgements[span]!, profile.cantileverSpanMultiplier, extreme));
+      const check = createCheckResult(combination, span, judgement, profile.cantileverSpanMultiplier, extreme);
+      if (general !== null) addPatternFigures(general, check);
+      checks.push(check);
     }
     for (let node = 0; node <= solution.spanCount; node++) {
       rotations.push({ combinationId: combination.id, nodeIndex: node, atMm: solution.nodeXMm[node] as number, rotationRad: getNodeRotation(solution, factors, node) });

@@ -8,6 +8,7 @@ import { collectMemberIssues } from "../solver/validate-member";
 import type { CaseFactors } from "../solver/deflection-field";
 import { collectReinforcementIssues } from "../concrete/validate-reinforcement";
 import { evaluateCrackedMember, hasReinforcedSpan, type CrackedMemberExtras } from "../concrete/evaluate-cracked-member";
+import { getPatternSplit, getSpanJudgements } from "./span-groups";
 
 /** Everything checkMember derives before the suggestion and the sampled shape. */
 export interface MemberEvaluation {
@@ -33,14 +34,18 @@ export function assertMemberAndProfileValid(member: Member, profile: LimitProfil
 
 /**
  * Solves and checks a member already validated with assertMemberAndProfileValid: every
- * combination on every span, rotations, the frequency check. Pass = every check passes and the
- * frequency (when the profile asks for one) reaches its minimum.
+ * combination on every span (variable cases in their worst pattern, span-groups.ts), rotations,
+ * the frequency check. Pass = every check passes and the frequency (when the profile asks for
+ * one) reaches its minimum.
  */
 export function evaluateValidatedMember(member: Member, profile: LimitProfile): MemberEvaluation {
   // reinforced concrete deflects with load-dependent I_e (ACI 318-19 24.2.3): its own evaluation
   if (hasReinforcedSpan(member)) return evaluateCrackedMember(member, profile);
-  const solution = solveValidatedMember(member);
-  const { checks, rotations, combinationFactors } = evaluateDeflectionChecks(member, profile, solution);
+  const judgements = getSpanJudgements(member);
+  // one span with no overhang is one pattern group: no split, the single-span fast path
+  const split = member.spans.length === 1 && member.supports[0]!.kind !== "free" && member.supports[1]!.kind !== "free" ? undefined : getPatternSplit(member, profile, judgements);
+  const solution = solveValidatedMember(member, split);
+  const { checks, rotations, combinationFactors } = evaluateDeflectionChecks(member, profile, solution, judgements);
   const governing = getGoverningCheck(checks);
   const frequency = computeFrequency(member, profile);
   let pass = frequency === null || frequency.pass;

@@ -65,6 +65,10 @@ export function collectProfileIssues(profile: LimitProfile, member: Member): Inp
       issues.push({ path: `${path}.creep`, message: "creep factor must be \"material\", \"ibc_creep_component\" or a finite number >= 0" });
     }
   }
+  if (profile.patternLoads !== undefined && typeof profile.patternLoads !== "boolean") issues.push({ path: "patternLoads", message: "patternLoads must be true or false" });
+  if (profile.variableCases !== undefined && !(Array.isArray(profile.variableCases) && profile.variableCases.every((name) => typeof name === "string"))) {
+    issues.push({ path: "variableCases", message: "variableCases must be a list of load case names" });
+  }
   if (profile.frequency !== undefined) {
     if (!isPositiveFinite(profile.frequency.minHz)) issues.push({ path: "frequency.minHz", message: "the minimum frequency must be a positive finite number (Hz)" });
     collectFactorIssues(profile.frequency.massFactors, "frequency", "massFactors", issues);

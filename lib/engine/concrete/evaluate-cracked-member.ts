@@ -3,6 +3,7 @@ import { getGoverningCheck, getMemberGoverningCheck } from "../checks/evaluate-c
 import type { MemberEvaluation } from "../checks/evaluate-member";
 import { computeFrequency } from "../frequency";
 import type { DeflectionTerm } from "./combined-deflection";
+import { amplifyCrackedChecksForPatterns, CRACKED_PATTERN_NOTE } from "./cracked-patterns";
 import { describeCrackedEvaluation, evaluateCrackedDeflectionChecks, PERMANENT_CASE_FACTORS } from "./cracked-evaluation";
 import { createMemberWithInertia, hasReinforcedSpan, solveCrackedState } from "./cracked-state";
 
@@ -40,21 +41,23 @@ function getFrequencyMember(member: Member, profile: LimitProfile): Member {
  */
 export function evaluateCrackedMember(member: Member, profile: LimitProfile): CrackedMemberEvaluation {
   const evaluation = evaluateCrackedDeflectionChecks(member, profile);
-  const governing = getGoverningCheck(evaluation.checks);
+  const patterned = amplifyCrackedChecksForPatterns(member, profile, evaluation.checks);
+  const checks = patterned ?? evaluation.checks;
+  const governing = getGoverningCheck(checks);
   const frequency = computeFrequency(getFrequencyMember(member, profile), profile);
   let pass = frequency === null || frequency.pass;
-  for (const check of evaluation.checks) if (!check.pass) pass = false;
+  for (const check of checks) if (!check.pass) pass = false;
   const first = evaluation.combinationTerms[0]?.[0];
   const solution = first === undefined ? solveCrackedState(member, PERMANENT_CASE_FACTORS).solution : first.solution;
   return {
     solution,
-    checks: evaluation.checks,
+    checks,
     governing,
     governingCheck: getMemberGoverningCheck(governing, frequency),
     rotations: evaluation.rotations,
     frequency,
     pass,
     combinationFactors: evaluation.combinationTerms.map((terms) => terms[0]!.factors),
-    cracked: { combinationTerms: evaluation.combinationTerms, notes: describeCrackedEvaluation(member, evaluation) },
+    cracked: { combinationTerms: evaluation.combinationTerms, notes: patterned === null ? describeCrackedEvaluation(member, evaluation) : [...describeCrackedEvaluation(member, evaluation), CRACKED_PATTERN_NOTE] },
   };
 }

@@ -6,6 +6,7 @@ import {
   createFieldSpec,
   describeType,
   isJsonObject,
+  readBoolean,
   readEnum,
   readObject,
   readQuantity,
@@ -20,10 +21,10 @@ export const MAX_LOADS_PER_MEMBER = 1000;
 const LOAD_KINDS: readonly Load["kind"][] = ["uniform", "linear", "point", "moment"];
 
 const LOAD_SPECS: Record<Load["kind"], FieldSpec> = {
-  uniform: createFieldSpec(["type", "case", "w", "pressure", "tributaryWidth", "start", "end"], ["case"]),
-  linear: createFieldSpec(["type", "case", "start", "end", "wStart", "wEnd"], ["case", "start", "end", "wStart", "wEnd"]),
-  point: createFieldSpec(["type", "case", "at", "P"], ["case", "at", "P"]),
-  moment: createFieldSpec(["type", "case", "at", "M"], ["case", "at", "M"]),
+  uniform: createFieldSpec(["type", "case", "w", "pressure", "tributaryWidth", "start", "end", "fixed"], ["case"]),
+  linear: createFieldSpec(["type", "case", "start", "end", "wStart", "wEnd", "fixed"], ["case", "start", "end", "wStart", "wEnd"]),
+  point: createFieldSpec(["type", "case", "at", "P", "fixed"], ["case", "at", "P"]),
+  moment: createFieldSpec(["type", "case", "at", "M", "fixed"], ["case", "at", "M"]),
 };
 
 type UniformLoad = Extract<Load, { kind: "uniform" }>;
@@ -83,9 +84,19 @@ function readLoadCase(ctx: ReadContext, value: unknown, loadPath: FieldPath, use
 
 /**
  * Reads one load. Positions are in length units from the member's left end, left overhang
- * included; intensities are positive downward.
+ * included; intensities are positive downward. `fixed: true` keeps the load whole when its case
+ * is patterned (a tank or plant at fixed positions).
  */
 export function readLoad(ctx: ReadContext, value: unknown, path: FieldPath, totalMm: number, usedCases: Set<string> | null, profileId: string): Load | null {
+  const load = readLoadBody(ctx, value, path, totalMm, usedCases, profileId);
+  if (load === null || !isJsonObject(value) || value.fixed === undefined) return load;
+  const fixed = readBoolean(ctx, value.fixed, childPath(path, "fixed"));
+  if (fixed === null) return null;
+  if (fixed) load.fixed = true;
+  return load;
+}
+
+function readLoadBody(ctx: ReadContext, value: unknown, path: FieldPath, totalMm: number, usedCases: Set<string> | null, profileId: string): Load | null {
   if (!isJsonObject(value)) {
     ctx.issues.add(path, `must be an object, got ${describeType(value)}`);
     return null;

@@ -3,6 +3,7 @@ import { getPreset, listPresetIds, presetTakesSustainedLiveFraction } from "../p
 import {
   isJsonObject,
   childPath,
+  readBoolean,
   readNumber,
   readObject,
   readQuantity,
@@ -58,10 +59,11 @@ const FREQUENCY_FIELDS = ["min", "massFactors"];
 const FREQUENCY_SPEC = createFieldSpec(FREQUENCY_FIELDS);
 const FREQUENCY_REQUIRED_SPEC = createFieldSpec(FREQUENCY_FIELDS, FREQUENCY_FIELDS);
 const CUSTOM_PROFILE_SPEC = createFieldSpec(
-  ["id", "label", "source", "combinations", "cantileverSpanMultiplier", "frequency"],
+  ["id", "label", "source", "combinations", "cantileverSpanMultiplier", "frequency", "patternLoads", "variableCases"],
   ["id", "label", "source", "combinations", "cantileverSpanMultiplier"],
 );
-const OVERRIDES_SPEC = createFieldSpec(["combinations", "cantileverSpanMultiplier", "frequency"]);
+const OVERRIDES_SPEC = createFieldSpec(["combinations", "cantileverSpanMultiplier", "frequency", "patternLoads", "variableCases"]);
+const MAX_VARIABLE_CASES = 20;
 const LIMITS_SPEC = createFieldSpec(["preset", "overrides", "custom", "sustainedLiveFraction"]);
 
 /** Reads the editable parts of a combination onto `target` (used by custom profiles and overrides). */
@@ -101,6 +103,37 @@ function readCombinationFields(ctx: ReadContext, source: JsonObject, path: Field
     const capMm = readQuantity(ctx, source.cap, childPath(path, "cap"), "deflection", "positive");
     if (capMm === null) ok = false;
     else target.capMm = capMm;
+  }
+  return ok;
+}
+
+/**
+ * Reads the pattern-loading switches onto `target`: patternLoads (boolean; false loads every
+ * span at once) and variableCases (user case names patterned besides live, roof_live, snow).
+ */
+function readPatternFields(ctx: ReadContext, block: JsonObject, path: FieldPath, target: Pick<LimitProfile, "patternLoads" | "variableCases">): boolean {
+  let ok = true;
+  if (block.patternLoads !== undefined) {
+    const on = readBoolean(ctx, block.patternLoads, childPath(path, "patternLoads"));
+    if (on === null) ok = false;
+    else target.patternLoads = on;
+  }
+  if (block.variableCases !== undefined) {
+    const casesPath = childPath(path, "variableCases");
+    if (!Array.isArray(block.variableCases) || block.variableCases.length > MAX_VARIABLE_CASES) {
+      ctx.issues.add(casesPath, `must be an array of up to ${MAX_VARIABLE_CASES} load case names`);
+      return false;
+    }
+    const names: string[] = [];
+    block.variableCases.forEach((entry, index) => {
+      const name = readString(ctx, entry, childPath(casesPath, index), 40);
+      if (name === null) ok = false;
+      else if (!CASE_NAME_PATTERN.test(name)) {
+        ctx.issues.add(childPath(casesPath, index), "load case names are lowercase letters, digits and _ (starting with a letter), up to 40 characters");
+        ok = false;
+      } else names.push(name);
+    });
+    if (ok) target.variableCases = names;
   }
   return ok;
 }
@@ -151,8 +184,10 @@ function readCustomProfile(ctx: ReadContext, value: unknown, path: FieldPath): L
     });
   }
   const frequency = block.frequency === undefined ? undefined : readFrequency(ctx, block.frequency, childPath(path, "frequency"), undefined);
+  const pattern: Pick<LimitProfile, "patternLoads" | "variableCases"> = {};
+  if (!readPatternFields(ctx, block, path, pattern)) ok = false;
   if (!ok || id === null || label === null || source === null || multiplier === null || frequency === null) return null;
-  return { id, label, source, combinations, cantileverSpanMultiplier: multiplier, ...(frequency ? { frequency } : {}) };
+  return { id, label, source, combinations, cantileverSpanMultiplier: multiplier, ...(frequency ? { frequency } : {}), ...pattern };
 }
 
 function applyOverrides(ctx: ReadContext, preset: LimitProfile, value: unknown, path: FieldPath): LimitProfile | null {
@@ -189,6 +224,7 @@ function applyOverrides(ctx: ReadContext, preset: LimitProfile, value: unknown, 
     if (frequency === null) ok = false;
     else profile.frequency = frequency;
   }
+  if (!readPatternFields(ctx, block, path, profile)) ok = false;
   return ok ? profile : null;
 }
 

@@ -1,6 +1,6 @@
 import { getPower, type ElementTerms } from "./element-terms";
 import { evaluatePolynomial, findPolynomialAbsMax, type AbsMaxResult } from "./poly-extrema";
-import { findSpanAt, getCaseIndexOf, type MemberSolution } from "./solve-member";
+import { findSpanAt, type MemberSolution } from "./solve-member";
 
 /**
  * Factor per load case of a linear combination, indexed like solution.caseNames. A plain array:
@@ -15,12 +15,16 @@ function createZeroFactors(count: number): CaseFactors {
   return factors;
 }
 
-/** Adds scale * factorsByCase[name] to each named case the member loads (others add nothing). */
+/**
+ * Adds scale * factorsByCase[name] to each named case the member loads (others add nothing); a
+ * patterned case gets the factor on each of its per-span parts.
+ */
 function addScaledCaseFactors(solution: MemberSolution, factors: CaseFactors, factorsByCase: Record<string, number>, scale: number): void {
+  const names = solution.caseNames;
   for (const name in factorsByCase) {
-    const index = getCaseIndexOf(solution, name);
     // scale 1 leaves the factor's bits unchanged (1 * x === x in IEEE 754)
-    if (index >= 0) factors[index] = (factors[index] as number) + scale * (factorsByCase[name] as number);
+    const amount = scale * (factorsByCase[name] as number);
+    for (let index = names.indexOf(name); index >= 0; index = names.indexOf(name, index + 1)) factors[index] = (factors[index] as number) + amount;
   }
 }
 
@@ -43,7 +47,7 @@ export function createCaseFactors(
 }
 
 /** Combined left-node state of one element: v0 (mm), psi0 (rad), M0 (N*mm), V0 (N). */
-interface ElementState {
+export interface ElementState {
   v0: number;
   psi0: number;
   m0: number;
@@ -52,7 +56,8 @@ interface ElementState {
 
 const stateScratch: ElementState = { v0: 0, psi0: 0, m0: 0, shear0: 0 };
 
-function getElementState(solution: MemberSolution, factors: CaseFactors, span: number, out: ElementState): ElementState {
+/** The element's left-node state under the combination (superposed from the solved cases). */
+export function getElementState(solution: MemberSolution, factors: CaseFactors, span: number, out: ElementState): ElementState {
   let v0 = 0;
   let psi0 = 0;
   let m0 = 0;
@@ -118,6 +123,16 @@ export function rotationAt(solution: MemberSolution, factors: CaseFactors, xMm: 
   return evaluateLocal(solution, factors, span, xMm - (solution.nodeXMm[span] as number), true);
 }
 
+/** Deflection of node j (a DOF of the solution), mm, positive downward. */
+export function getNodeDeflection(solution: MemberSolution, factors: CaseFactors, node: number): number {
+  let deflection = 0;
+  for (let c = 0; c < factors.length; c++) {
+    const f = factors[c] as number;
+    if (f !== 0) deflection += f * (solution.caseStates[c * solution.caseStride + 2 * node] as number);
+  }
+  return deflection;
+}
+
 /** Rotation of node j (a DOF of the solution), rad, positive clockwise. */
 export function getNodeRotation(solution: MemberSolution, factors: CaseFactors, node: number): number {
   let rotation = 0;
@@ -148,9 +163,10 @@ function addShiftedPower(coef: Float64Array, scale: number, delta: number, n: nu
 
 /**
  * Writes to `coef` the ascending coefficients (degree 5) of v(s0 + t), the deflection in the
- * load-continuous piece of `span` that starts at local s0 (a breakpoint or 0).
+ * load-continuous piece of `span` that starts at local s0 (a breakpoint or 0); `state` is the
+ * element's getElementState under the same factors.
  */
-function buildPiecePolynomial(solution: MemberSolution, factors: CaseFactors, span: number, state: ElementState, s0: number, coef: Float64Array): void {
+export function buildPiecePolynomial(solution: MemberSolution, factors: CaseFactors, span: number, state: ElementState, s0: number, coef: Float64Array): void {
   const ei = solution.eiNmm2[span] as number;
   const inverseShear = solution.inverseShearStiffness[span] as number;
   const terms = solution.terms[span] as ElementTerms;

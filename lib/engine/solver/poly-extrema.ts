@@ -137,3 +137,46 @@ export function findPolynomialAbsMax(coef: Float64Array, degreeIn: number, len: 
   out.value = bestValue;
   return out;
 }
+
+/**
+ * Writes the real roots of p strictly inside (0, len), ascending, to out[outOffset...] and returns
+ * how many (at most the degree, <= 5). Same isolation as findPolynomialAbsMax: exact up to
+ * round-off, no sampling. A polynomial that is identically zero has no roots here.
+ */
+export function findPolynomialRoots(coef: Float64Array, degree: number, len: number, out: Float64Array, outOffset: number): number {
+  const count = findRootsAtLevel(coef, degree, 0, len, 0);
+  const roots = rootBuffers[0] as Float64Array;
+  for (let i = 0; i < count; i++) out[outOffset + i] = roots[i] as number;
+  return count;
+}
+
+/**
+ * Sets `out` to the point of [0, len] where sign * p is largest (first one on ties; sign is +1
+ * or -1) and p there: the ends and the real roots of p' are the only candidates.
+ */
+export function findPolynomialSignedMax(coef: Float64Array, degreeIn: number, len: number, sign: number, out: AbsMaxResult): AbsMaxResult {
+  let degree = degreeIn;
+  while (degree > 0 && coef[degree] === 0) degree--;
+  let bestT = 0;
+  let bestValue = coef[0] as number;
+  const derivative = derivativeBuffers[0] as Float64Array;
+  for (let k = 1; k <= degree; k++) derivative[k - 1] = k * (coef[k] as number);
+  const count = degree >= 1 ? findRootsAtLevel(derivative, degree - 1, 0, len, 0) : 0;
+  const roots = rootBuffers[0] as Float64Array;
+  for (let i = 0; i < count; i++) {
+    const t = roots[i] as number;
+    const value = evaluatePolynomial(coef, degree, t);
+    if (sign * value > sign * bestValue) {
+      bestT = t;
+      bestValue = value;
+    }
+  }
+  const endValue = evaluatePolynomial(coef, degree, len);
+  if (sign * endValue > sign * bestValue) {
+    bestT = len;
+    bestValue = endValue;
+  }
+  out.t = bestT;
+  out.value = bestValue;
+  return out;
+}

@@ -29,8 +29,16 @@ export interface MemberSolution {
   eiNmm2: number[];
   /** 1/(k G A) per span, 1/N; 0 without shear deformation. */
   inverseShearStiffness: number[];
-  /** Load case names; SELF_WEIGHT_CASE_KEY names the internal self-weight case. */
+  /**
+   * Load case name of each solved case; SELF_WEIGHT_CASE_KEY names the internal self-weight case.
+   * A patterned case appears once per pattern group that carries its loads (see casePatternGroup).
+   */
   caseNames: string[];
+  /**
+   * Per solved case: the pattern group whose loads it holds (a part of a variable case, split at
+   * the supports), or -1 for a case solved whole.
+   */
+  casePatternGroup: number[];
   /** Index of the internal self-weight case, -1 when none. */
   selfWeightCaseIndex: number;
   /** Case index of the member's named self-weight case (gets the same factor), -1 when none. */
@@ -47,6 +55,18 @@ export interface MemberSolution {
   breakpointsMm: number[][];
 }
 
+/**
+ * Which loads the solver splits into per-span parts for pattern loading: the loads of the named
+ * cases that are not marked fixed, each part holding what lies in one pattern group (a clear span
+ * between supports, or an overhang). A load that straddles supports is split at them; a
+ * concentrated load at a node belongs to the span on its right (the last span at the right end).
+ */
+export interface PatternSplit {
+  cases: ReadonlySet<string>;
+  /** Pattern group of each span (element), non-decreasing, 0-based. */
+  groupOfSpan: readonly number[];
+}
+
 /** Index of a load case in the solution, -1 when the member has no load in it. */
 export function getCaseIndexOf(solution: MemberSolution, name: string): number {
   return solution.caseNames.indexOf(name);
@@ -56,10 +76,10 @@ function addAt(values: Float64Array, index: number, amount: number): void {
   values[index] = (values[index] as number) + amount;
 }
 
-function getCaseIndex(names: string[], name: string): number {
-  const existing = names.indexOf(name);
-  if (existing >= 0) return existing;
+function getCaseIndex(names: string[], groups: number[], name: string, group: number): number {
+  for (let i = 0; i < names.length; i++) if (names[i] === name && groups[i] === group) return i;
   names.push(name);
+  groups.push(group);
   return names.length - 1;
 }
 
@@ -104,7 +124,12 @@ function getNodalLoads(context: LoadContext, caseIndex: number): Float64Array {
   return context.nodalLoads[caseIndex] as Float64Array;
 }
 
-function addDistributedLoad(context: LoadContext, startMm: number, endMm: number, wStart: number, wEnd: number, caseIndex: number): void {
+/** Case index of a load's part in element e: its own case, or its pattern part for that span. */
+function getPartCase(caseIndex: number, partCases: readonly number[] | null, e: number): number {
+  return partCases === null ? caseIndex : (partCases[e] as number);
+}
+
+function addDistributedLoad(context: LoadContext, startMm: number, endMm: number, wStart: number, wEnd: number, caseIndex: number, partCases: readonly number[] | null): void {
   const slope = (wEnd - wStart) / (endMm - startMm);
   for (let e = 0; e < context.spanCount; e++) {
     const x0 = context.nodeXMm[e] as number;
@@ -114,38 +139,68 @@ function addDistributedLoad(context: LoadContext, startMm: number, endMm: number
     if (!(hi - lo > context.tolMm)) continue;
     const localStart = lo - x0 <= context.tolMm ? 0 : lo - x0;
     const localEnd = x0 + length - hi <= context.tolMm ? length : hi - x0;
-    addDistributedTerms(context.terms[e] as ElementTerms, length, localStart, localEnd, wStart + slope * (lo - startMm), wStart + slope * (hi - startMm), caseIndex);
+    addDistributedTerms(context.terms[e] as ElementTerms, length, localStart, localEnd, wStart + slope * (lo - startMm), wStart + slope * (hi - startMm), getPartCase(caseIndex, partCases, e));
   }
 }
 
-function addConcentratedLoad(context: LoadContext, xMm: number, value: number, isCouple: boolean, caseIndex: number): void {
+function addConcentratedLoad(context: LoadContext, xMm: number, value: number, isCouple: boolean, caseIndex: number, partCases: readonly number[] | null): void {
   const node = findNode(context.nodeXMm, xMm, context.tolMm);
   if (node >= 0) {
-    const nodal = getNodalLoads(context, caseIndex);
+    const owner = getPartCase(caseIndex, partCases, findSpanAt(context.nodeXMm, context.nodeXMm[node] as number));
+    const nodal = getNodalLoads(context, owner);
     addAt(nodal, 2 * node + (isCouple ? 1 : 0), value);
     return;
   }
   const e = findSpanAt(context.nodeXMm, xMm);
   const local = xMm - (context.nodeXMm[e] as number);
-  if (isCouple) addCoupleTerm(context.terms[e] as ElementTerms, local, value, caseIndex);
-  else addPointTerm(context.terms[e] as ElementTerms, local, value, caseIndex);
+  const owner = getPartCase(caseIndex, partCases, e);
+  if (isCouple) addCoupleTerm(context.terms[e] as ElementTerms, local, value, owner);
+  else addPointTerm(context.terms[e] as ElementTerms, local, value, owner);
 }
 
-function addLoad(context: LoadContext, load: Load, totalMm: number, caseIndex: number): void {
+function addLoad(context: LoadContext, load: Load, totalMm: number, caseIndex: number, partCases: readonly number[] | null): void {
   switch (load.kind) {
     case "uniform":
-      addDistributedLoad(context, load.startMm ?? 0, load.endMm ?? totalMm, load.wNPerMm, load.wNPerMm, caseIndex);
+      addDistributedLoad(context, load.startMm ?? 0, load.endMm ?? totalMm, load.wNPerMm, load.wNPerMm, caseIndex, partCases);
       return;
     case "linear":
-      addDistributedLoad(context, load.startMm, load.endMm, load.wStartNPerMm, load.wEndNPerMm, caseIndex);
+      addDistributedLoad(context, load.startMm, load.endMm, load.wStartNPerMm, load.wEndNPerMm, caseIndex, partCases);
       return;
     case "point":
-      addConcentratedLoad(context, load.atMm, load.pN, false, caseIndex);
+      addConcentratedLoad(context, load.atMm, load.pN, false, caseIndex, partCases);
       return;
     case "moment":
-      addConcentratedLoad(context, load.atMm, load.mNmm, true, caseIndex);
+      addConcentratedLoad(context, load.atMm, load.mNmm, true, caseIndex, partCases);
       return;
   }
+}
+
+/** The element that holds a concentrated load at x: the span on the right of a node it sits on. */
+function getConcentratedOwner(context: LoadContext, xMm: number): number {
+  const node = findNode(context.nodeXMm, xMm, context.tolMm);
+  return findSpanAt(context.nodeXMm, node >= 0 ? (context.nodeXMm[node] as number) : xMm);
+}
+
+/** Whether the load puts anything on element e (the same overlap rule as addDistributedLoad). */
+function isLoadOnElement(context: LoadContext, load: Load, totalMm: number, e: number): boolean {
+  if (load.kind === "point" || load.kind === "moment") return getConcentratedOwner(context, load.atMm) === e;
+  const startMm = load.startMm ?? 0;
+  const endMm = load.endMm ?? totalMm;
+  const x0 = context.nodeXMm[e] as number;
+  const x1 = x0 + (context.lengthMm[e] as number);
+  return (endMm < x1 ? endMm : x1) - (startMm > x0 ? startMm : x0) > context.tolMm;
+}
+
+/**
+ * Case index of each span's part of a patterned load (-1 where the load puts nothing): one solved
+ * case per (case, group), created only for groups the load reaches.
+ */
+function getPartCases(context: LoadContext, names: string[], groups: number[], load: Load, totalMm: number, groupOfSpan: readonly number[]): number[] {
+  const parts: number[] = [];
+  for (let e = 0; e < context.spanCount; e++) {
+    parts.push(isLoadOnElement(context, load, totalMm, e) ? getCaseIndex(names, groups, load.loadCase, groupOfSpan[e] as number) : -1);
+  }
+  return parts;
 }
 
 const NO_BREAKPOINTS: number[] = [];
@@ -185,12 +240,13 @@ const integralsScratch: EndIntegrals = { firstIntegral: 0, secondIntegral: 0, mo
  * Solves a continuous member by the direct stiffness method: one element per span, two DOFs per
  * node (v down, theta clockwise), exact fixed-end forces from the load terms, Timoshenko element
  * stiffness (phi = 12EI/(kGA L^2)) when member.includeShearDeformation. Each load case is solved
- * once with one banded LDL^T factorisation. Throws EngineInputError for invalid input or a
- * mechanism; never returns NaN.
+ * once with one banded LDL^T factorisation; with `pattern`, each variable case is solved once per
+ * pattern group instead (their sum is the whole case: superposition). Throws EngineInputError for
+ * invalid input or a mechanism; never returns NaN.
  */
-export function solveMember(member: Member): MemberSolution {
+export function solveMember(member: Member, pattern?: PatternSplit): MemberSolution {
   assertMemberValid(member);
-  return solveValidatedMember(member);
+  return solveValidatedMember(member, pattern);
 }
 
 // read once: a module binding read inside loops costs a call under some loaders
@@ -205,7 +261,7 @@ let shearScratch = new Float64Array(8);
 let stiffnessByElementScratch = new Float64Array(32);
 
 /** solveMember without the input validation, for callers that already validated the member. */
-export function solveValidatedMember(member: Member): MemberSolution {
+export function solveValidatedMember(member: Member, pattern?: PatternSplit): MemberSolution {
   const spanCount = member.spans.length;
   const dofCount = 2 * (spanCount + 1);
   const nodeXMm: number[] = [0];
@@ -222,15 +278,22 @@ export function solveValidatedMember(member: Member): MemberSolution {
   }
   const totalMm = nodeXMm[spanCount] as number;
   const caseNames: string[] = [];
+  const casePatternGroup: number[] = [];
   const terms: ElementTerms[] = [];
   for (let e = 0; e < spanCount; e++) terms.push(createElementTerms());
   const context: LoadContext = { nodeXMm, lengthMm, spanCount, tolMm: totalMm * POSITION_TOLERANCE_RATIO, terms, nodalLoads: [], dofCount };
-  for (const load of member.loads) addLoad(context, load, totalMm, getCaseIndex(caseNames, load.loadCase));
+  for (const load of member.loads) {
+    if (pattern !== undefined && load.fixed !== true && pattern.cases.has(load.loadCase)) {
+      addLoad(context, load, totalMm, -1, getPartCases(context, caseNames, casePatternGroup, load, totalMm, pattern.groupOfSpan));
+    } else {
+      addLoad(context, load, totalMm, getCaseIndex(caseNames, casePatternGroup, load.loadCase, -1), null);
+    }
+  }
   let selfWeightCaseIndex = -1;
   let selfWeightNamedCaseIndex = -1;
   if (member.selfWeightCase !== undefined) {
-    selfWeightNamedCaseIndex = getCaseIndex(caseNames, member.selfWeightCase);
-    selfWeightCaseIndex = getCaseIndex(caseNames, SELF_WEIGHT_CASE_KEY);
+    selfWeightNamedCaseIndex = getCaseIndex(caseNames, casePatternGroup, member.selfWeightCase, -1);
+    selfWeightCaseIndex = getCaseIndex(caseNames, casePatternGroup, SELF_WEIGHT_CASE_KEY, -1);
     for (let e = 0; e < spanCount; e++) {
       const wNPerMm = getSelfWeightNPerMm(member.spans[e]!);
       addDistributedTerms(terms[e] as ElementTerms, lengthMm[e] as number, 0, lengthMm[e] as number, wNPerMm, wNPerMm, selfWeightCaseIndex);
@@ -351,6 +414,7 @@ export function solveValidatedMember(member: Member): MemberSolution {
     eiNmm2,
     inverseShearStiffness,
     caseNames,
+    casePatternGroup,
     selfWeightCaseIndex,
     selfWeightNamedCaseIndex,
     caseStates,

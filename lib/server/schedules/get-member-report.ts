@@ -1,6 +1,6 @@
 import { checkMember } from "@/lib/engine/check-member";
 import { parseSchedule } from "@/lib/engine/intake";
-import type { FrequencyResult, RotationResult, ShapeSample } from "@/lib/engine/model";
+import type { CheckResult, FrequencyResult, RotationResult, ShapeSample } from "@/lib/engine/model";
 import { getMemberResult, readStoredNotes } from "@/db/queries/schedules";
 
 export interface MemberCheckRow {
@@ -17,6 +17,24 @@ export interface MemberCheckRow {
   /** Limit l/N and achieved l/N (null for zero deflection, and on rows stored before they were). */
   limitRatio: number | null;
   achievedRatio: number | null;
+  /** Pattern loading and spring-support figures of the check (model.ts CheckResult), when it has them. */
+  loadedSpans?: Record<string, number[]>;
+  chordDeflectionMm?: number;
+  totalDeflectionMm?: number;
+  supportSettlementMm?: number[];
+  deflectionBasis?: "total" | "chord";
+}
+
+type CheckFigures = Pick<CheckResult, "loadedSpans" | "chordDeflectionMm" | "totalDeflectionMm" | "supportSettlementMm" | "deflectionBasis">;
+
+function pickFigures(check: CheckResult): CheckFigures {
+  const figures: CheckFigures = {};
+  if (check.loadedSpans !== undefined) figures.loadedSpans = check.loadedSpans;
+  if (check.chordDeflectionMm !== undefined) figures.chordDeflectionMm = check.chordDeflectionMm;
+  if (check.totalDeflectionMm !== undefined) figures.totalDeflectionMm = check.totalDeflectionMm;
+  if (check.supportSettlementMm !== undefined) figures.supportSettlementMm = check.supportSettlementMm;
+  if (check.deflectionBasis !== undefined) figures.deflectionBasis = check.deflectionBasis;
+  return figures;
 }
 
 /** One member's whole result, as both the member page and the member API route show it. */
@@ -43,19 +61,28 @@ export interface MemberReport {
 
 type StoredDetail = { frequency: FrequencyResult | null; suggestion: MemberReport["suggestion"]; error: string | null; notes?: unknown };
 
+interface MemberDiagrams extends Pick<MemberReport, "shape" | "rotations"> {
+  /** Per check (combination id and span index), its pattern and spring-support figures. */
+  figures: Map<string, CheckFigures>;
+}
+
+const figuresKeyOf = (combinationId: string, spanIndex: number): string => `${combinationId}\u0000${spanIndex}`;
+
 /**
- * Re-runs the engine for one stored member for what only its own page needs: the sampled shape
- * and the support rotations. Cheap for one member; storing them for every member of a 100,000-
- * member schedule is not.
+ * Re-runs the engine for one stored member for what only its own page needs: the sampled shape,
+ * the support rotations and each check's figures (spans loaded, chord and settlement). Cheap for
+ * one member; storing them for every member of a 100,000-member schedule is not.
  */
-function computeMemberDiagrams(header: Record<string, unknown>, input: unknown): Pick<MemberReport, "shape" | "rotations"> {
+function computeMemberDiagrams(header: Record<string, unknown>, input: unknown): MemberDiagrams {
+  const none: MemberDiagrams = { shape: [], rotations: [], figures: new Map() };
   const parsed = parseSchedule({ ...header, members: [input] });
-  if (!parsed.ok) return { shape: [], rotations: [] };
+  if (!parsed.ok) return none;
   try {
     const result = checkMember(parsed.schedule.members[0]!, parsed.schedule.profile, undefined, { shape: true });
-    return { shape: result.shape ?? [], rotations: result.rotations };
+    const figures = new Map(result.checks.map((check) => [figuresKeyOf(check.combinationId, check.spanIndex), pickFigures(check)] as const));
+    return { shape: result.shape ?? [], rotations: result.rotations, figures };
   } catch {
-    return { shape: [], rotations: [] };
+    return none;
   }
 }
 
@@ -68,6 +95,7 @@ export async function getMemberReport(scheduleId: string, mark: string): Promise
   const checked = member.checked === true;
   const detail = (member.detail ?? null) as StoredDetail | null;
   const header = member.header as Record<string, unknown>;
+  const diagrams = checked && !detail?.error ? computeMemberDiagrams(header, member.input) : { shape: [], rotations: [], figures: new Map<string, CheckFigures>() };
   return {
     mark: member.mark as string,
     category: member.category as string,
@@ -91,10 +119,12 @@ export async function getMemberReport(scheduleId: string, mark: string): Promise
       pass: c.pass as boolean,
       limitRatio: (c.limit_ratio as number | null) ?? null,
       achievedRatio: (c.achieved_ratio as number | null) ?? null,
+      ...diagrams.figures.get(figuresKeyOf(c.combination_id as string, c.span_index as number)),
     })),
     frequency: detail?.frequency ?? null,
     suggestion: detail?.suggestion ?? null,
     notes: readStoredNotes(detail?.notes),
-    ...(checked && !detail?.error ? computeMemberDiagrams(header, member.input) : { shape: [], rotations: [] }),
+    shape: diagrams.shape,
+    rotations: diagrams.rotations,
   };
 }

@@ -2,18 +2,27 @@ import type { MemberCheckRow } from "@/lib/server/schedules/get-member-report";
 import { formatMm, formatNumber, formatRatio, formatSignedMm, formatSpanRatio } from "./format";
 import { OutcomeLabel } from "./outcome-label";
 
+/** Spans loaded per variable case, 1-based like the Span column: "live 1, 3; snow none". */
+function describeLoadedSpans(loadedSpans: Record<string, number[]> | undefined): string {
+  if (loadedSpans === undefined) return "all loads as given";
+  return Object.entries(loadedSpans)
+    .map(([loadCase, spans]) => `${loadCase} ${spans.length === 0 ? "none" : spans.map((span) => span + 1).join(", ")}`)
+    .join("; ");
+}
+
 export type MemberChecksTableProps = { checks: MemberCheckRow[]; governingKey: string | null };
 
 export function MemberChecksTable({ checks, governingKey }: MemberChecksTableProps) {
   if (checks.length === 0) return <p className="text-ink-soft">No checks were recorded for this member.</p>;
   return (
     <div className="overflow-x-auto rounded border border-rule bg-sheet">
-      <table className="w-full min-w-[44rem] border-collapse text-left">
+      <table className="w-full min-w-[52rem] border-collapse text-left">
         <caption className="sr-only">Every deflection check of this member</caption>
         <thead className="text-xs uppercase tracking-wide text-ink-soft">
           <tr className="border-b border-rule">
             <th scope="col" className="px-3 py-2 font-medium">Combination</th>
             <th scope="col" className="px-3 py-2 font-medium">Span</th>
+            <th scope="col" className="px-3 py-2 font-medium">Spans loaded</th>
             <th scope="col" className="px-3 py-2 text-right font-medium">Deflection (mm)</th>
             <th scope="col" className="px-3 py-2 text-right font-medium">At x (m)</th>
             <th scope="col" className="px-3 py-2 text-right font-medium">Allowed (mm)</th>
@@ -39,7 +48,15 @@ export function MemberChecksTable({ checks, governingKey }: MemberChecksTablePro
                 {c.spanIndex + 1}
                 {c.spanKind === "cantilever" ? <span className="text-ink-soft"> · cantilever</span> : null}
               </td>
-              <td className="px-3 py-1.5 text-right">{formatSignedMm(c.deflectionMm)}</td>
+              <td className="px-3 py-1.5 text-ink-soft">{describeLoadedSpans(c.loadedSpans)}</td>
+              <td className="px-3 py-1.5 text-right">
+                {formatSignedMm(c.deflectionMm)}
+                {c.deflectionBasis !== undefined ? (
+                  <span className="block text-xs text-ink-soft">
+                    {c.deflectionBasis === "chord" ? "from chord" : "total"}; chord {formatMm(c.chordDeflectionMm ?? null)}, total {formatMm(c.totalDeflectionMm ?? null)}, settlement {(c.supportSettlementMm ?? []).map((v) => formatMm(v)).join(" / ")}
+                  </span>
+                ) : null}
+              </td>
               <td className="px-3 py-1.5 text-right">{formatNumber(c.atMm / 1000, 3)}</td>
               <td className="px-3 py-1.5 text-right">{formatMm(c.allowedMm)}</td>
               <td className="px-3 py-1.5 text-right">{formatSpanRatio(c.achievedRatio)}</td>

@@ -100,6 +100,24 @@ describe("POST /api/v1/schedules", () => {
     expect(member.body.notes).toContain("gross section: cracking not included");
   });
 
+  it("answers a continuous member with the spans its variable load was patterned on", async () => {
+    // Two equal spans, live on both as given: each span is judged with only itself loaded
+    // (ASCE 7-16 4.3.3 partial loading, from memory); the fixed tank load stays everywhere.
+    const base = createBeam("C-01", 5);
+    const loads: Record<string, unknown>[] = [...base.loads, { case: "live", type: "point", at: 2.5, P: 4, fixed: true }];
+    const beam = { ...base, spans: [5, 5], supports: ["pinned", "roller", "roller"], loads };
+    const response = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).send(createScheduleDoc([beam]));
+    expect(response.status).toBe(202);
+    expect((await waitForSchedule(key, response.body.id)).status).toBe("completed");
+    const member = await api().get(`/api/v1/schedules/${response.body.id}/members/C-01`).set("authorization", `Bearer ${key}`);
+    expect(member.status).toBe(200);
+    const live = member.body.checks.filter((c: { combination: string }) => c.combination === "live");
+    expect(live.map((c: { spanIndex: number; loadedSpans: unknown }) => [c.spanIndex, c.loadedSpans])).toEqual([
+      [0, { live: [0] }],
+      [1, { live: [1] }],
+    ]);
+  });
+
   it("accepts the same schedule as CSV with units in the headers", async () => {
     const csv = "mark,category,quantity,material,section,bf [mm],tf [mm],d [mm],tw [mm],span_1 [m],supports,dead_uniform [kN/m],live_uniform [kN/m]\r\nC-1,floor_beam,2,steel-s355,i_plate,150,10.7,300,7.1,4,pinned roller,3,7.5\r\n";
     const response = await api().post("/api/v1/schedules?limits=ibc-2021-floor&name=CSV%20test").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send(csv);

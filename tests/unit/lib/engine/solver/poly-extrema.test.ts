@@ -1,6 +1,6 @@
 /** The exact extremum search on polynomials, against roots known by construction. */
 import { describe, expect, it } from "vitest";
-import { findPolynomialAbsMax } from "../../../../../lib/engine/solver/poly-extrema";
+import { findPolynomialAbsMax, findPolynomialRoots, findPolynomialSignedMax } from "../../../../../lib/engine/solver/poly-extrema";
 import { factorBandedLdl, solveBandedLdl } from "../../../../../lib/engine/solver/banded-ldl";
 
 /** Ascending coefficients of scale * product (t - r_i) (expansion by hand in the loop). */
@@ -52,5 +52,32 @@ describe("banded LDL^T", () => {
     rhs.forEach((x) => expect(x).toBeCloseTo(1, 14));
     const singular = new Float64Array([1, -1, 0, 0, 1, 0, 0, 0]);
     expect(factorBandedLdl(singular, 2)).toBe(1);
+  });
+});
+
+describe("findPolynomialRoots and findPolynomialSignedMax (pattern envelope)", () => {
+  it("finds every root of a quintic inside the interval, ascending, and none outside", () => {
+    const roots = [0.3, 1.1, 1.7, 2.9, 4.2];
+    const out = new Float64Array(5);
+    const count = findPolynomialRoots(fromRoots(roots, -2.5), 5, 3.5, out, 0);
+    expect(count).toBe(4);
+    roots.slice(0, 4).forEach((r, i) => expect(out[i]).toBeCloseTo(r, 11));
+  });
+
+  it("has no roots for a polynomial that only touches zero at an end", () => {
+    // p = t (4 - t): zero at 0 and 4, positive between
+    expect(findPolynomialRoots(new Float64Array([0, 4, -1, 0, 0, 0]), 5, 4, new Float64Array(5), 0)).toBe(0);
+  });
+
+  it("finds the largest and the smallest value separately", () => {
+    // p = (t-1)(t-2)(t-3) on [0, 3.2]: minimum -6 at t = 0, local max at 2 - 1/sqrt(3)
+    const coef = fromRoots([1, 2, 3], 1);
+    const p = (t: number): number => (t - 1) * (t - 2) * (t - 3);
+    const up = findPolynomialSignedMax(coef, 5, 3.2, 1, { t: 0, value: 0 });
+    const tMax = 2 - 1 / Math.sqrt(3);
+    expect(Math.max(p(tMax), p(3.2))).toBeCloseTo(up.value, 12);
+    const down = findPolynomialSignedMax(coef, 5, 3.2, -1, { t: 0, value: 0 });
+    expect(down.t).toBe(0);
+    expect(down.value).toBeCloseTo(-6, 12);
   });
 });
