@@ -52,19 +52,16 @@ describe("secret rotation", () => {
 
 describe("the SSRF guard at connection time", () => {
   it("refuses when the name resolves to a private address at attempt time (DNS rebinding), sending nothing", async () => {
-    const receiver = await startReceiver();
-    // Registration saw a public address...
+    // Registration saw a public address (on port 80: other ports need host:port in the allowlist)...
     const endpoint = await createEndpoint(
-      { organizationId: org.organizationId, url: `http://rebind.partner.example:${receiver.port}/hook`, eventTypes: ["schedule.completed"] },
+      { organizationId: org.organizationId, url: "http://rebind.partner.example/hook", eventTypes: ["schedule.completed"] },
       async () => ["93.184.215.14"],
     );
     const { deliveryId } = await insertDelivery(org.organizationId, endpoint.id);
-    // ...the attempt sees loopback: refused before any connection.
+    // ...the attempt sees loopback: refused before any connection (a connection would fail differently).
     const outcome = await attemptDelivery({ deliveryId, attemptNumber: 1 }, { config: { allowlist: [], retryScale: 0.001 }, resolve: async () => ["127.0.0.1"] });
     expect(outcome).toMatchObject({ kind: "retry", statusCode: null, error: expect.stringContaining("refused by the SSRF guard") });
     expect(outcome.kind === "retry" && outcome.error).toContain("127.0.0.1");
-    expect(receiver.received).toHaveLength(0);
-    await receiver.close();
   });
 
   it("refuses at registration a name resolving to a private address, naming the url field", async () => {
