@@ -195,14 +195,12 @@ function findLightestPassingSection(member: Member, profile: LimitProfile, catal
 }
 
 /** The result text beside every minimum I: what the search held fixed. */
-export const MINIMUM_I_BASIS_NOTE =
-  "Minimum I: the smallest second moment, the same in every span, at which every check passes (rechecked, with springs, creep, shear deformation and frequency included); E, the cross-section area (so the self-weight and the vibrating mass), the shear area and the supports are held at the member's own.";
-
 /**
  * Resizing advice for a failing, validated member: the minimum uniform I (findMinimumI: only I
  * changes, area and self-weight held) and the lightest passing catalogue section (when a
- * catalogue is given; each section's own area and self-weight). The notes always say what the
- * minimum I held fixed; when no I can pass (the springs or the shear deflection alone exceed a
+ * catalogue is given; each section's own area and self-weight). What the minimum I holds fixed
+ * (E, area, shear area, supports) is stated once, in the result schema and on the member page,
+ * not repeated per member; when no I can pass (the springs or the shear deflection alone exceed a
  * limit) the suggestion is null and a note says why.
  */
 export function suggestResize(member: Member, profile: LimitProfile, current: MemberEvaluation, catalogue?: CatalogueSection[]): SuggestionOutcome {
@@ -214,7 +212,7 @@ export function suggestResize(member: Member, profile: LimitProfile, current: Me
     };
   }
   const sectionName = catalogue === undefined || catalogue.length === 0 ? null : findLightestPassingSection(member, profile, catalogue);
-  const notes = [MINIMUM_I_BASIS_NOTE];
+  const notes: string[] = [];
   if (catalogue !== undefined && catalogue.length > 0 && sectionName === null) notes.push("No catalogue section passes.");
   return { suggestion: { minIMm4, sectionName }, notes };
 }
