@@ -37,7 +37,8 @@ export function createCheckResult(
   const limitRatio = ownCantileverRatio ?? combination.limitRatio;
   const effectiveSpanMm = isCantilever && ownCantileverRatio === undefined ? cantileverSpanMultiplier * judgement.judgedLengthMm : judgement.judgedLengthMm;
   const ratioLimitMm = effectiveSpanMm / limitRatio;
-  const allowedMm = combination.capMm !== undefined && combination.capMm < ratioLimitMm ? combination.capMm : ratioLimitMm;
+  const capGoverns = combination.capMm !== undefined && combination.capMm < ratioLimitMm;
+  const allowedMm = capGoverns ? (combination.capMm as number) : ratioLimitMm;
   const magnitude = Math.abs(extreme.deflectionMm);
   const utilization = magnitude / allowedMm;
   const safety = allowedMm / magnitude;
@@ -54,7 +55,8 @@ export function createCheckResult(
     utilization,
     factorOfSafety: magnitude === 0 || !Number.isFinite(safety) ? null : safety,
     pass: utilization <= 1,
-    limitRatio,
+    // a governing cap is reported as its own l/N, so that achieved >= limit still means pass
+    limitRatio: capGoverns ? effectiveSpanMm / allowedMm : limitRatio,
     achievedRatio: magnitude === 0 || !Number.isFinite(achieved) ? null : achieved,
   };
 }

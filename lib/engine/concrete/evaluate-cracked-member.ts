@@ -32,6 +32,10 @@ function getFrequencyMember(member: Member, profile: LimitProfile): Member {
   return createMemberWithInertia(member, solveCrackedState(member, levels).inertiaMm4);
 }
 
+/** Said on cracked members with springs: their checks do not yet also judge the chord deflection. */
+export const CRACKED_SPRING_NOTE =
+  "cracked concrete on spring supports: judged on the total deflection only, not also on the deflection from the chord between supports as other members are; an overhang's tip relative to its support can be larger: check it by hand";
+
 /**
  * Solves and checks a validated member with reinforced concrete spans: every combination with
  * cracked, load-dependent I_e (cracked-evaluation.ts), rotations, the frequency with I_e under the
@@ -58,6 +62,6 @@ export function evaluateCrackedMember(member: Member, profile: LimitProfile): Cr
     frequency,
     pass,
     combinationFactors: evaluation.combinationTerms.map((terms) => terms[0]!.factors),
-    cracked: { combinationTerms: evaluation.combinationTerms, notes: patterned === null ? describeCrackedEvaluation(member, evaluation) : [...describeCrackedEvaluation(member, evaluation), CRACKED_PATTERN_NOTE] },
+    cracked: { combinationTerms: evaluation.combinationTerms, notes: [...describeCrackedEvaluation(member, evaluation), ...(patterned === null ? [] : [CRACKED_PATTERN_NOTE]), ...(member.supports.some((support) => support.kind === "spring") ? [CRACKED_SPRING_NOTE] : [])] },
   };
 }

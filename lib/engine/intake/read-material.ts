@@ -198,6 +198,11 @@ export function resolveMemberCreep(
       ctx.issues.add(moisturePath, `contradicts creep.condition "${spec.condition}"`);
       return null;
     }
+    // service class 3 is wet service (EN 1995-1-1 2.3.1.3, from memory): not the dry use that the IBC 0.5 D presumes
+    if (spec?.method === "en1995" && spec.serviceClass === 3 && read === "seasoned_dry") {
+      ctx.issues.add(moisturePath, 'contradicts creep.serviceClass 3 (wet service): give "unseasoned_or_wet"');
+      return null;
+    }
     moisture = read;
   }
   const notes: string[] = [];

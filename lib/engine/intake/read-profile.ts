@@ -211,6 +211,8 @@ function applyOverrides(ctx: ReadContext, preset: LimitProfile, value: unknown, 
         }
         const fields = readObject(ctx, override, comboPath, OVERRIDE_COMBINATION_SPEC);
         if (!fields || !readCombinationFields(ctx, fields, comboPath, target)) ok = false;
+        // an edited combination no longer checks what its preset label cites
+        else if (fields.label === undefined) target.label = `${target.label} (edited)`;
       }
     }
   }
