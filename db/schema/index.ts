@@ -5,3 +5,4 @@ export * from "./schedules";
 export * from "./outbox";
 export * from "./webhooks";
 export * from "./api-keys";
+export * from "./reviews";

@@ -30,7 +30,7 @@ describe("webhooks in the integrator console", () => {
     const url = `${PARTNER_URL}/hooks/${receiver}`;
     const form = page.getByRole("form", { name: "Add an endpoint" });
     await form.getByLabel("URL").fill(url);
-    await form.getByLabel("Description").fill("Corrow yard scheduler (browser test)");
+    await form.getByLabel("Description").fill("Ostrovel yard scheduler (browser test)");
     await form.getByRole("button", { name: "Add endpoint" }).click();
     await expect(form.getByRole("status").textContent()).resolves.toContain("Endpoint added");
 

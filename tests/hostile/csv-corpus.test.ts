@@ -11,7 +11,7 @@ import { APP_URL } from "@/tests/helpers/app";
 import { createTestKey } from "@/tests/helpers/api-keys";
 import { assertSafeProblem } from "@/tests/hostile/problem-checks";
 
-const example = readFileSync(new URL("../../examples/harrowgate-mews-block-c-joists.csv", import.meta.url), "utf8");
+const example = readFileSync(new URL("../../examples/lumenbrook-depot-hall-b-joists.csv", import.meta.url), "utf8");
 const rows = Papa.parse<string[]>(example.trim(), { delimiter: "," }).data;
 const header = rows[0]!;
 const memberCount = rows.length - 1;

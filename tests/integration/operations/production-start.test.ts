@@ -52,7 +52,7 @@ describe("npm run start:production refuses", () => {
     expect(code).toBe(1);
     expect(stderr).toContain("refusing to start in production");
     expect(stderr).toContain(`the demo API key ${demoApiKey.id}`);
-    expect(stderr).toMatch(/the account \S+@(brackenridge|corrow)\.example still has a demo password/);
+    expect(stderr).toMatch(/the account \S+@(fernhollow|ostrovel)\.example still has a demo password/);
     expectNothingStarted();
   });
 

@@ -28,7 +28,7 @@ describe("invitations", () => {
     const token = link.split("/").at(-1)!;
     const page = await anonymous().get(`/invitations/${token}`);
     expect(page.status).toBe(200);
-    expect(page.text.replaceAll("<!-- -->", "")).toContain("Join Brackenridge Halvorsen Structural");
+    expect(page.text.replaceAll("<!-- -->", "")).toContain("Join Fernhollow Vantarra Engineers");
 
     const accept = findAction("(auth)/acceptInvitation");
     const name = `<script>alert("x")</script> Zhou Ngata`;

@@ -33,7 +33,7 @@ const validateEndpoint = compileApiSchema("webhook-endpoint", { strict: true, al
 describe("/api/v1/webhook-endpoints", () => {
   it("creates an endpoint, returning the secret once, and serves it without the secret after", async () => {
     const receiver = `api${Date.now().toString(36)}`;
-    const created = await api().post("/api/v1/webhook-endpoints", { url: `${PARTNER_URL}/hooks/${receiver}`, description: "Corrow ERP", eventTypes: ["schedule.completed"] });
+    const created = await api().post("/api/v1/webhook-endpoints", { url: `${PARTNER_URL}/hooks/${receiver}`, description: "Ostrovel ERP", eventTypes: ["schedule.completed"] });
     expect(created.status).toBe(201);
     expect(created.body.secret).toMatch(/^whsec_/);
     expect(validateEndpoint(created.body.endpoint), JSON.stringify(validateEndpoint.errors)).toBe(true);

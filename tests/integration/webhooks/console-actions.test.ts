@@ -64,13 +64,13 @@ describe("registering an endpoint from the console", () => {
   it("creates, reveals, tests, rotates, disables and deletes an endpoint", async () => {
     const receiver = `console${Date.now().toString(36)}`;
     const url = `${PARTNER_URL}/hooks/${receiver}`;
-    const created = await act(integrator, "createEndpoint", { url, description: "Corrow yard receiver <b>", ...allEvents });
+    const created = await act(integrator, "createEndpoint", { url, description: "Ostrovel yard receiver <b>", ...allEvents });
     expect(created.result).toMatchObject({ ok: true });
     const [endpoint] = (await endpointsOfOrg()).filter((e) => e.url === url);
-    expect(endpoint).toMatchObject({ enabled: true, eventTypes: ["schedule.completed", "schedule.failed"], description: "Corrow yard receiver <b>" });
+    expect(endpoint).toMatchObject({ enabled: true, eventTypes: ["schedule.completed", "schedule.failed"], description: "Ostrovel yard receiver <b>" });
     // Hostile text in a description renders as text.
     const listed = await integrator.get("/integrations/webhooks");
-    expect(listed.text).toContain("Corrow yard receiver &lt;b&gt;");
+    expect(listed.text).toContain("Ostrovel yard receiver &lt;b&gt;");
     expect(listed.text).not.toContain(endpoint!.secret);
 
     const revealed = (await act(integrator, "revealSecret", { endpointId: endpoint!.id })).result as unknown as { ok: boolean; data: { secret: string } };

@@ -50,7 +50,7 @@ async function insertSchedule(organizationId: string, values: Partial<typeof sch
   const id = createId("sch");
   await getDb()
     .insert(schedules)
-    .values({ id, organizationId, name: "Harrowgate Mews block C roof", reference: "HM-C-R", source: "api-json", profile: {}, header: {}, memberCount: 2, chunkCount: 1, status: "completed", ...values });
+    .values({ id, organizationId, name: "Lumenbrook Depot hall B roof", reference: "HM-C-R", source: "api-json", profile: {}, header: {}, memberCount: 2, chunkCount: 1, status: "completed", ...values });
   return id;
 }
 

@@ -10,7 +10,7 @@ import { listPresetIds } from "@/lib/engine/presets";
 import { createDoc } from "../lib/engine/intake/helpers";
 
 const schema = JSON.parse(readFileSync(new URL("../../../api-schemas/v1/schedule.schema.json", import.meta.url), "utf8"));
-const example = JSON.parse(readFileSync(new URL("../../../examples/harrowgate-mews-block-c.json", import.meta.url), "utf8"));
+const example = JSON.parse(readFileSync(new URL("../../../examples/lumenbrook-depot-hall-b.json", import.meta.url), "utf8"));
 
 const ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true });
 addFormats(ajv);
@@ -21,7 +21,7 @@ function withMember(member: Record<string, unknown>): Record<string, unknown> {
 }
 
 const goodDocuments: [string, unknown][] = [
-  ["the Harrowgate Mews example", example],
+  ["the Lumenbrook Depot example", example],
   ["the minimal test schedule", createDoc()],
   ["US units with an explicit section and a moment", createDoc({ material: "steel-aisc", section: { shape: "explicit", I: 204, A: 7.65 }, loads: [{ case: "dead", type: "moment", at: 0, M: 5 }] }, { units: { system: "US" } })],
   ["a spring, overhangs, a per-span override and shear deformation", createDoc({

@@ -15,7 +15,7 @@ import { waitForSchedule } from "@/tests/helpers/schedules";
 function exportCsv(separatorCode: number): string {
   const out = mkdtempSync(join(tmpdir(), "sagline-lo-"));
   // Filter options: field separator, text delimiter ("), character set 76 = UTF-8, first line 1.
-  execFileSync("soffice", ["--headless", `-env:UserInstallation=file://${out}/profile`, "--convert-to", `csv:Text - txt - csv (StarCalc):${separatorCode},34,76,1`, "--outdir", out, "tests/fixtures/millrace-yard-level-3.fods"], { stdio: "ignore", timeout: 90_000 });
+  execFileSync("soffice", ["--headless", `-env:UserInstallation=file://${out}/profile`, "--convert-to", `csv:Text - txt - csv (StarCalc):${separatorCode},34,76,1`, "--outdir", out, "tests/fixtures/lumenbrook-depot-level-3.fods"], { stdio: "ignore", timeout: 90_000 });
   const file = readdirSync(out).find((f) => f.endsWith(".csv"));
   return readFileSync(join(out, file!), "utf8");
 }
@@ -33,7 +33,7 @@ describe("a CSV exported by LibreOffice Calc", () => {
     const csv = exportCsv(code);
     expect(csv).toContain('"Stair trimmer\nsee sketch SK-12"');
     const response = await request(APP_URL)
-      .post(`/api/v1/schedules?limits=ibc-2021-floor&name=Millrace%20Yard%20L3&delimiter=${delimiter}`)
+      .post(`/api/v1/schedules?limits=ibc-2021-floor&name=Lumenbrook%20Yard%20L3&delimiter=${delimiter}`)
       .set("authorization", `Bearer ${key}`)
       .set("content-type", "text/csv")
       .send(csv);

@@ -8,8 +8,8 @@ import Ajv2020 from "ajv/dist/2020.js";
 import { describe, expect, it } from "vitest";
 
 const repoRoot = fileURLToPath(new URL("../../../../", import.meta.url));
-const exampleJson = "examples/harrowgate-mews-block-c.json";
-const exampleCsv = "examples/harrowgate-mews-block-c-joists.csv";
+const exampleJson = "examples/lumenbrook-depot-hall-b.json";
+const exampleCsv = "examples/lumenbrook-depot-hall-b-joists.csv";
 const tempDir = mkdtempSync(join(tmpdir(), "sagline-cli-"));
 
 function runCli(args: string[]) {
@@ -24,7 +24,7 @@ function writeTemp(name: string, text: string): string {
 }
 
 /*
- * Why B2 of the example fails (examples/harrowgate-mews-block-c.json): an S355 plate I-section
+ * Why B2 of the example fails (examples/lumenbrook-depot-hall-b.json): an S355 plate I-section
  * bf 100, tf 8.5, d 200, tw 5.6 mm, simply supported over L = 8000 mm, live 5.0 kN/m = 5.0 N/mm.
  * I = [bf d^3 - (bf - tw)(d - 2tf)^3] / 12 = [100 * 200^3 - 94.4 * 183^3] / 12 = 18.46e6 mm^4
  * (doubly symmetric I from plates, fillets ignored; any mechanics-of-materials text, e.g. Gere and Goodno, Mechanics of Materials, from memory).
@@ -223,7 +223,7 @@ describe("npm run check", { timeout: 60_000 }, () => {
   });
 
   it("passes --catalogue through: the failing member gets the lightest catalogue section with enough I", () => {
-    const catalogueFile = "examples/catalogue-kestrel-plate-girders.json";
+    const catalogueFile = "examples/catalogue-ostrovel-plate-girders.json";
     const { code, stdout } = runCli([exampleJson, "--catalogue", catalogueFile]);
     expect(code).toBe(1);
     const match = /^B2: needs I >= ([\d,]+) mm\^4; lightest passing catalogue section (.+)$/m.exec(stdout);

@@ -9,7 +9,7 @@ import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
 
 import { createDoc, parseOk } from "./intake/helpers";
 
-const example = JSON.parse(readFileSync(new URL("../../../../examples/harrowgate-mews-block-c.json", import.meta.url), "utf8"));
+const example = JSON.parse(readFileSync(new URL("../../../../examples/lumenbrook-depot-hall-b.json", import.meta.url), "utf8"));
 
 /** Self-weight, N/mm, of area mm^2 at the library density of a material (kg/m^3 x g x mm^2 x 1e-9). */
 function getSelfWeightNPerMm(areaMm2: number, materialId: string): number {
@@ -20,7 +20,7 @@ function getSelfWeightNPerMm(areaMm2: number, materialId: string): number {
 
 // The example uses en1995-timber-floor: w_inst is the characteristic combination dead + live
 // (EN 1995-1-1 2.2.3(2), from memory), self-weight included in dead.
-describe("checkSchedule on the Harrowgate Mews example", () => {
+describe("checkSchedule on the Lumenbrook Depot example", () => {
   const outcome = checkSchedule(example);
   if (!outcome.ok) throw new Error(JSON.stringify(outcome.issues));
 

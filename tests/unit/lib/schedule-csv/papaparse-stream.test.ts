@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 
 import { createCsvRowMapper, parseScheduleCsv, type PublicMember } from "@/lib/schedule-csv";
 
-const exampleCsv = readFileSync(new URL("../../../../examples/harrowgate-mews-block-c-joists.csv", import.meta.url), "utf8");
+const exampleCsv = readFileSync(new URL("../../../../examples/lumenbrook-depot-hall-b-joists.csv", import.meta.url), "utf8");
 
 /** What the upload page does in the browser: papaparse row by row, the header once, then mapRow per record. */
 function mapWithPapaparse(text: string, delimiter: string): PublicMember[] {

@@ -5,9 +5,9 @@ import { describe, expect, it } from "vitest";
 import { parseSchedule } from "@/lib/engine/intake";
 import { buildCsvTemplate, createCsvRowMapper, mapIssueToCsvRow, parseScheduleCsv, type ParseScheduleCsvOptions } from "@/lib/schedule-csv";
 
-const exampleCsv = readFileSync(new URL("../../../../examples/harrowgate-mews-block-c-joists.csv", import.meta.url), "utf8");
-const exampleJson = JSON.parse(readFileSync(new URL("../../../../examples/harrowgate-mews-block-c.json", import.meta.url), "utf8"));
-const options: ParseScheduleCsvOptions = { name: "Harrowgate Mews joists", limits: { preset: "en1995-timber-floor" } };
+const exampleCsv = readFileSync(new URL("../../../../examples/lumenbrook-depot-hall-b-joists.csv", import.meta.url), "utf8");
+const exampleJson = JSON.parse(readFileSync(new URL("../../../../examples/lumenbrook-depot-hall-b.json", import.meta.url), "utf8"));
+const options: ParseScheduleCsvOptions = { name: "Lumenbrook Depot joists", limits: { preset: "en1995-timber-floor" } };
 
 const HEADER = "mark,category,quantity,material,section,b [mm],h [mm],span_1 [m],supports,live_uniform [kN/m],notes";
 

@@ -26,7 +26,7 @@ export function CreateKeyForm({ scopes, maxExpiresDays, maxNameLength }: CreateK
       <form action={formAction} aria-label="Create an API key" aria-busy={pending} className="space-y-3 rounded border border-rule bg-sheet p-4" noValidate>
         <h2 className="font-semibold">Create an API key</h2>
         {state && !state.ok ? <Notice tone="error">{state.message}</Notice> : null}
-        <Field label="Name" name="name" maxLength={maxNameLength} autoComplete="off" placeholder="e.g. Corrow shop-drawing export" error={fieldErrors.name} />
+        <Field label="Name" name="name" maxLength={maxNameLength} autoComplete="off" placeholder="e.g. Ostrovel shop-drawing export" error={fieldErrors.name} />
         <fieldset aria-describedby={scopesError ? "scopes-error" : undefined}>
           <legend className="mb-1 text-xs font-medium uppercase tracking-wide text-ink-soft">Scopes</legend>
           <ul className="space-y-1">

@@ -6,7 +6,7 @@ import type { Member } from "@/lib/engine/model";
 
 import { createDoc, parseOk } from "./helpers";
 
-const example = JSON.parse(readFileSync(new URL("../../../../../examples/harrowgate-mews-block-c.json", import.meta.url), "utf8"));
+const example = JSON.parse(readFileSync(new URL("../../../../../examples/lumenbrook-depot-hall-b.json", import.meta.url), "utf8"));
 
 function getMember(members: Member[], mark: string): Member {
   const member = members.find((m) => m.mark === mark);
@@ -14,12 +14,12 @@ function getMember(members: Member[], mark: string): Member {
   return member;
 }
 
-describe("the Harrowgate Mews example", () => {
+describe("the Lumenbrook Depot example", () => {
   const schedule = parseOk(example);
 
   it("reads every member, the name and the edited preset", () => {
     expect(schedule.members.map((m) => m.mark)).toEqual(["B1", "J1", "BAL1", "G1", "L1", "B2"]);
-    expect(schedule.name).toContain("Harrowgate Mews");
+    expect(schedule.name).toContain("Lumenbrook Depot");
     expect(schedule.profile.id).toBe("en1995-timber-floor");
     expect(schedule.profile.combinations.find((c) => c.id === "w_inst")?.limitRatio).toBe(360);
     expect(schedule.profile.source).toContain("edited by the schedule");
@@ -162,7 +162,7 @@ describe("limits", () => {
             custom: {
               id: "project-floor",
               label: "Project floor",
-              source: "Oduya & Lindqvist project specification (invented)",
+              source: "Fernhollow Vantarra project specification (invented)",
               cantileverSpanMultiplier: 2,
               combinations: [{ id: "live", label: "live", factors: { live: 1 }, limitRatio: 500, cap: 12 }],
               frequency: { min: 5, massFactors: { dead: 1, live: 0.1 } },

@@ -2,13 +2,13 @@ import { describe, expect, it } from "vitest";
 
 import { buildEndpointDisabledMail } from "@/lib/server/webhooks/notify-disabled";
 
-const base = { to: "priya@corrow.example", organizationName: "Corrow Steel & Timber Works", url: "https://erp.corrow.example/hooks?a=<b>", consoleUrl: "http://127.0.0.1:3790/integrations/webhooks" };
+const base = { to: "priya@ostrovel.example", organizationName: "Ostrovel Steel & Timber Works", url: "https://erp.ostrovel.example/hooks?a=<b>", consoleUrl: "http://127.0.0.1:3790/integrations/webhooks" };
 
 describe("the endpoint-disabled e-mail", () => {
   it("says which endpoint, why, what the last answer was and where to fix it", () => {
     const mail = buildEndpointDisabledMail({ ...base, reason: "failing", lastStatusCode: 503, lastError: null });
-    expect(mail.subject).toBe("Webhook endpoint disabled for Corrow Steel & Timber Works");
-    expect(mail.text).toContain("Sagline stopped sending events to https://erp.corrow.example/hooks?a=<b>.");
+    expect(mail.subject).toBe("Webhook endpoint disabled for Ostrovel Steel & Timber Works");
+    expect(mail.text).toContain("Sagline stopped sending events to https://erp.ostrovel.example/hooks?a=<b>.");
     expect(mail.text).toContain("Every attempt of the published retry schedule failed.");
     expect(mail.text).toContain("HTTP 503");
     expect(mail.text).toContain(base.consoleUrl);

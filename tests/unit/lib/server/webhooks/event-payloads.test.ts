@@ -27,8 +27,8 @@ function expectValid(type: string, payload: unknown) {
 
 const occurredAt = new Date("2026-12-01T10:00:00Z");
 const schedule = {
-  id: "sch_millrace2",
-  name: "Millrace Yard level 2 beams",
+  id: "sch_lumenbrook2",
+  name: "Lumenbrook Depot level 2 beams",
   reference: "BHS-2026-114-L2",
   completedAt: new Date("2026-12-01T10:00:00Z"),
   memberCount: 3,
@@ -62,7 +62,7 @@ describe("event payloads conform to their published JSON Schemas", () => {
     expect(event.data.rows[0]).toMatchObject({ limitRatio: 360, achievedRatio: 439 });
     // JSON cannot carry Infinity; a non-finite factor of safety is sent as null.
     expect(event.data.rows[2]!.factorOfSafety).toBeNull();
-    expect(event.data.resultsUrl).toBe("http://127.0.0.1:3790/api/v1/schedules/sch_millrace2/results");
+    expect(event.data.resultsUrl).toBe("http://127.0.0.1:3790/api/v1/schedules/sch_lumenbrook2/results");
     expect(event.data.counts).toEqual({ members: 3, checked: 3, passed: 2, failed: 1, errors: 0 });
   });
 
