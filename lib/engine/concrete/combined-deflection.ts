@@ -5,8 +5,9 @@
  * creep part is lambda times the sustained deflection. Every solution must come from the same
  * member geometry and loads (only I differs), so they share load breakpoints.
  */
-import { getNodeRotation, sampleSpanDeflections, writeSpanPiecePolynomial, type CaseFactors, type SpanExtreme } from "../solver/deflection-field";
+import { getNodeDeflection, getNodeRotation, sampleSpanDeflections, writeSpanPiecePolynomial, type CaseFactors, type SpanExtreme } from "../solver/deflection-field";
 import { findPolynomialAbsMax, type AbsMaxResult } from "../solver/poly-extrema";
+import type { ChordReference } from "../solver/pattern-envelope";
 import type { MemberSolution } from "../solver/solve-member";
 
 /** weight x (deflection of `solution` under `factors`). */
@@ -23,12 +24,24 @@ const extremeScratch: AbsMaxResult = { t: 0, value: 0 };
 /**
  * Largest |sum of weighted deflections| within one span, mm (signed, + down), and where (mm from
  * the member's left end): exact, because the sum is again a polynomial of degree <= 5 between
- * load discontinuities (see deflection-field.ts findSpanExtreme).
+ * load discontinuities (see deflection-field.ts findSpanExtreme). With `chord`, measured from the
+ * chord through the combined deflections of its two support nodes (for an overhang, one node: a
+ * level line through it), as pattern-envelope.ts measures uncracked members; a line is linear in
+ * the deflections, so the chord of the sum is the sum of the chords.
  */
-export function findCombinedSpanExtreme(terms: readonly DeflectionTerm[], span: number, out: SpanExtreme): SpanExtreme {
+export function findCombinedSpanExtreme(terms: readonly DeflectionTerm[], span: number, out: SpanExtreme, chord: ChordReference | null = null): SpanExtreme {
   const first = terms[0]!.solution;
   const breakpoints = first.breakpointsMm[span] as number[];
   const length = first.lengthMm[span] as number;
+  // the chord line in the span's local s: value at s = 0 and slope (pattern-envelope.ts's rule)
+  let chordAt0 = 0;
+  let chordSlope = 0;
+  if (chord !== null) {
+    const startValue = getCombinedNodeDeflection(terms, chord.startNode);
+    const xA = first.nodeXMm[chord.startNode] as number;
+    chordSlope = chord.endNode === chord.startNode ? 0 : (getCombinedNodeDeflection(terms, chord.endNode) - startValue) / ((first.nodeXMm[chord.endNode] as number) - xA);
+    chordAt0 = startValue + chordSlope * ((first.nodeXMm[span] as number) - xA);
+  }
   let bestValue = 0;
   let bestS = 0;
   for (let piece = 0; piece <= breakpoints.length; piece++) {
@@ -39,6 +52,8 @@ export function findCombinedSpanExtreme(terms: readonly DeflectionTerm[], span: 
       writeSpanPiecePolynomial(term.solution, term.factors, span, s0, termCoefficients);
       for (let k = 0; k < 6; k++) sumCoefficients[k] = (sumCoefficients[k] as number) + term.weight * (termCoefficients[k] as number);
     }
+    sumCoefficients[0] = (sumCoefficients[0] as number) - (chordAt0 + chordSlope * s0);
+    sumCoefficients[1] = (sumCoefficients[1] as number) - chordSlope;
     const extreme = findPolynomialAbsMax(sumCoefficients, 5, s1 - s0, extremeScratch);
     if (piece === 0 || Math.abs(extreme.value) > Math.abs(bestValue)) {
       bestValue = extreme.value;
@@ -48,6 +63,13 @@ export function findCombinedSpanExtreme(terms: readonly DeflectionTerm[], span: 
   out.deflectionMm = bestValue;
   out.atMm = (first.nodeXMm[span] as number) + bestS;
   return out;
+}
+
+/** Weighted sum of the node's deflection over the terms, mm, + down. */
+export function getCombinedNodeDeflection(terms: readonly DeflectionTerm[], node: number): number {
+  let deflection = 0;
+  for (const term of terms) deflection += term.weight * getNodeDeflection(term.solution, term.factors, node);
+  return deflection;
 }
 
 /** Weighted sum of the node's rotation over the terms, rad, + clockwise. */

@@ -12,16 +12,19 @@
  * - Creep part = lambda_Delta x (deflection under the sustained factors with I_e at the total):
  *   cracks formed under the peak service load stay open, so the sustained load sees that
  *   stiffness (at least as much deflection as I_e at the sustained level; conservative).
- * Limits, spans and utilization are exactly those of the linear checks (createCheckResult).
+ * Limits, spans and utilization are exactly those of the linear checks (createCheckResult); on
+ * spring supports the chord and total deflections are both judged (createCrackedCheck).
  */
 import type { CheckResult, Combination, LimitProfile, Member, RotationResult } from "../model";
 import { createCheckResult } from "../checks/evaluate-checks";
 import { getSpanJudgements } from "../checks/span-groups";
 import { getCreepFactor } from "../checks/validate-profile";
-import { createCaseFactors, type SpanExtreme } from "../solver/deflection-field";
+import { hasSpringSupport } from "../checks/pattern-checks";
+import type { SpanJudgement } from "../checks/span-groups";
+import type { SpanExtreme } from "../solver/deflection-field";
 import { EngineInputError } from "../solver/engine-input-error";
-import { findCombinedSpanExtreme, getCombinedNodeRotation, type DeflectionTerm } from "./combined-deflection";
-import { solveCrackedState, type CrackedState } from "./cracked-state";
+import { findCombinedSpanExtreme, getCombinedNodeDeflection, getCombinedNodeRotation, type DeflectionTerm } from "./combined-deflection";
+import { createArrangedFactors, solveCrackedState, type CrackedState, type LoadArrangement } from "./cracked-state";
 
 /** Load cases that are always present: the dead load (self-weight goes to it). */
 export const PERMANENT_CASE_FACTORS: Readonly<Record<string, number>> = { dead: 1 };
@@ -56,11 +59,33 @@ export function getLoadLevels(combination: Combination, creepFactor: number): Lo
   return { total, base: hasBase ? base : null };
 }
 
-function getStateKey(factors: Record<string, number>): string {
-  return Object.keys(factors)
+function getStateKey(factors: Record<string, number>, arrangement: LoadArrangement | undefined): string {
+  const key = Object.keys(factors)
     .sort()
     .map((name) => `${name}=${factors[name]}`)
     .join("|");
+  if (arrangement === undefined) return key;
+  const loaded = Object.keys(arrangement.loadedSpans)
+    .sort()
+    .map((name) => `${name}:${arrangement.loadedSpans[name]!.join(",")}`)
+    .join(";");
+  return `${key}#${loaded}`;
+}
+
+/** Solves a load level (with an optional arrangement) once per evaluation: solveCrackedState, cached by level. */
+export type CrackedStateSolver = (factors: Record<string, number>, arrangement?: LoadArrangement) => CrackedState;
+
+/** A CrackedStateSolver that caches by load level and arrangement; `states` collects every level solved. */
+export function createCrackedStateSolver(member: Member, states: Map<string, CrackedState> = new Map()): CrackedStateSolver {
+  return (factors, arrangement) => {
+    const key = getStateKey(factors, arrangement);
+    let state = states.get(key);
+    if (state === undefined) {
+      state = solveCrackedState(member, factors, arrangement);
+      states.set(key, state);
+    }
+    return state;
+  };
 }
 
 export interface CrackedEvaluation {
@@ -70,22 +95,54 @@ export interface CrackedEvaluation {
   combinationTerms: DeflectionTerm[][];
   /** Every load level solved, by its key, for notes and the frequency mass. */
   states: CrackedState[];
+  /** The evaluation's cached state solver, for further arrangements of the same member. */
+  solveState: CrackedStateSolver;
 }
 
-/** The weighted terms of one combination's deflection (module doc). */
-function getCombinationTerms(member: Member, combination: Combination, solveState: (factors: Record<string, number>) => CrackedState): DeflectionTerm[] {
+/**
+ * The weighted terms of one combination's deflection (module doc); with `arrangement`, every load
+ * level has its variable loads clipped to the arrangement's loaded spans.
+ */
+export function getCombinationTerms(member: Member, combination: Combination, solveState: CrackedStateSolver, arrangement?: LoadArrangement): DeflectionTerm[] {
   const creepFactor = getCreepFactor(combination, member);
   const levels = getLoadLevels(combination, creepFactor);
-  const total = solveState(levels.total);
+  const total = solveState(levels.total, arrangement);
   const terms: DeflectionTerm[] = [{ solution: total.solution, factors: total.factors, weight: 1 }];
   if (levels.base !== null) {
-    const base = solveState(levels.base);
+    const base = solveState(levels.base, arrangement);
     terms.push({ solution: base.solution, factors: base.factors, weight: -1 });
   }
   if (creepFactor !== 0 && combination.sustainedFactors !== undefined) {
-    terms.push({ solution: total.solution, factors: createCaseFactors(total.solution, combination.sustainedFactors), weight: creepFactor });
+    terms.push({ solution: total.solution, factors: createArrangedFactors(total.solution, combination.sustainedFactors, arrangement), weight: creepFactor });
   }
   return terms;
+}
+
+const totalScratch: SpanExtreme = { deflectionMm: 0, atMm: 0 };
+const chordScratch: SpanExtreme = { deflectionMm: 0, atMm: 0 };
+
+/**
+ * One cracked check from a combination's weighted terms. On rigid supports: the span's extreme
+ * total deflection. On springs, as uncracked members are judged (pattern-checks.ts
+ * findPatternExtreme): both the extreme measured from the chord between the span's supports and
+ * the total one (settlement included) are found, the larger in magnitude is judged, and the
+ * check reports both, the settlements of those supports and which was judged.
+ */
+export function createCrackedCheck(combination: Combination, span: number, judgement: SpanJudgement, profile: LimitProfile, terms: readonly DeflectionTerm[], springs: boolean): CheckResult {
+  const total = findCombinedSpanExtreme(terms, span, totalScratch);
+  if (!Number.isFinite(total.deflectionMm)) {
+    throw new EngineInputError([{ path: "loads", message: `combination "${combination.id}" gives a deflection beyond the range of double precision: check the load and stiffness magnitudes and units` }]);
+  }
+  if (!springs) return createCheckResult(combination, span, judgement, profile.cantileverSpanMultiplier, total);
+  const chord = findCombinedSpanExtreme(terms, span, chordScratch, { startNode: judgement.chordStartNode, endNode: judgement.chordEndNode });
+  const judged = Math.abs(chord.deflectionMm) > Math.abs(total.deflectionMm) ? chord : total;
+  const check = createCheckResult(combination, span, judgement, profile.cantileverSpanMultiplier, judged);
+  check.chordDeflectionMm = chord.deflectionMm;
+  check.totalDeflectionMm = total.deflectionMm;
+  const start = getCombinedNodeDeflection(terms, judgement.chordStartNode);
+  check.supportSettlementMm = judgement.chordEndNode === judgement.chordStartNode ? [start] : [start, getCombinedNodeDeflection(terms, judgement.chordEndNode)];
+  check.deflectionBasis = judged === chord ? "chord" : "total";
+  return check;
 }
 
 /**
@@ -95,36 +152,22 @@ function getCombinationTerms(member: Member, combination: Combination, solveStat
  */
 export function evaluateCrackedDeflectionChecks(member: Member, profile: LimitProfile): CrackedEvaluation {
   const judgements = getSpanJudgements(member);
+  const springs = hasSpringSupport(member);
   const statesByKey = new Map<string, CrackedState>();
-  const solveState = (factors: Record<string, number>): CrackedState => {
-    const key = getStateKey(factors);
-    let state = statesByKey.get(key);
-    if (state === undefined) {
-      state = solveCrackedState(member, factors);
-      statesByKey.set(key, state);
-    }
-    return state;
-  };
+  const solveState = createCrackedStateSolver(member, statesByKey);
   const checks: CheckResult[] = [];
   const rotations: RotationResult[] = [];
   const combinationTerms: DeflectionTerm[][] = [];
-  const extreme: SpanExtreme = { deflectionMm: 0, atMm: 0 };
   for (const combination of profile.combinations) {
     const terms = getCombinationTerms(member, combination, solveState);
     combinationTerms.push(terms);
     const solution = terms[0]!.solution;
-    for (let span = 0; span < solution.spanCount; span++) {
-      findCombinedSpanExtreme(terms, span, extreme);
-      if (!Number.isFinite(extreme.deflectionMm)) {
-        throw new EngineInputError([{ path: "loads", message: `combination "${combination.id}" gives a deflection beyond the range of double precision: check the load and stiffness magnitudes and units` }]);
-      }
-      checks.push(createCheckResult(combination, span, judgements[span]!, profile.cantileverSpanMultiplier, extreme));
-    }
+    for (let span = 0; span < solution.spanCount; span++) checks.push(createCrackedCheck(combination, span, judgements[span]!, profile, terms, springs));
     for (let node = 0; node <= solution.spanCount; node++) {
       rotations.push({ combinationId: combination.id, nodeIndex: node, atMm: solution.nodeXMm[node] as number, rotationRad: getCombinedNodeRotation(terms, node) });
     }
   }
-  return { checks, rotations, combinationTerms, states: [...statesByKey.values()] };
+  return { checks, rotations, combinationTerms, states: [...statesByKey.values()], solveState };
 }
 
 /** Lowest I_e / I_g ratio text and a non-convergence warning, for the member's notes. */

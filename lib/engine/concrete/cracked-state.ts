@@ -7,7 +7,7 @@
 import type { Member, ReinforcedConcreteSection } from "../model";
 import { createCaseFactors, type CaseFactors } from "../solver/deflection-field";
 import { findSpanMomentExtreme } from "../solver/moment-field";
-import { solveValidatedMember, type MemberSolution } from "../solver/solve-member";
+import { solveValidatedMember, type MemberSolution, type PatternSplit } from "../solver/solve-member";
 import { getCrackedSection, getCrackingMomentNmm, getGrossConcreteProperties, type MomentSign } from "./cracked-section";
 import { getEffectiveInertiaMm4 } from "./effective-inertia";
 
@@ -24,6 +24,36 @@ export interface CrackedState {
   /** Service moment M_a of each span (largest magnitude, signed + sagging), N*mm. */
   serviceMomentNmm: number[];
   converged: boolean;
+}
+
+/**
+ * One arrangement of a member's variable loads (pattern loading): the split that solves each
+ * variable case once per pattern group (solve-member.ts PatternSplit) and, per variable case,
+ * the spans whose loads are present (CheckResult.loadedSpans). A split case not named keeps all
+ * of its loads.
+ */
+export interface LoadArrangement {
+  split: PatternSplit;
+  loadedSpans: Readonly<Record<string, readonly number[]>>;
+}
+
+/**
+ * Case factors by name (createCaseFactors) with the parts of a split case that lie on unloaded
+ * pattern groups set to zero: the variable loads clipped to the arrangement's loaded spans, by the
+ * solver's own rule for which loads fall on which span.
+ */
+export function createArrangedFactors(solution: MemberSolution, factorsByCase: Record<string, number>, arrangement: LoadArrangement | undefined): CaseFactors {
+  const factors = createCaseFactors(solution, factorsByCase);
+  if (arrangement === undefined) return factors;
+  for (let c = 0; c < factors.length; c++) {
+    const group = solution.casePatternGroup[c] as number;
+    const spans = group < 0 ? undefined : arrangement.loadedSpans[solution.caseNames[c] as string];
+    if (spans === undefined) continue;
+    let loaded = false;
+    for (const span of spans) if (arrangement.split.groupOfSpan[span] === group) loaded = true;
+    if (!loaded) factors[c] = 0;
+  }
+  return factors;
 }
 
 /** The member with each span's I replaced (everything else shared, not copied). */
@@ -92,21 +122,22 @@ function getLargestRelativeChange(a: readonly number[], b: readonly number[]): n
  * I_e in every reinforced span: start at the given I (I_g), solve, take each span's largest
  * moment, recompute I_e, and repeat until no I_e changes by more than CRACKED_TOLERANCE. Without
  * convergence in MAX_CRACKED_ITERATIONS solves, each span takes the lower I of the last two
- * iterates (the softer, conservative side) and converged is false.
+ * iterates (the softer, conservative side) and converged is false. With `arrangement`, the
+ * variable loads are clipped to its loaded spans (createArrangedFactors).
  */
-export function solveCrackedState(member: Member, stateFactors: Record<string, number>): CrackedState {
+export function solveCrackedState(member: Member, stateFactors: Record<string, number>, arrangement?: LoadArrangement): CrackedState {
   let inertia = member.spans.map((span) => span.iMm4);
   const moments = member.spans.map(() => 0);
   for (let iteration = 1; iteration <= MAX_CRACKED_ITERATIONS; iteration++) {
-    const solution = solveValidatedMember(createMemberWithInertia(member, inertia));
-    const factors = createCaseFactors(solution, stateFactors);
+    const solution = solveValidatedMember(createMemberWithInertia(member, inertia), arrangement?.split);
+    const factors = createArrangedFactors(solution, stateFactors, arrangement);
     const next = getNextInertia(member, solution, factors, inertia, moments);
     if (getLargestRelativeChange(inertia, next) <= CRACKED_TOLERANCE) return { solution, factors, inertiaMm4: inertia, serviceMomentNmm: moments, converged: true };
     if (iteration === MAX_CRACKED_ITERATIONS) inertia = inertia.map((value, index) => Math.min(value, next[index] as number));
     else inertia = next;
   }
-  const solution = solveValidatedMember(createMemberWithInertia(member, inertia));
-  const factors = createCaseFactors(solution, stateFactors);
+  const solution = solveValidatedMember(createMemberWithInertia(member, inertia), arrangement?.split);
+  const factors = createArrangedFactors(solution, stateFactors, arrangement);
   getNextInertia(member, solution, factors, inertia, moments);
   return { solution, factors, inertiaMm4: inertia, serviceMomentNmm: moments, converged: false };
 }

@@ -3,7 +3,7 @@ import { getGoverningCheck, getMemberGoverningCheck } from "../checks/evaluate-c
 import type { MemberEvaluation } from "../checks/evaluate-member";
 import { computeFrequency } from "../frequency";
 import type { DeflectionTerm } from "./combined-deflection";
-import { amplifyCrackedChecksForPatterns, CRACKED_PATTERN_NOTE } from "./cracked-patterns";
+import { applyCrackedPatterns, CRACKED_PATTERN_NOTE } from "./cracked-patterns";
 import { describeCrackedEvaluation, evaluateCrackedDeflectionChecks, PERMANENT_CASE_FACTORS } from "./cracked-evaluation";
 import { createMemberWithInertia, hasReinforcedSpan, solveCrackedState } from "./cracked-state";
 
@@ -32,20 +32,17 @@ function getFrequencyMember(member: Member, profile: LimitProfile): Member {
   return createMemberWithInertia(member, solveCrackedState(member, levels).inertiaMm4);
 }
 
-/** Said on cracked members with springs: their checks do not yet also judge the chord deflection. */
-export const CRACKED_SPRING_NOTE =
-  "cracked concrete on spring supports: judged on the total deflection only, not also on the deflection from the chord between supports as other members are; an overhang's tip relative to its support can be larger: check it by hand";
-
 /**
  * Solves and checks a validated member with reinforced concrete spans: every combination with
- * cracked, load-dependent I_e (cracked-evaluation.ts), rotations, the frequency with I_e under the
- * vibrating mass. `solution` and `combinationFactors` are those of each combination's total load
+ * cracked, load-dependent I_e (cracked-evaluation.ts; on springs judged from the chord and in
+ * total, as other members), pattern loading (cracked-patterns.ts), rotations, the frequency with
+ * I_e under the vibrating mass. `solution` and `combinationFactors` are those of each combination's total load
  * level (the first term), kept for callers that read one solution; the deflections are the
  * weighted sums in cracked.combinationTerms.
  */
 export function evaluateCrackedMember(member: Member, profile: LimitProfile): CrackedMemberEvaluation {
   const evaluation = evaluateCrackedDeflectionChecks(member, profile);
-  const patterned = amplifyCrackedChecksForPatterns(member, profile, evaluation.checks);
+  const patterned = applyCrackedPatterns(member, profile, evaluation.checks, evaluation.solveState);
   const checks = patterned ?? evaluation.checks;
   const governing = getGoverningCheck(checks);
   const frequency = computeFrequency(getFrequencyMember(member, profile), profile);
@@ -62,6 +59,6 @@ export function evaluateCrackedMember(member: Member, profile: LimitProfile): Cr
     frequency,
     pass,
     combinationFactors: evaluation.combinationTerms.map((terms) => terms[0]!.factors),
-    cracked: { combinationTerms: evaluation.combinationTerms, notes: [...describeCrackedEvaluation(member, evaluation), ...(patterned === null ? [] : [CRACKED_PATTERN_NOTE]), ...(member.supports.some((support) => support.kind === "spring") ? [CRACKED_SPRING_NOTE] : [])] },
+    cracked: { combinationTerms: evaluation.combinationTerms, notes: [...describeCrackedEvaluation(member, evaluation), ...(patterned === null ? [] : [CRACKED_PATTERN_NOTE])] },
   };
 }
