@@ -157,7 +157,9 @@ function formatTable(outcome: Extract<CheckScheduleResult, { ok: true }>): strin
     for (const note of r.notes ?? []) out.push(`${r.mark}: ${note}`);
     if (r.frequency && !r.frequency.pass) out.push(`${r.mark}: first frequency ${r.frequency.hz.toFixed(2)} Hz is below ${r.frequency.minHz} Hz`);
     if (r.suggestion) {
-      out.push(`${r.mark}: needs I >= ${formatMinimumI(r.suggestion.minIMm4, schedule.unitSystem)}${r.suggestion.sectionName ? `; lightest passing catalogue section ${r.suggestion.sectionName}` : ""}`);
+      const section = r.suggestion.sectionName ? `lightest passing catalogue section ${r.suggestion.sectionName}` : "";
+      // a null minimum I (no I passes) is explained in the member's notes
+      out.push(r.suggestion.minIMm4 === null ? `${r.mark}: no minimum I; ${section}` : `${r.mark}: needs I >= ${formatMinimumI(r.suggestion.minIMm4, schedule.unitSystem)}${section ? `; ${section}` : ""}`);
     }
     for (const note of r.notes ?? []) out.push(`${r.mark}: ${note}`);
   }

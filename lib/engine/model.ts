@@ -277,8 +277,11 @@ export interface MemberResult {
   rotations: RotationResult[];
   frequency: FrequencyResult | null;
   pass: boolean;
-  /** Only for a failing member. */
-  suggestion: { minIMm4: number; sectionName: string | null } | null;
+  /**
+   * Only for a failing member. minIMm4 is null when no uniform I passes (a note says why);
+   * the suggestion is null when neither a minimum I nor a passing catalogue section exists.
+   */
+  suggestion: { minIMm4: number | null; sectionName: string | null } | null;
   /** The sampled deflected shape, only when checkMember was asked for it. */
   shape?: ShapeSample[];
   /**

@@ -7,8 +7,11 @@ export interface SectionSuggestion {
   /**
    * Second moment (mm^4), the same in every span, at which the member passes and 1 - 1e-9 times
    * which it fails; E, area (self-weight, mass), shear area and supports held (findMinimumI).
+   * Null when no I passes with those held (springs, shear deflection or a frequency on soft
+   * supports govern); a note then says why, and the catalogue is still searched, because a
+   * section brings its own area and shear area.
    */
-  minIMm4: number;
+  minIMm4: number | null;
   /** Lightest catalogue section (by massKgPerM) that passes in every span, null when none. */
   sectionName: string | null;
 }
@@ -194,25 +197,36 @@ function findLightestPassingSection(member: Member, profile: LimitProfile, catal
   return null;
 }
 
-/** The result text beside every minimum I: what the search held fixed. */
+/**
+ * Why no uniform I can make the member pass (findMinimumI returned null): the parts of the
+ * deflection or frequency that do not fall as I grows, those present on this member named.
+ */
+export function describeNoMinimumI(member: Member, profile: LimitProfile): string {
+  const causes: string[] = [];
+  if (member.supports.some((support) => support.kind === "spring")) causes.push("the settlement of the support springs");
+  if (member.includeShearDeformation === true) causes.push("the shear deflection");
+  if (profile.frequency !== undefined) causes.push("the frequency, bounded by the supports and the mass");
+  const because = causes.length === 0 ? "the part of the deflection that does not fall as I grows" : causes.join(" and ");
+  return `No minimum I exists: even ${MAX_I_GROWTH} times the current second moment of area fails, because ${because} alone exceeds the limit with the area, shear area and supports held; stiffen the supports, increase the shear area or shorten the span.`;
+}
+
 /**
  * Resizing advice for a failing, validated member: the minimum uniform I (findMinimumI: only I
  * changes, area and self-weight held) and the lightest passing catalogue section (when a
- * catalogue is given; each section's own area and self-weight). What the minimum I holds fixed
- * (E, area, shear area, supports) is stated once, in the result schema and on the member page,
- * not repeated per member; when no I can pass (the springs or the shear deflection alone exceed a
- * limit) the suggestion is null and a note says why.
+ * catalogue is given; each section's own area, shear area and self-weight). What the minimum I
+ * holds fixed (E, area, shear area, supports) is stated once, in the result schema and on the
+ * member page, not repeated per member. When no I can pass, minIMm4 is null and a note says why
+ * (describeNoMinimumI); the catalogue is searched all the same, and the suggestion is null only
+ * when neither a minimum I nor a passing section exists.
  */
 export function suggestResize(member: Member, profile: LimitProfile, current: MemberEvaluation, catalogue?: CatalogueSection[]): SuggestionOutcome {
-  const minIMm4 = findMinimumI(member, profile, current);
-  if (minIMm4 === null || !Number.isFinite(minIMm4)) {
-    return {
-      suggestion: null,
-      notes: [`No practical second moment of area makes this member pass (even ${MAX_I_GROWTH} times the current one fails): the support springs, the shear deflection or the frequency on soft supports govern; stiffen the supports, increase the shear area or shorten the span.`],
-    };
-  }
-  const sectionName = catalogue === undefined || catalogue.length === 0 ? null : findLightestPassingSection(member, profile, catalogue);
+  const found = findMinimumI(member, profile, current);
+  const minIMm4 = found !== null && Number.isFinite(found) ? found : null;
+  const hasCatalogue = catalogue !== undefined && catalogue.length > 0;
+  const sectionName = hasCatalogue ? findLightestPassingSection(member, profile, catalogue) : null;
   const notes: string[] = [];
-  if (catalogue !== undefined && catalogue.length > 0 && sectionName === null) notes.push("No catalogue section passes.");
+  if (minIMm4 === null) notes.push(describeNoMinimumI(member, profile));
+  if (hasCatalogue && sectionName === null) notes.push("No catalogue section passes.");
+  if (minIMm4 === null && sectionName === null) return { suggestion: null, notes };
   return { suggestion: { minIMm4, sectionName }, notes };
 }

@@ -49,8 +49,8 @@ describe("minimum I", () => {
   it("a failing member gets I x utilization, the I at which the governing check is exactly 1", () => {
     const result = checkMember(createWeakBeam(1e8), profile);
     expect(result.pass).toBe(false);
-    expectRelative(result.suggestion!.minIMm4, expectedMinI);
-    const resized = checkMember(createWeakBeam(result.suggestion!.minIMm4), profile);
+    expectRelative(result.suggestion!.minIMm4!, expectedMinI);
+    const resized = checkMember(createWeakBeam(result.suggestion!.minIMm4!), profile);
     expectRelative(resized.governing!.utilization, 1, 1e-12);
   });
 
@@ -66,7 +66,7 @@ describe("minimum I", () => {
       { kind: "uniform", loadCase: "dead", wNPerMm: 4 },
       { kind: "uniform", loadCase: "live", wNPerMm: w },
     ]);
-    expectRelative(checkMember(member, profile).suggestion!.minIMm4, expectedMinI);
+    expectRelative(checkMember(member, profile).suggestion!.minIMm4!, expectedMinI);
   });
 
   it("with shear deformation: I = 5wL^4 / (384 E (allowed - wL^2/(8kGA)))", () => {
@@ -75,7 +75,7 @@ describe("minimum I", () => {
     const kGA = 77_000 * 800;
     const member = createWeakBeam(1e8, { includeShearDeformation: true }, [{ lengthMm: L, eMpa: E_MPA, iMm4: 1e8, gMpa: 77_000, shearAreaMm2: 800 }]);
     const getRequiredIWithShear = (wLoad: number, ratio: number): number => (5 * wLoad * L ** 4) / (384 * E_MPA * (L / ratio - (wLoad * L * L) / (8 * kGA)));
-    expectRelative(checkMember(member, profile).suggestion!.minIMm4, Math.max(getRequiredIWithShear(w, 360), getRequiredIWithShear(14, 240)), 1e-9);
+    expectRelative(checkMember(member, profile).suggestion!.minIMm4!, Math.max(getRequiredIWithShear(w, 360), getRequiredIWithShear(14, 240)), 1e-9);
   });
 
   it("when shear deflection alone exceeds the limit no I passes: no suggestion and a note", () => {
@@ -86,14 +86,34 @@ describe("minimum I", () => {
     expect(result.notes?.[0]).toMatch(/shear/);
   });
 
+  it("no I passes, yet the catalogue is searched: minimum I null, a note why, and the lightest section whose own shear area passes", () => {
+    // shear area 1 mm^2: the shear deflection wL^2/(8 kGA) (Timoshenko and Gere, from memory) alone
+    // is far beyond l/360 whatever I is; a catalogue section brings its own shear area
+    const G_MPA = 77_000;
+    const member = createWeakBeam(1e8, { includeShearDeformation: true }, [{ lengthMm: L, eMpa: E_MPA, iMm4: 1e8, gMpa: G_MPA, shearAreaMm2: 1 }]);
+    const deflectionMm = (wLoad: number, section: CatalogueSection): number => (5 * wLoad * L ** 4) / (384 * E_MPA * section.iMm4) + (wLoad * L * L) / (8 * G_MPA * section.shearAreaMm2!);
+    // passes when both live (l/360) and dead + live (l/240) are within their limits (IBC 2021 Table 1604.3, from memory)
+    const passes = (section: CatalogueSection): boolean => deflectionMm(w, section) <= L / 360 && deflectionMm(14, section) <= L / 240;
+    const sheared: CatalogueSection[] = [
+      { name: "TEST-S 300x40", iMm4: 1.1e8, areaMm2: 5100, massKgPerM: 40.0, shearAreaMm2: 2400 },
+      { name: "TEST-S 350x52", iMm4: expectedMinI * 1.05, areaMm2: 6600, massKgPerM: 51.8, shearAreaMm2: 3000 },
+      { name: "TEST-S 400x60", iMm4: 3.2e8, areaMm2: 7600, massKgPerM: 59.7, shearAreaMm2: 3600 },
+    ];
+    expect(sheared.map(passes)).toEqual([false, true, true]);
+    const result = checkMember(member, profile, sheared);
+    expect(result.pass).toBe(false);
+    expect(result.suggestion).toEqual({ minIMm4: null, sectionName: "TEST-S 350x52" });
+    expect(result.notes?.[0]).toMatch(/^No minimum I exists: .*the shear deflection/);
+  });
+
   it("a frequency-governed simple span needs I = m (2 f L^2 / pi)^2 / E (Blevins Table 8-1, from memory)", () => {
     const vibration: LimitProfile = { ...profile, combinations: [], frequency: { minHz: 8, massFactors: { dead: 1 } } };
     const result = checkMember(createWeakBeam(1e8), vibration);
     expect(result.pass).toBe(false);
     // f = pi / (2 L^2) sqrt(EI / m) solved for I; EI/m in N mm^2 / (kg/mm) = 1000 mm^4/s^2
     const massKgPerMm = 4 / STANDARD_GRAVITY_M_PER_S2;
-    expectRelative(result.suggestion!.minIMm4, ((2 * 8 * L * L) / Math.PI) ** 2 * massKgPerMm / (1000 * E_MPA), 1e-9);
-    expectRelative(checkMember(createWeakBeam(result.suggestion!.minIMm4), vibration).frequency!.hz, 8, 1e-9);
+    expectRelative(result.suggestion!.minIMm4!, ((2 * 8 * L * L) / Math.PI) ** 2 * massKgPerMm / (1000 * E_MPA), 1e-9);
+    expectRelative(checkMember(createWeakBeam(result.suggestion!.minIMm4!), vibration).frequency!.hz, 8, 1e-9);
     // the basis of the minimum I is stated in the result schema and on the member page, not per member
     expect(result.notes).toBeUndefined();
   });
@@ -159,11 +179,11 @@ describe("minimum I where deflection does not scale with 1/I", () => {
   it("springs: I = 5wL^4 / (384 E (l/360 - wL/(2k))), and it passes when rechecked", () => {
     const result = checkMember(onSprings(5e7), liveOnly);
     expect(result.pass).toBe(false);
-    expectRelative(result.suggestion!.minIMm4, springMinI, 1e-8);
-    const rechecked = checkMember(onSprings(result.suggestion!.minIMm4), liveOnly);
+    expectRelative(result.suggestion!.minIMm4!, springMinI, 1e-8);
+    const rechecked = checkMember(onSprings(result.suggestion!.minIMm4!), liveOnly);
     // before the bracketed search, I x utilization left this at 1.03
     expect(rechecked.pass).toBe(true);
-    expect(checkMember(onSprings(0.99 * result.suggestion!.minIMm4), liveOnly).pass).toBe(false);
+    expect(checkMember(onSprings(0.99 * result.suggestion!.minIMm4!), liveOnly).pass).toBe(false);
     // the basis of the minimum I is stated in the result schema and on the member page, not per member
     expect(result.notes).toBeUndefined();
   });
@@ -189,10 +209,10 @@ describe("minimum I where deflection does not scale with 1/I", () => {
       else lo = mid;
     }
     // the engine's frequency errs low by at most 0.1 %, so its minimum I errs high by about twice that
-    expect(result.suggestion!.minIMm4).toBeGreaterThanOrEqual(hi * (1 - 1e-4));
-    expect(result.suggestion!.minIMm4).toBeLessThan(hi * (1 + 3e-3));
-    expect(checkMember(onSprings(result.suggestion!.minIMm4), vibration).pass).toBe(true);
-    expect(checkMember(onSprings(0.99 * result.suggestion!.minIMm4), vibration).pass).toBe(false);
+    expect(result.suggestion!.minIMm4!).toBeGreaterThanOrEqual(hi * (1 - 1e-4));
+    expect(result.suggestion!.minIMm4!).toBeLessThan(hi * (1 + 3e-3));
+    expect(checkMember(onSprings(result.suggestion!.minIMm4!), vibration).pass).toBe(true);
+    expect(checkMember(onSprings(0.99 * result.suggestion!.minIMm4!), vibration).pass).toBe(false);
   });
 
   it("lightest section on springs with self-weight: the closed form picks it, every lighter one fails", () => {
@@ -273,7 +293,7 @@ describe("minimum I on random members (springs, creep, shear deformation, freque
       } catch {
         continue; // a mechanism: not a member the engine accepts
       }
-      if (result.pass || result.suggestion === null) continue;
+      if (result.pass || result.suggestion === null || result.suggestion.minIMm4 === null) continue;
       const minI = result.suggestion.minIMm4;
       const atI = (iMm4: number): Member => ({ ...member, spans: member.spans.map((span) => ({ ...span, iMm4 })) });
       expect(checkMember(atI(minI), randomProfile).pass).toBe(true);
