@@ -1,16 +1,25 @@
 import type { Combination, InputIssue, LimitProfile, Member } from "../model";
 import { isFiniteNumber, isPositiveFinite } from "../solver/validate-member";
 
-function collectFactorIssues(factors: Record<string, number> | undefined, parentPath: string, field: string, issues: InputIssue[]): void {
+/**
+ * The path of a combination's field. Built only for an issue: profile validation runs for every
+ * member, and building each path up front cost a measurable share of a single-span check.
+ */
+function getCombinationPath(index: number, field: string): string {
+  return `combinations[${index}].${field}`;
+}
+
+/** `parent`: the combination's index, or the path of the object holding the factors. */
+function collectFactorIssues(factors: Record<string, number> | undefined, parent: number | string, field: string, issues: InputIssue[]): void {
   if (factors === undefined) return;
   if (typeof factors !== "object" || factors === null) {
-    issues.push({ path: `${parentPath}.${field}`, message: "factors must be an object of load case name to number" });
+    issues.push({ path: typeof parent === "number" ? getCombinationPath(parent, field) : `${parent}.${field}`, message: "factors must be an object of load case name to number" });
     return;
   }
   for (const name in factors) {
     const value = factors[name];
     // the path is built only for a bad value: this runs for every member
-    if (!isFiniteNumber(value)) issues.push({ path: `${parentPath}.${field}.${name}`, message: "factor must be a finite number" });
+    if (!isFiniteNumber(value)) issues.push({ path: `${typeof parent === "number" ? getCombinationPath(parent, field) : `${parent}.${field}`}.${name}`, message: "factor must be a finite number" });
   }
 }
 
@@ -45,24 +54,23 @@ export function collectProfileIssues(profile: LimitProfile, member: Member): Inp
   const combinations = profile.combinations;
   for (let index = 0; index < combinations.length; index++) {
     const combination = combinations[index]!;
-    const path = `combinations[${index}]`;
-    if (typeof combination.id !== "string" || combination.id === "") issues.push({ path: `${path}.id`, message: "a combination needs an id" });
-    else if (hasEarlierId(combinations, index)) issues.push({ path: `${path}.id`, message: `duplicate combination id "${combination.id}"` });
-    if (!isPositiveFinite(combination.limitRatio)) issues.push({ path: `${path}.limitRatio`, message: "the limit ratio (span / N) must be a positive finite number" });
-    if (combination.capMm !== undefined && !isPositiveFinite(combination.capMm)) issues.push({ path: `${path}.capMm`, message: "the deflection cap must be a positive finite number (mm)" });
-    collectFactorIssues(combination.factors, path, "factors", issues);
-    collectFactorIssues(combination.sustainedFactors, path, "sustainedFactors", issues);
+    if (typeof combination.id !== "string" || combination.id === "") issues.push({ path: getCombinationPath(index, "id"), message: "a combination needs an id" });
+    else if (hasEarlierId(combinations, index)) issues.push({ path: getCombinationPath(index, "id"), message: `duplicate combination id "${combination.id}"` });
+    if (!isPositiveFinite(combination.limitRatio)) issues.push({ path: getCombinationPath(index, "limitRatio"), message: "the limit ratio (span / N) must be a positive finite number" });
+    if (combination.capMm !== undefined && !isPositiveFinite(combination.capMm)) issues.push({ path: getCombinationPath(index, "capMm"), message: "the deflection cap must be a positive finite number (mm)" });
+    collectFactorIssues(combination.factors, index, "factors", issues);
+    collectFactorIssues(combination.sustainedFactors, index, "sustainedFactors", issues);
     if (combination.cantileverLimitRatio !== undefined && !isPositiveFinite(combination.cantileverLimitRatio)) {
-      issues.push({ path: `${path}.cantileverLimitRatio`, message: "the cantilever limit ratio (length / N) must be a positive finite number" });
+      issues.push({ path: getCombinationPath(index, "cantileverLimitRatio"), message: "the cantilever limit ratio (length / N) must be a positive finite number" });
     }
     if (combination.creep === "material") {
-      if (member.materialCreepFactor === undefined) issues.push({ path: `${path}.creep`, message: `combination "${combination.id}" uses the material's creep factor but the member has no materialCreepFactor` });
+      if (member.materialCreepFactor === undefined) issues.push({ path: getCombinationPath(index, "creep"), message: `combination "${combination.id}" uses the material's creep factor but the member has no materialCreepFactor` });
     } else if (combination.creep === "ibc_creep_component") {
       if (!(isFiniteNumber(member.ibcCreepComponentFactor) && member.ibcCreepComponentFactor >= 0)) {
-        issues.push({ path: `${path}.creep`, message: `combination "${combination.id}" uses the IBC 2021 Table 1604.3 creep component but the member has no ibcCreepComponentFactor (a finite number >= 0)` });
+        issues.push({ path: getCombinationPath(index, "creep"), message: `combination "${combination.id}" uses the IBC 2021 Table 1604.3 creep component but the member has no ibcCreepComponentFactor (a finite number >= 0)` });
       }
     } else if (combination.creep !== undefined && !(isFiniteNumber(combination.creep) && combination.creep >= 0)) {
-      issues.push({ path: `${path}.creep`, message: "creep factor must be \"material\", \"ibc_creep_component\" or a finite number >= 0" });
+      issues.push({ path: getCombinationPath(index, "creep"), message: "creep factor must be \"material\", \"ibc_creep_component\" or a finite number >= 0" });
     }
   }
   if (profile.patternLoads !== undefined && typeof profile.patternLoads !== "boolean") issues.push({ path: "patternLoads", message: "patternLoads must be true or false" });
