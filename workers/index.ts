@@ -8,6 +8,7 @@ import { warmUpScheduleChecks } from "@/lib/server/schedules/warm-up";
 
 import { createWorkerConnection } from "./connection";
 import { runJob } from "./define-job";
+import { closeEnginePool } from "./jobs/check-members.job";
 import { closeQueues } from "./queues";
 import { jobDefinitions } from "./registry";
 import { startPeriodicTasks } from "./periodic";
@@ -45,6 +46,7 @@ async function shutdown(signal: string) {
   console.log(`[worker] ${signal}: finishing in-flight jobs`);
   stopPeriodic();
   await Promise.all(workers.map((w) => w.close()));
+  await closeEnginePool();
   await closeQueues();
   await closeDb();
   process.exit(0);
