@@ -10,8 +10,11 @@ import type { EngineTask, EngineReply } from "./engine-messages";
 if (!parentPort) throw new Error("engine-thread.ts runs only as a worker thread");
 const port = parentPort;
 
+// Each thread warms its own copy of the engine (the main thread no longer runs it).
 try {
+  const started = performance.now();
   warmUpScheduleChecks();
+  console.log(`[worker] engine thread warmed up in ${Math.round(performance.now() - started)} ms`);
 } catch (error) {
   console.error("[worker] engine thread warm-up failed", error);
 }

@@ -9,8 +9,8 @@ import { queueNames } from "../queues";
 const CHECK_CONCURRENCY_DEFAULT = 4;
 let enginePool: EnginePool | undefined;
 
-/** One engine thread per check job this process runs at once, started with the first job. */
-function getEnginePool(): EnginePool {
+/** One engine thread per check job this process runs at once; workers/index.ts starts them at start, so they warm up before the first job. */
+export function getEnginePool(): EnginePool {
   enginePool ??= createEnginePool(Number(process.env.CHECK_CONCURRENCY ?? CHECK_CONCURRENCY_DEFAULT));
   return enginePool;
 }
