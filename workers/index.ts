@@ -4,22 +4,16 @@ import { Worker } from "bullmq";
 
 import { closeDb } from "@/db/client";
 import { getEnv } from "@/lib/env";
-import { warmUpScheduleChecks } from "@/lib/server/schedules/warm-up";
 
 import { createWorkerConnection } from "./connection";
 import { runJob } from "./define-job";
+import { closeEnginePool, getEnginePool } from "./jobs/check-members.job";
 import { closeQueues } from "./queues";
 import { jobDefinitions } from "./registry";
 import { startPeriodicTasks } from "./periodic";
 
 const env = getEnv();
-try {
-  const started = performance.now();
-  warmUpScheduleChecks();
-  console.log(`[worker] schedule checks warmed up in ${Math.round(performance.now() - started)} ms`);
-} catch (error) {
-  console.error("[worker] schedule check warm-up failed", error);
-}
+getEnginePool();
 const workers = jobDefinitions.map((definition) => {
   const concurrency = Number(process.env[definition.concurrency.env] ?? definition.concurrency.default);
   const worker = new Worker(definition.queue, (job) => runJob(definition, job), {
@@ -45,6 +39,7 @@ async function shutdown(signal: string) {
   console.log(`[worker] ${signal}: finishing in-flight jobs`);
   stopPeriodic();
   await Promise.all(workers.map((w) => w.close()));
+  await closeEnginePool();
   await closeQueues();
   await closeDb();
   process.exit(0);

@@ -50,19 +50,34 @@ export function createDrill(name: string) {
   return { prefix, startWorker, killHard, killAll };
 }
 
+export type DrillScheduleInput = {
+  markPrefix: string;
+  memberCount: number;
+  label: string;
+  /** Members per chunk (100 unless set; production's 2,000 for the fairness drill). */
+  chunkSize?: number;
+  organizationId?: string;
+  /** The members, when not the default simply supported beams. */
+  members?: unknown[];
+};
+
 /**
  * Submits a drill schedule of simply supported beams (marks `${markPrefix}-0`, ...) straight to the
  * intake, in 100-member chunks on the drill's queue prefix. Both are set before submit-schedule is
- * first imported, because it reads the chunk size and the queues read the prefix when they load.
- * Returns the schedule id.
+ * first imported, because it reads the chunk size and the queues read the prefix when they load
+ * (so one test file uses one chunk size). Returns the schedule id.
  */
-export async function submitDrillSchedule(drill: { prefix: string }, input: { markPrefix: string; memberCount: number; label: string }): Promise<string> {
+export async function submitDrillSchedule(drill: { prefix: string }, input: DrillScheduleInput): Promise<string> {
   process.env.REDIS_PREFIX = drill.prefix;
-  process.env.CHECK_CHUNK_SIZE = "100";
+  process.env.CHECK_CHUNK_SIZE = String(input.chunkSize ?? 100);
   const { submitSchedule } = await import("@/lib/server/schedules/submit-schedule");
-  const members = Array.from({ length: input.memberCount }, (_, i) => createBeam(`${input.markPrefix}-${i}`, 3 + (i % 7), 5 + (i % 5)));
+  const members = input.members ?? createDrillBeams(input.markPrefix, input.memberCount);
   const doc = createScheduleDoc(members, `${input.label} ${drill.prefix}`);
-  return (await submitSchedule({ organizationId: demoOrganizations.engineering.id, source: "api-json", doc })).id;
+  return (await submitSchedule({ organizationId: input.organizationId ?? demoOrganizations.engineering.id, source: "api-json", doc })).id;
+}
+
+export function createDrillBeams(markPrefix: string, memberCount: number) {
+  return Array.from({ length: memberCount }, (_, i) => createBeam(`${markPrefix}-${i}`, 3 + (i % 7), 5 + (i % 5)));
 }
 
 export async function getScheduleProgress(id: string) {
@@ -80,6 +95,13 @@ export async function waitForProgress(id: string, test: (p: Awaited<ReturnType<t
     if (Date.now() > deadline) throw new Error(`schedule ${id}: ${JSON.stringify(progress)}`);
     await new Promise((r) => setTimeout(r, 300));
   }
+}
+
+/** Waits for the schedule to reach a final state; resolves with the status and the seconds it took from `sinceMs`. */
+export async function waitForFinalState(id: string, timeoutMs: number) {
+  const progress = await waitForProgress(id, (p) => p.status === "completed" || p.status === "failed", timeoutMs);
+  const [row] = await getSql()`select extract(epoch from completed_at - created_at)::float8 as seconds from schedules where id = ${id}`;
+  return { ...progress, seconds: row!.seconds as number };
 }
 
 /** Exactly one outcome per member and one row per member and check. */

@@ -3,11 +3,27 @@ import { z } from "zod";
 import { checkChunk } from "@/lib/server/schedules/check-chunk";
 
 import { defineJob } from "../define-job";
+import { createEnginePool, type EnginePool } from "../engine/engine-pool";
 import { queueNames } from "../queues";
+
+const CHECK_CONCURRENCY_DEFAULT = 4;
+let enginePool: EnginePool | undefined;
+
+/** One engine thread per check job this process runs at once; workers/index.ts starts them at start, so they warm up before the first job. */
+export function getEnginePool(): EnginePool {
+  enginePool ??= createEnginePool(Number(process.env.CHECK_CONCURRENCY ?? CHECK_CONCURRENCY_DEFAULT));
+  return enginePool;
+}
+
+export async function closeEnginePool(): Promise<void> {
+  const pool = enginePool;
+  enginePool = undefined;
+  await pool?.close();
+}
 
 export const checkMembersJob = defineJob({
   queue: queueNames.checkMembers,
-  concurrency: { env: "CHECK_CONCURRENCY", default: 4 },
+  concurrency: { env: "CHECK_CONCURRENCY", default: CHECK_CONCURRENCY_DEFAULT },
   payload: z.object({ scheduleId: z.string().regex(/^sch_[0-9a-z]+$/), chunkIndex: z.number().int().min(0) }),
-  handle: ({ scheduleId, chunkIndex }) => checkChunk(scheduleId, chunkIndex),
+  handle: ({ scheduleId, chunkIndex }) => checkChunk(scheduleId, chunkIndex, getEnginePool().checkMembers),
 });

@@ -28,12 +28,17 @@ export function checkMembers(header: Record<string, unknown>, firstMember: numbe
   });
 }
 
+/** Runs checkMembers over a chunk's stored JSON text: inline, or on an engine thread (workers/engine). */
+export type ChunkChecker = (header: Record<string, unknown>, firstMember: number, membersJson: string) => Outcome[] | Promise<Outcome[]>;
+
+const checkMembersInline: ChunkChecker = (header, firstMember, membersJson) => checkMembers(header, firstMember, JSON.parse(membersJson) as unknown[]);
+
 /**
  * Checks one chunk of a schedule and stores its results. Safe to run twice or to be killed at any
  * point: results, the chunk's done flag and the schedule's progress commit in one transaction,
  * and a chunk already done is skipped, so no result is ever lost or doubled.
  */
-export async function checkChunk(scheduleId: string, chunkIndex: number): Promise<"checked" | "skipped"> {
+export async function checkChunk(scheduleId: string, chunkIndex: number, runChecks: ChunkChecker = checkMembersInline): Promise<"checked" | "skipped"> {
   const sql = getSql();
   const [chunk] = await sql`
     update schedule_chunks c set attempts = attempts + 1
@@ -51,7 +56,7 @@ export async function checkChunk(scheduleId: string, chunkIndex: number): Promis
   // Only the first chunks see "queued": the rest leave the schedule's row alone.
   if (chunk.status === "queued") await sql`update schedules set status = 'checking', updated_at = now() where id = ${scheduleId} and status = 'queued'`;
 
-  const outcomes = checkMembers(chunk.header as Record<string, unknown>, chunk.first_member as number, JSON.parse(chunk.members as string) as unknown[]);
+  const outcomes = await runChecks(chunk.header as Record<string, unknown>, chunk.first_member as number, chunk.members as string);
 
   const passed = outcomes.filter((o) => o.result?.pass).length;
   const errored = outcomes.filter((o) => o.error !== null).length;
