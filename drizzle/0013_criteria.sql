@@ -41,7 +41,7 @@ CREATE TABLE "organization_materials" (
 	"family" text NOT NULL,
 	"e_mpa" double precision NOT NULL,
 	"g_mpa" double precision,
-	"density_kg_per_m_3" double precision,
+	"density_kg_per_m3" double precision,
 	"creep_factor" double precision,
 	"source" text NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,

@@ -107,7 +107,7 @@ export const organizationMaterials = pgTable(
     family: text({ enum: organizationMaterialFamilies }).notNull(),
     eMpa: doublePrecision().notNull(),
     gMpa: doublePrecision(),
-    densityKgPerM3: doublePrecision(),
+    densityKgPerM3: doublePrecision("density_kg_per_m3"),
     /** A fixed creep factor; null: the family's rule (metals none, timber from the member's creep). */
     creepFactor: doublePrecision(),
     source: text().notNull(),
