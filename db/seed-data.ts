@@ -30,3 +30,13 @@ export const demoApiKey = {
   secret: "sgl_DemoFernhollowTryTheSaglineApiGo1LDQlZ",
   scopes: ["schedules:write", "results:read"] as const,
 };
+
+/**
+ * The demo's section catalogue: invented plate girders (examples/catalogue-ostrovel-plate-girders.json),
+ * not any manufacturer's table. Its source says so wherever it is shown.
+ */
+export const demoCatalogue = {
+  name: "Ostrovel KPG plate girders (invented)",
+  source: "Invented for the Sagline demo (examples/catalogue-ostrovel-plate-girders.json); not a real product table, never use it for design",
+  file: "examples/catalogue-ostrovel-plate-girders.json",
+};

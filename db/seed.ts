@@ -7,6 +7,7 @@ import { demoApiKey, demoOrganizations, demoProject, demoUsers } from "./seed-da
 import { displayPrefixOf, hashApiKey } from "@/lib/server/api-keys/key-format";
 import { hashPassword } from "@/lib/server/auth/passwords";
 import { createId } from "@/lib/server/ids";
+import { seedDemoCatalogue } from "@/lib/server/criteria/seed-demo-catalogue";
 import { seedDemoEndpoint } from "@/lib/server/webhooks/seed-demo-endpoint";
 
 const db = getDb();
@@ -41,6 +42,7 @@ if (count > 0) {
 }
 
 await seedDemoEndpoint(db, demoOrganizations.engineering.id);
+await seedDemoCatalogue(demoOrganizations.engineering.id);
 
 if (process.argv.includes("--print")) {
   console.log("\nDemo sign-ins (invented people; change or remove them before real use):");

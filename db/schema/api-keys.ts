@@ -5,7 +5,7 @@ import { organizations } from "./organizations";
 import { users } from "./users";
 
 /** What an API key may do. The last two are administrative: ordinary integration keys lack them. */
-export const apiKeyScopes = ["schedules:write", "results:read", "webhooks:manage", "keys:manage"] as const;
+export const apiKeyScopes = ["schedules:write", "results:read", "webhooks:manage", "keys:manage", "criteria:manage"] as const;
 export type ApiKeyScope = (typeof apiKeyScopes)[number];
 
 /**

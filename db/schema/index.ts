@@ -6,3 +6,4 @@ export * from "./outbox";
 export * from "./webhooks";
 export * from "./api-keys";
 export * from "./reviews";
+export * from "./criteria";

@@ -141,7 +141,8 @@ export function getTeeGrossProperties(bfMm: number, hfMm: number, bwMm: number, 
   return { areaMm2, iMm4, centroidFromTopMm: centroid };
 }
 
-function normaliseSectionName(name: string): string {
+/** The key catalogue names are matched and kept unique on: case and spaces ignored ("W12x26" = "w12 X 26"). */
+export function normaliseSectionName(name: string): string {
   return name.trim().toLowerCase().replace(/\s+/g, "");
 }
 

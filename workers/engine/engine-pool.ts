@@ -3,6 +3,7 @@
 // one event loop. A thread that dies fails only its own task (the job retries) and is replaced.
 import { Worker } from "node:worker_threads";
 
+import type { ScheduleCriteria } from "@/lib/server/criteria/schedule-criteria";
 import type { Outcome } from "@/lib/server/schedules/check-chunk";
 
 import type { EngineReply, EngineTask } from "./engine-messages";
@@ -15,7 +16,7 @@ const threadUrl = new URL("./engine-thread-entry.mjs", import.meta.url);
 const MAX_FAILED_STARTS = 3;
 
 export type EnginePool = {
-  checkMembers: (header: Record<string, unknown>, firstMember: number, membersJson: string) => Promise<Outcome[]>;
+  checkMembers: (header: Record<string, unknown>, firstMember: number, membersJson: string, criteria: ScheduleCriteria | null) => Promise<Outcome[]>;
   close: () => Promise<void>;
 };
 
@@ -76,11 +77,11 @@ export function createEnginePool(size: number): EnginePool {
   for (let i = 0; i < Math.max(1, size); i++) slots.push(spawn());
 
   return {
-    checkMembers(header, firstMember, membersJson) {
+    checkMembers(header, firstMember, membersJson, criteria) {
       if (closed) return Promise.reject(new Error("engine pool closed"));
       if (broken) return Promise.reject(broken);
       return new Promise<Outcome[]>((resolve, reject) => {
-        waiting.push({ task: { taskId: nextTaskId++, header, firstMember, membersJson }, resolve, reject });
+        waiting.push({ task: { taskId: nextTaskId++, header, firstMember, membersJson, criteria }, resolve, reject });
         dispatch();
       });
     },

@@ -22,7 +22,7 @@ try {
 port.on("message", (task: EngineTask) => {
   let reply: EngineReply;
   try {
-    reply = { taskId: task.taskId, ok: true, outcomes: checkMembers(task.header, task.firstMember, JSON.parse(task.membersJson) as unknown[]) };
+    reply = { taskId: task.taskId, ok: true, outcomes: checkMembers(task.header, task.firstMember, JSON.parse(task.membersJson) as unknown[], task.criteria) };
   } catch (error) {
     reply = { taskId: task.taskId, ok: false, message: error instanceof Error ? error.message : String(error) };
   }

@@ -3,3 +3,4 @@ export type { ParseScheduleOptions, ParseScheduleResult, ParsedSchedule } from "
 export { MEMBER_CATEGORIES, MAX_SPANS_PER_MEMBER, type MemberOrigins } from "./read-member";
 export { MAX_LOADS_PER_MEMBER } from "./read-loads";
 export { CASE_NAME_PATTERN } from "./read-profile";
+export { parseLimitProfile, type ParseLimitProfileResult } from "./parse-limit-profile";

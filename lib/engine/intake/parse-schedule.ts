@@ -1,3 +1,4 @@
+import type { Material } from "../materials";
 import type { CatalogueSection, InputIssue, LimitProfile, Member } from "../model";
 import { listProfileLoadCases } from "../presets";
 import { createCatalogueIndex } from "../sections";
@@ -5,7 +6,7 @@ import type { UnitSystem } from "../units";
 import { readMember, type MemberOrigins } from "./read-member";
 import { readLimits } from "./read-profile";
 import { readUnits } from "./read-units";
-import { childPath, createFieldSpec, IssueCollector, joinPath, readObject, readString, type ReadContext } from "./read-values";
+import { childPath, createFieldSpec, IssueCollector, joinPath, readObject, readString, type OrganizationLookup, type ReadContext } from "./read-values";
 
 /** The public format's identifier; a breaking change gets a new one. */
 export const SCHEDULE_FORMAT = "sagline.schedule/v1";
@@ -16,6 +17,10 @@ const ROOT_SPEC = createFieldSpec(["format", "name", "reference", "notes", "unit
 export interface ParseScheduleOptions {
   /** Sections that `section: "name"` may refer to. */
   catalogue?: readonly CatalogueSection[];
+  /** The organization's own materials: a member's `material: "<id>"` finds them before the library. */
+  organizationMaterials?: OrganizationLookup<Material>;
+  /** The organization's limit profiles: `limits: { "profile": "<id>" }` resolves through it. */
+  organizationProfiles?: OrganizationLookup<LimitProfile>;
   /** Stop recording after this many issues (the count of the rest is reported). Default 1000. */
   maxIssues?: number;
   /**
@@ -59,6 +64,8 @@ export type ParseScheduleResult = { ok: true; schedule: ParsedSchedule } | { ok:
 export function parseSchedule(doc: unknown, options: ParseScheduleOptions = {}): ParseScheduleResult {
   const issues = new IssueCollector(options.maxIssues ?? DEFAULT_MAX_ISSUES);
   const ctx: ReadContext = { issues, units: { system: null, byKind: {} } };
+  if (options.organizationMaterials) ctx.organizationMaterials = options.organizationMaterials;
+  if (options.organizationProfiles) ctx.organizationProfiles = options.organizationProfiles;
   const root = readObject(ctx, doc, "", ROOT_SPEC);
   if (!root) return fail(issues);
   if (root.format !== undefined && root.format !== SCHEDULE_FORMAT) issues.add("format", `must be "${SCHEDULE_FORMAT}"`);

@@ -15,9 +15,11 @@ import {
 const CUSTOM_MATERIAL_SPEC = createFieldSpec(["name", "E", "G", "density", "creepFactor"], ["E"]);
 const CREEP_SPEC_FIELDS = createFieldSpec(["method", "serviceClass", "condition", "durationMonths", "compressionRatio", "factor"], ["method"]);
 
-/** A library id (string) or a custom material `{ name?, E, G?, density?, creepFactor? }`. */
+/** An organization material's id or a library id (string), or a custom material `{ name?, E, G?, density?, creepFactor? }`. */
 export function readMaterial(ctx: ReadContext, value: unknown, path: FieldPath): Material | null {
   if (typeof value === "string") {
+    const own = ctx.organizationMaterials?.get(value.trim());
+    if (own !== undefined) return own;
     const found = findMaterial(value);
     if (!found.ok) {
       ctx.issues.add(path, found.message);

@@ -64,7 +64,7 @@ const CUSTOM_PROFILE_SPEC = createFieldSpec(
 );
 const OVERRIDES_SPEC = createFieldSpec(["combinations", "cantileverSpanMultiplier", "frequency", "patternLoads", "variableCases"]);
 const MAX_VARIABLE_CASES = 20;
-const LIMITS_SPEC = createFieldSpec(["preset", "overrides", "custom", "sustainedLiveFraction"]);
+const LIMITS_SPEC = createFieldSpec(["preset", "overrides", "custom", "sustainedLiveFraction", "profile"]);
 
 /** Reads the editable parts of a combination onto `target` (used by custom profiles and overrides). */
 function readCombinationFields(ctx: ReadContext, source: JsonObject, path: FieldPath, target: Partial<Combination>): boolean {
@@ -148,7 +148,8 @@ function readFrequency(ctx: ReadContext, value: unknown, path: FieldPath, base: 
   return { minHz, massFactors };
 }
 
-function readCustomProfile(ctx: ReadContext, value: unknown, path: FieldPath): LimitProfile | null {
+/** Reads a custom profile (the `limits.custom` format); also validates an organization profile definition (parse-limit-profile.ts). */
+export function readCustomProfile(ctx: ReadContext, value: unknown, path: FieldPath): LimitProfile | null {
   const block = readObject(ctx, value, path, CUSTOM_PROFILE_SPEC);
   if (!block) return null;
   const id = readString(ctx, block.id, childPath(path, "id"), 64);
@@ -246,14 +247,33 @@ function readSustainedLiveFraction(ctx: ReadContext, value: unknown, path: Field
   return fraction;
 }
 
+/** `limits: { "profile": id }`: one of the organization's own profiles, as resolved by the caller. */
+function readOrganizationProfile(ctx: ReadContext, block: JsonObject, path: FieldPath): LimitProfile | null {
+  const profilePath = childPath(path, "profile");
+  if (Object.keys(block).length > 1) {
+    ctx.issues.add(path, "give profile alone: an organization profile cannot be combined with preset, overrides, custom or sustainedLiveFraction");
+    return null;
+  }
+  const id = readString(ctx, block.profile, profilePath, 64);
+  if (id === null) return null;
+  const found = ctx.organizationProfiles?.get(id);
+  if (found === undefined) {
+    ctx.issues.add(profilePath, `unknown limit profile "${id}": not one of this organization's profiles (Settings, Limit profiles)`);
+    return null;
+  }
+  return found;
+}
+
 /**
  * Reads `limits`: `{ "preset": id }`, `{ "preset": id, "overrides": {...} }` or
- * `{ "custom": profile }`; an ACI preset may add `sustainedLiveFraction`. Unknown preset ids
+ * `{ "custom": profile }`; an ACI preset may add `sustainedLiveFraction`; `{ "profile": id }` names
+ * an organization profile (ParseScheduleOptions.organizationProfiles). Unknown preset ids
  * list the known ones.
  */
 export function readLimits(ctx: ReadContext, value: unknown, path: FieldPath): LimitProfile | null {
   const block = readObject(ctx, value, path, LIMITS_SPEC);
   if (!block) return null;
+  if (block.profile !== undefined) return readOrganizationProfile(ctx, block, path);
   if (block.custom !== undefined) {
     if (block.preset !== undefined || block.overrides !== undefined || block.sustainedLiveFraction !== undefined) {
       ctx.issues.add(path, "give either custom, or preset with optional overrides (and sustainedLiveFraction), not both");

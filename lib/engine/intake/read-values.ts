@@ -3,7 +3,8 @@
  * naming the field's path when it is wrong, and returns null instead of guessing.
  */
 import { describeOutOfBounds } from "../input-bounds";
-import type { CatalogueSection, InputIssue } from "../model";
+import type { Material } from "../materials";
+import type { CatalogueSection, InputIssue, LimitProfile } from "../model";
 import { findUnit, QUANTITY_KIND_LABELS, type QuantityKind, type UnitSystem } from "../units";
 
 export type JsonObject = Record<string, unknown>;
@@ -53,9 +54,18 @@ export interface UnitDefaults {
   byKind: Partial<Record<QuantityKind, string>>;
 }
 
+/** A lookup by id of something the schedule's organization defines (a Map will do). */
+export interface OrganizationLookup<T> {
+  get(id: string): T | undefined;
+}
+
 export interface ReadContext {
   issues: IssueCollector;
   units: UnitDefaults;
+  /** The organization's own materials by id, found before the library ones (ParseScheduleOptions). */
+  organizationMaterials?: OrganizationLookup<Material>;
+  /** The organization's limit profiles by id, for `limits.profile` (ParseScheduleOptions). */
+  organizationProfiles?: OrganizationLookup<LimitProfile>;
 }
 
 /** A plain object (not null, not an array). */

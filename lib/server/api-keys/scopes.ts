@@ -11,6 +11,7 @@ export const scopeDescriptions: Record<ApiKeyScope, string> = {
   "results:read": "List schedules and read their results.",
   "webhooks:manage": "Register, change and remove webhook endpoints (administrative).",
   "keys:manage": "List, create and revoke this organization's API keys (administrative).",
+  "criteria:manage": "Create, change and remove the organization's limit profiles, materials and section catalogues (engineers and administrators).",
 };
 
 export function isApiKeyScope(value: string): value is ApiKeyScope {
@@ -35,6 +36,7 @@ export const scopePermissions: Record<ApiKeyScope, Permission> = {
   "results:read": "organization:read",
   "webhooks:manage": "integrations:manage",
   "keys:manage": "integrations:manage",
+  "criteria:manage": "criteria:manage",
 };
 
 /** The scopes a person of this role may put on a key, in table order. */

@@ -9,6 +9,7 @@ import { MAX_SCHEDULE_BODY_BYTES } from "@/lib/server/schedules/submit-from-requ
 import { buildComponentSchemas, webhookEvents } from "./components";
 import { describeOperation, jsonResponse, splitRouteKey, type Operation } from "./operations";
 import { apiKeyOperations } from "./paths-api-keys";
+import { criteriaOperations } from "./paths-criteria";
 import { buildScheduleOperations } from "./paths-schedules";
 import { webhookOperations } from "./paths-webhooks";
 import { listProblemTypes } from "./problem-types";
@@ -39,6 +40,7 @@ function buildOperations(limits: ApiLimits): Record<ApiRouteKey, Operation> {
     ...apiKeyOperations,
     ...buildScheduleOperations(limits),
     ...webhookOperations,
+    ...criteriaOperations,
   };
 }
 
@@ -103,6 +105,7 @@ export function buildOpenApiDocument(options: { serverUrl: string; limits: ApiLi
       { name: "Schedules", description: "Submit schedules and read results." },
       { name: "Webhooks", description: "Where results are sent (Standard Webhooks v1)." },
       { name: "API keys", description: "Keys of this organization." },
+      { name: "Criteria", description: "The organization's limit profiles, materials and section catalogues." },
       { name: "Reference", description: "This document." },
     ],
     paths,

@@ -2,6 +2,10 @@ import apiKeyCreateSchema from "@/api-schemas/v1/api-key-create.schema.json";
 import apiKeyCreatedSchema from "@/api-schemas/v1/api-key-created.schema.json";
 import apiKeyListSchema from "@/api-schemas/v1/api-key-list.schema.json";
 import apiKeySchema from "@/api-schemas/v1/api-key.schema.json";
+import limitProfileWriteSchema from "@/api-schemas/v1/limit-profile-write.schema.json";
+import limitProfileSchema from "@/api-schemas/v1/limit-profile.schema.json";
+import materialWriteSchema from "@/api-schemas/v1/material-write.schema.json";
+import materialSchema from "@/api-schemas/v1/material.schema.json";
 import memberDispositionedEvent from "@/api-schemas/v1/events/member.dispositioned.schema.json";
 import scheduleCompletedEvent from "@/api-schemas/v1/events/schedule.completed.schema.json";
 import scheduleFailedEvent from "@/api-schemas/v1/events/schedule.failed.schema.json";
@@ -13,6 +17,9 @@ import resultsPageSchema from "@/api-schemas/v1/results-page.schema.json";
 import scheduleAcceptedSchema from "@/api-schemas/v1/schedule-accepted.schema.json";
 import scheduleStatusSchema from "@/api-schemas/v1/schedule-status.schema.json";
 import scheduleSchema from "@/api-schemas/v1/schedule.schema.json";
+import sectionCatalogueUpdateSchema from "@/api-schemas/v1/section-catalogue-update.schema.json";
+import sectionCatalogueUploadSchema from "@/api-schemas/v1/section-catalogue-upload.schema.json";
+import sectionCatalogueSchema from "@/api-schemas/v1/section-catalogue.schema.json";
 import webhookEndpointCreateSchema from "@/api-schemas/v1/webhook-endpoint-create.schema.json";
 import webhookEndpointUpdateSchema from "@/api-schemas/v1/webhook-endpoint-update.schema.json";
 import webhookEndpointSchema from "@/api-schemas/v1/webhook-endpoint.schema.json";
@@ -35,6 +42,13 @@ const contractSchemas: [string, Record<string, unknown>][] = [
   ["WebhookEndpoint", webhookEndpointSchema],
   ["WebhookEndpointCreate", webhookEndpointCreateSchema],
   ["WebhookEndpointUpdate", webhookEndpointUpdateSchema],
+  ["LimitProfile", limitProfileSchema],
+  ["LimitProfileWrite", limitProfileWriteSchema],
+  ["Material", materialSchema],
+  ["MaterialWrite", materialWriteSchema],
+  ["SectionCatalogue", sectionCatalogueSchema],
+  ["SectionCatalogueUpload", sectionCatalogueUploadSchema],
+  ["SectionCatalogueUpdate", sectionCatalogueUpdateSchema],
   ["EventScheduleCompleted", scheduleCompletedEvent],
   ["EventScheduleFailed", scheduleFailedEvent],
   ["EventMemberDispositioned", memberDispositionedEvent],
@@ -63,6 +77,9 @@ const answerSchemas: Record<string, Record<string, unknown>> = {
     required: ["data"],
     properties: { data: { type: "array", items: { $ref: "#/components/schemas/WebhookEndpoint" } } },
   },
+  LimitProfileList: { type: "object", required: ["data"], properties: { data: { type: "array", items: { $ref: "#/components/schemas/LimitProfile" } } } },
+  MaterialList: { type: "object", required: ["data"], properties: { data: { type: "array", items: { $ref: "#/components/schemas/Material" } } } },
+  SectionCatalogueList: { type: "object", required: ["data"], properties: { data: { type: "array", items: { $ref: "#/components/schemas/SectionCatalogue" } } } },
   WebhookEndpointCreated: {
     type: "object",
     required: ["endpoint", "secret"],

@@ -5,6 +5,7 @@ import type { MemberResult } from "@/lib/engine/model";
 import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
 import { getSql } from "@/db/client";
 import { copyRows } from "@/lib/server/copy-rows";
+import { loadScheduleCriteria, toParseOptions, type ScheduleCriteria } from "@/lib/server/criteria/schedule-criteria";
 
 import { completeScheduleIfDone, failSchedule } from "./finish-schedule";
 
@@ -12,15 +13,21 @@ export const MAX_CHUNK_ATTEMPTS = 10;
 
 export type Outcome = { index: number; mark: string; category: string; result: MemberResult | null; error: string | null };
 
-/** Parses one chunk's stored members with the schedule's header and checks each one; an engine input error becomes that member's error. */
-export function checkMembers(header: Record<string, unknown>, firstMember: number, inputs: unknown[]): Outcome[] {
-  const parsed = parseSchedule({ ...header, members: inputs });
+/**
+ * Parses one chunk's stored members with the schedule's header and checks each one; an engine
+ * input error becomes that member's error. `criteria`: what the schedule was submitted with
+ * (organization catalogue, materials, profile), so failing members get the lightest passing
+ * catalogue section.
+ */
+export function checkMembers(header: Record<string, unknown>, firstMember: number, inputs: unknown[], criteria: ScheduleCriteria | null = null): Outcome[] {
+  const options = toParseOptions(criteria);
+  const parsed = parseSchedule({ ...header, members: inputs }, options);
   // The whole schedule passed this at submission; failing now means stored data changed.
   if (!parsed.ok) throw new Error(`stored members no longer parse: ${parsed.issues[0]?.path}: ${parsed.issues[0]?.message}`);
   return parsed.schedule.members.map((member, i) => {
     const index = firstMember + i;
     try {
-      return { index, mark: member.mark, category: member.category, result: checkMember(member, parsed.schedule.profile), error: null };
+      return { index, mark: member.mark, category: member.category, result: checkMember(member, parsed.schedule.profile, criteria?.catalogue), error: null };
     } catch (error) {
       if (!(error instanceof EngineInputError)) throw error;
       return { index, mark: member.mark, category: member.category, result: null, error: error.issues.map((e) => `${e.path}: ${e.message}`).join("; ") };
@@ -29,9 +36,15 @@ export function checkMembers(header: Record<string, unknown>, firstMember: numbe
 }
 
 /** Runs checkMembers over a chunk's stored JSON text: inline, or on an engine thread (workers/engine). */
-export type ChunkChecker = (header: Record<string, unknown>, firstMember: number, membersJson: string) => Outcome[] | Promise<Outcome[]>;
+export type ChunkChecker = (
+  header: Record<string, unknown>,
+  firstMember: number,
+  membersJson: string,
+  criteria: ScheduleCriteria | null,
+) => Outcome[] | Promise<Outcome[]>;
 
-const checkMembersInline: ChunkChecker = (header, firstMember, membersJson) => checkMembers(header, firstMember, JSON.parse(membersJson) as unknown[]);
+const checkMembersInline: ChunkChecker = (header, firstMember, membersJson, criteria) =>
+  checkMembers(header, firstMember, JSON.parse(membersJson) as unknown[], criteria);
 
 /**
  * Checks one chunk of a schedule and stores its results. Safe to run twice or to be killed at any
@@ -56,7 +69,8 @@ export async function checkChunk(scheduleId: string, chunkIndex: number, runChec
   // Only the first chunks see "queued": the rest leave the schedule's row alone.
   if (chunk.status === "queued") await sql`update schedules set status = 'checking', updated_at = now() where id = ${scheduleId} and status = 'queued'`;
 
-  const outcomes = await runChecks(chunk.header as Record<string, unknown>, chunk.first_member as number, chunk.members as string);
+  const criteria = await loadScheduleCriteria(scheduleId);
+  const outcomes = await runChecks(chunk.header as Record<string, unknown>, chunk.first_member as number, chunk.members as string, criteria);
 
   const passed = outcomes.filter((o) => o.result?.pass).length;
   const errored = outcomes.filter((o) => o.error !== null).length;

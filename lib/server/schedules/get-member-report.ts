@@ -2,6 +2,7 @@ import { checkMember } from "@/lib/engine/check-member";
 import { parseSchedule } from "@/lib/engine/intake";
 import type { CheckResult, FrequencyResult, RotationResult, ShapeSample } from "@/lib/engine/model";
 import { getMemberResult, readStoredNotes } from "@/db/queries/schedules";
+import { loadScheduleCriteria, toParseOptions, type ScheduleCriteria } from "@/lib/server/criteria/schedule-criteria";
 
 export interface MemberCheckRow {
   checkKey: string;
@@ -73,9 +74,10 @@ const figuresKeyOf = (combinationId: string, spanIndex: number): string => `${co
  * the support rotations and each check's figures (spans loaded, chord and settlement). Cheap for
  * one member; storing them for every member of a 100,000-member schedule is not.
  */
-function computeMemberDiagrams(header: Record<string, unknown>, input: unknown): MemberDiagrams {
+function computeMemberDiagrams(header: Record<string, unknown>, input: unknown, criteria: ScheduleCriteria | null): MemberDiagrams {
   const none: MemberDiagrams = { shape: [], rotations: [], figures: new Map() };
-  const parsed = parseSchedule({ ...header, members: [input] });
+  // the criteria frozen with the schedule: catalogue names and organization materials read as they were checked
+  const parsed = parseSchedule({ ...header, members: [input] }, toParseOptions(criteria));
   if (!parsed.ok) return none;
   try {
     const result = checkMember(parsed.schedule.members[0]!, parsed.schedule.profile, undefined, { shape: true });
@@ -95,7 +97,7 @@ export async function getMemberReport(scheduleId: string, mark: string): Promise
   const checked = member.checked === true;
   const detail = (member.detail ?? null) as StoredDetail | null;
   const header = member.header as Record<string, unknown>;
-  const diagrams = checked && !detail?.error ? computeMemberDiagrams(header, member.input) : { shape: [], rotations: [], figures: new Map<string, CheckFigures>() };
+  const diagrams = checked && !detail?.error ? computeMemberDiagrams(header, member.input, await loadScheduleCriteria(scheduleId)) : { shape: [], rotations: [], figures: new Map<string, CheckFigures>() };
   return {
     mark: member.mark as string,
     category: member.category as string,

@@ -39,14 +39,16 @@ export function readCsvParameters(get: (name: string) => string | null, fallback
   const delimiter = delimiterNames[delimiterText];
   if (!delimiter || !(CSV_DELIMITERS as readonly string[]).includes(delimiter)) errors.push({ pointer: "/query/delimiter", message: 'must be "comma", "semicolon" or "tab"' });
   const limits = get("limits");
-  if (!limits) errors.push({ pointer: "/query/limits", message: "name the limit preset for the CSV schedule, e.g. limits=ibc-2021-floor" });
+  if (!limits) errors.push({ pointer: "/query/limits", message: "name the limit preset or the organization profile for the CSV schedule, e.g. limits=ibc-2021-floor or limits=lp_..." });
   const system = get("units");
   if (system !== null && system !== "SI" && system !== "US") errors.push({ pointer: "/query/units", message: 'must be "SI" or "US"' });
   const name = (get("name") ?? fallbackName).trim();
   if (name.length === 0 || name.length > 200) errors.push({ pointer: "/query/name", message: "must be 1 to 200 characters" });
   if (errors.length > 0) throw new DomainError("bad_request", "Some CSV parameters are missing or wrong.", errors);
   const reference = get("reference") ?? undefined;
-  return { name, reference, limits: { preset: limits }, delimiter: delimiter!, units: system ? { system: system as "SI" | "US" } : undefined };
+  // an organization profile's id (lp_...) or a preset's
+  const named = limits!.startsWith("lp_") ? { profile: limits } : { preset: limits };
+  return { name, reference, limits: named, delimiter: delimiter!, units: system ? { system: system as "SI" | "US" } : undefined };
 }
 
 /**

@@ -1,11 +1,12 @@
 import { assertMemberAndProfileValid } from "@/lib/engine/checks";
 import { mapEnginePath } from "@/lib/engine/check-schedule";
-import { parseSchedule, type ParsedSchedule } from "@/lib/engine/intake";
+import { parseSchedule, type ParsedSchedule, type ParseScheduleOptions } from "@/lib/engine/intake";
 import type { InputIssue } from "@/lib/engine/model";
 import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
 import type { TransactionSql } from "postgres";
 
 import { getSql } from "@/db/client";
+import { loadSubmissionCriteria, storeScheduleCriteria } from "@/lib/server/criteria/schedule-criteria";
 import { DomainError, type FieldError } from "@/lib/server/errors";
 import { createId } from "@/lib/server/ids";
 
@@ -25,6 +26,8 @@ export interface SubmitScheduleInput {
   projectId?: string | null;
   /** Re-addresses issues to where the person can find them (CSV rows); JSON pointers otherwise. */
   toFieldErrors?: (issues: InputIssue[]) => FieldError[];
+  /** A recheck: the schedule this submission rechecks with a newer profile version. */
+  recheckOfScheduleId?: string | null;
   /** Runs inside the storing transaction, e.g. to complete an Idempotency-Key with the answer. */
   inTransaction?: (tx: TransactionSql, created: SubmittedSchedule) => Promise<void>;
 }
@@ -48,10 +51,14 @@ export interface CheckedSchedule {
  * Each member is checked as soon as it is read and then dropped: holding the model of 100,000
  * members only to validate them would cost memory and garbage-collection time.
  */
-export function collectScheduleIssues(doc: unknown): ({ ok: true } & CheckedSchedule) | { ok: false; issues: InputIssue[]; unlistedCount: number } {
+export function collectScheduleIssues(
+  doc: unknown,
+  criteria: Pick<ParseScheduleOptions, "catalogue" | "organizationMaterials" | "organizationProfiles"> = {},
+): ({ ok: true } & CheckedSchedule) | { ok: false; issues: InputIssue[]; unlistedCount: number } {
   const engineIssues: InputIssue[] = [];
   const marks: string[] = [];
   const parsed = parseSchedule(doc, {
+    ...criteria,
     maxIssues: MAX_LISTED_ERRORS,
     retainMembers: false,
     onMember: (member, index, profile, origins) => {
@@ -98,7 +105,9 @@ export function throwInvalidSchedule(errors: FieldError[], total: number): never
  * in one transaction, then queues the chunks for the workers. Nothing is written when any member is bad.
  */
 export async function submitSchedule(input: SubmitScheduleInput): Promise<SubmittedSchedule> {
-  const checked = collectScheduleIssues(input.doc);
+  // The organization's catalogues in use, materials and named profile, frozen with the schedule.
+  const criteria = await loadSubmissionCriteria(input.organizationId, input.doc);
+  const checked = collectScheduleIssues(input.doc, criteria.options);
   if (!checked.ok) {
     // Intake stops listing at the cap and ends with its "N more issues not listed" line: the
     // problem body states the total instead.
@@ -132,6 +141,7 @@ export async function submitSchedule(input: SubmitScheduleInput): Promise<Submit
         ${input.submittedByUserId ?? null}, ${input.apiKeyId ?? null}, ${input.callbackEndpointId ?? null},
         ${JSON.stringify(parsed.profile)}::jsonb, ${JSON.stringify(header)}::jsonb, ${members.length}, ${chunkCount}, now())
       returning created_at`;
+    await storeScheduleCriteria(tx, id, criteria.catalogueIds, criteria.freeze(), input.recheckOfScheduleId ?? null);
     // One row per chunk holding its members: pipelined in this transaction, all or none.
     await Promise.all(
       Array.from({ length: chunkCount }, (_, chunk) => {
