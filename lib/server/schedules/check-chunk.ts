@@ -5,6 +5,7 @@ import type { MemberResult } from "@/lib/engine/model";
 import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
 import { getSql } from "@/db/client";
 import { copyRows } from "@/lib/server/copy-rows";
+import { insertMemberReviews } from "@/lib/server/review/insert-member-reviews";
 
 import { completeScheduleIfDone, failSchedule } from "./finish-schedule";
 
@@ -51,7 +52,8 @@ export async function checkChunk(scheduleId: string, chunkIndex: number): Promis
   // Only the first chunks see "queued": the rest leave the schedule's row alone.
   if (chunk.status === "queued") await sql`update schedules set status = 'checking', updated_at = now() where id = ${scheduleId} and status = 'queued'`;
 
-  const outcomes = checkMembers(chunk.header as Record<string, unknown>, chunk.first_member as number, JSON.parse(chunk.members as string) as unknown[]);
+  const inputs = JSON.parse(chunk.members as string) as unknown[];
+  const outcomes = checkMembers(chunk.header as Record<string, unknown>, chunk.first_member as number, inputs);
 
   const passed = outcomes.filter((o) => o.result?.pass).length;
   const errored = outcomes.filter((o) => o.error !== null).length;
@@ -77,6 +79,8 @@ export async function checkChunk(scheduleId: string, chunkIndex: number): Promis
       ["schedule_id", "member_index", "check_key", "combination_id", "span_index", "span_kind", "deflection_mm", "at_mm", "allowed_mm", "utilization", "factor_of_safety", "pass", "limit_ratio", "achieved_ratio"],
       checkRows(scheduleId, outcomes),
     );
+    // The review queue is written with the outcomes, so it is never behind them.
+    await insertMemberReviews(tx, scheduleId, chunk.first_member as number, outcomes, inputs);
     await tx`
       update schedule_chunks set done_at = now(), pass_count = ${passed}, fail_count = ${outcomes.length - passed - errored}, error_count = ${errored}
       where schedule_id = ${scheduleId} and chunk_index = ${chunkIndex}`;
