@@ -11,6 +11,7 @@ export const scopeDescriptions: Record<ApiKeyScope, string> = {
   "results:read": "List schedules and read their results.",
   "webhooks:manage": "Register, change and remove webhook endpoints (administrative).",
   "keys:manage": "List, create and revoke this organization's API keys (administrative).",
+  "review:write": "Record dispositions on members in review (engineers and administrators only).",
 };
 
 export function isApiKeyScope(value: string): value is ApiKeyScope {
@@ -35,6 +36,8 @@ export const scopePermissions: Record<ApiKeyScope, Permission> = {
   "results:read": "organization:read",
   "webhooks:manage": "integrations:manage",
   "keys:manage": "integrations:manage",
+  // A key's dispositions are engineering decisions on record: only a role that may make them grants it.
+  "review:write": "review:disposition",
 };
 
 /** The scopes a person of this role may put on a key, in table order. */

@@ -9,6 +9,7 @@ import { MAX_SCHEDULE_BODY_BYTES } from "@/lib/server/schedules/submit-from-requ
 import { buildComponentSchemas, webhookEvents } from "./components";
 import { describeOperation, jsonResponse, splitRouteKey, type Operation } from "./operations";
 import { apiKeyOperations } from "./paths-api-keys";
+import { reviewOperations } from "./paths-review";
 import { buildScheduleOperations } from "./paths-schedules";
 import { webhookOperations } from "./paths-webhooks";
 import { listProblemTypes } from "./problem-types";
@@ -38,6 +39,7 @@ function buildOperations(limits: ApiLimits): Record<ApiRouteKey, Operation> {
     "GET /api/v1/openapi.json": openApiOperation,
     ...apiKeyOperations,
     ...buildScheduleOperations(limits),
+    ...reviewOperations,
     ...webhookOperations,
   };
 }
@@ -101,6 +103,7 @@ export function buildOpenApiDocument(options: { serverUrl: string; limits: ApiLi
     security: [{ apiKey: [] }],
     tags: [
       { name: "Schedules", description: "Submit schedules and read results." },
+      { name: "Review", description: "The review queue of members that did not pass, and the engineers' dispositions." },
       { name: "Webhooks", description: "Where results are sent (Standard Webhooks v1)." },
       { name: "API keys", description: "Keys of this organization." },
       { name: "Reference", description: "This document." },

@@ -4,7 +4,7 @@ import { adminScopes, apiKeyScopes, hasScope, isApiKeyScope, listGrantableScopes
 
 describe("API key scopes", () => {
   it("are exactly the four the API checks, two of them administrative", () => {
-    expect([...apiKeyScopes]).toEqual(["schedules:write", "results:read", "webhooks:manage", "keys:manage"]);
+    expect([...apiKeyScopes]).toEqual(["schedules:write", "results:read", "webhooks:manage", "keys:manage", "review:write"]);
     expect([...adminScopes]).toEqual(["webhooks:manage", "keys:manage"]);
     expect(Object.keys(scopeDescriptions).sort()).toEqual([...apiKeyScopes].sort());
   });
@@ -31,8 +31,8 @@ describe("API key scopes", () => {
 
 describe("scopes a role may grant", () => {
   it.each([
-    ["admin", ["schedules:write", "results:read", "webhooks:manage", "keys:manage"]],
-    ["engineer", ["schedules:write", "results:read"]],
+    ["admin", ["schedules:write", "results:read", "webhooks:manage", "keys:manage", "review:write"]],
+    ["engineer", ["schedules:write", "results:read", "review:write"]],
     ["integrator", ["results:read", "webhooks:manage", "keys:manage"]],
     ["submitter", ["schedules:write", "results:read"]],
     ["viewer", ["results:read"]],
