@@ -1,22 +1,12 @@
 import { z } from "zod";
 
-import { dispositionKinds, type DispositionKind } from "@/db/schema";
+import { dispositionKinds } from "@/db/schema";
 
 export const JUSTIFICATION_MAX_CHARS = 4_000;
 /** A justification says why: a word or two is not one. */
 export const JUSTIFICATION_MIN_CHARS = 15;
 
-export const dispositionKindLabels: Record<DispositionKind, string> = {
-  accepted_with_justification: "Accepted with justification",
-  member_to_be_revised: "Member to be revised",
-  information_requested: "Information requested from the sender",
-};
-
-export const dispositionKindDescriptions: Record<DispositionKind, string> = {
-  accepted_with_justification: "The engineer accepts the result as it stands and writes down why.",
-  member_to_be_revised: "The member must change (section, material, span or support) and be submitted again.",
-  information_requested: "The inputs are doubtful or incomplete; the sender is asked for more.",
-};
+export { dispositionKindDescriptions, dispositionKindLabels } from "@/lib/review-vocabulary";
 
 /**
  * A decision as entered: the kind, and the written reason (`justification`), required and at

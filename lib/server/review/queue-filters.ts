@@ -7,11 +7,7 @@ import { DomainError, type FieldError } from "@/lib/server/errors";
 export const queueSorts = ["utilization", "age", "schedule"] as const;
 export type QueueSort = (typeof queueSorts)[number];
 
-export const queueSortLabels: Record<QueueSort, string> = {
-  utilization: "Highest utilization first",
-  age: "Longest waiting first",
-  schedule: "Newest schedule first",
-};
+export { queueSortLabels } from "@/lib/review-vocabulary";
 
 const id = (prefix: string) => z.string().regex(new RegExp(`^${prefix}_[0-9a-z]{1,40}$`), `must be a ${prefix}_ id`);
 const shortText = z.string().min(1).max(120);
