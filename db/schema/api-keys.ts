@@ -4,8 +4,8 @@ import { index, pgTable, text, timestamp, uniqueIndex, type AnyPgColumn } from "
 import { organizations } from "./organizations";
 import { users } from "./users";
 
-/** What an API key may do. The last two are administrative: ordinary integration keys lack them. */
-export const apiKeyScopes = ["schedules:write", "results:read", "webhooks:manage", "keys:manage", "criteria:manage"] as const;
+/** What an API key may do. webhooks:manage and keys:manage are administrative; criteria:manage changes engineering criteria; review:write records engineering decisions. */
+export const apiKeyScopes = ["schedules:write", "results:read", "webhooks:manage", "keys:manage", "criteria:manage", "review:write"] as const;
 export type ApiKeyScope = (typeof apiKeyScopes)[number];
 
 /**

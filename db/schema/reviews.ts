@@ -29,6 +29,8 @@ export const memberReviews = pgTable(
       .notNull()
       .references(() => organizations.id, { onDelete: "cascade" }),
     projectId: text(),
+    /** The schedule's reference, copied: a later submission of the same reference finds earlier reviews by it. */
+    reference: text(),
     mark: text().notNull(),
     category: text().notNull(),
     /** "fail" or "error": errored members need review as much as failed ones. */
@@ -36,6 +38,12 @@ export const memberReviews = pgTable(
     governingCheck: text(),
     /** Null for errored members; sorts last. */
     utilization: doublePrecision(),
+    /**
+     * SHA-256 of what the member was checked with (its input as submitted, the schedule's units and
+     * limits, the resolved limit profile): equal hashes under the same reference mean an unchanged
+     * member, whose earlier dispositions are shown as carried over.
+     */
+    inputHash: text(),
     state: text({ enum: reviewStates }).notNull().default("awaiting_review"),
     /** The disposition that set `state`; null while awaiting review. */
     latestDispositionId: bigint({ mode: "number" }),
@@ -51,6 +59,7 @@ export const memberReviews = pgTable(
       .on(t.organizationId, t.createdAt, t.scheduleId, t.memberIndex)
       .where(sql`${t.state} = 'awaiting_review'`),
     index("member_reviews_schedule_state_idx").on(t.scheduleId, t.state, t.memberIndex),
+    index("member_reviews_carry_over_idx").on(t.organizationId, t.reference, t.mark, t.inputHash).where(sql`${t.reference} is not null`),
   ],
 );
 

@@ -12,6 +12,7 @@ export const scopeDescriptions: Record<ApiKeyScope, string> = {
   "webhooks:manage": "Register, change and remove webhook endpoints (administrative).",
   "keys:manage": "List, create and revoke this organization's API keys (administrative).",
   "criteria:manage": "Create, change and remove the organization's limit profiles, materials and section catalogues (engineers and administrators).",
+  "review:write": "Record dispositions on members in review (engineers and administrators only).",
 };
 
 export function isApiKeyScope(value: string): value is ApiKeyScope {
@@ -37,6 +38,8 @@ export const scopePermissions: Record<ApiKeyScope, Permission> = {
   "webhooks:manage": "integrations:manage",
   "keys:manage": "integrations:manage",
   "criteria:manage": "criteria:manage",
+  // A key's dispositions are engineering decisions on record: only a role that may make them grants it.
+  "review:write": "review:disposition",
 };
 
 /** The scopes a person of this role may put on a key, in table order. */

@@ -61,6 +61,10 @@ export const actionAccess = {
   "webhooks/sendTestEvent": "integrations:manage",
   "webhooks/resendDelivery": "integrations:manage",
   "webhooks/resendFailedSince": "integrations:manage",
+  "review/recordDisposition": "review:disposition",
+  "review/previewBulkDisposition": "review:disposition",
+  "review/applyBulkDisposition": "review:disposition",
+  "review/saveDigestPreference": "review:disposition",
 } as const satisfies Record<string, Access>;
 
 export type PagePath = keyof typeof pageAccess;

@@ -20,6 +20,8 @@ export const apiRouteScopes = {
   "GET /api/v1/schedules/[scheduleId]": "results:read",
   "GET /api/v1/schedules/[scheduleId]/results": "results:read",
   "GET /api/v1/schedules/[scheduleId]/members/[mark]": "results:read",
+  "POST /api/v1/schedules/[scheduleId]/members/[mark]/dispositions": "review:write",
+  "GET /api/v1/review": "results:read",
 
   "GET /api/v1/limit-profiles": "results:read",
   "POST /api/v1/limit-profiles": "criteria:manage",

@@ -10,6 +10,7 @@ import { buildComponentSchemas, webhookEvents } from "./components";
 import { describeOperation, jsonResponse, splitRouteKey, type Operation } from "./operations";
 import { apiKeyOperations } from "./paths-api-keys";
 import { criteriaOperations } from "./paths-criteria";
+import { reviewOperations } from "./paths-review";
 import { buildScheduleOperations } from "./paths-schedules";
 import { webhookOperations } from "./paths-webhooks";
 import { listProblemTypes } from "./problem-types";
@@ -39,6 +40,7 @@ function buildOperations(limits: ApiLimits): Record<ApiRouteKey, Operation> {
     "GET /api/v1/openapi.json": openApiOperation,
     ...apiKeyOperations,
     ...buildScheduleOperations(limits),
+    ...reviewOperations,
     ...webhookOperations,
     ...criteriaOperations,
   };
@@ -103,6 +105,7 @@ export function buildOpenApiDocument(options: { serverUrl: string; limits: ApiLi
     security: [{ apiKey: [] }],
     tags: [
       { name: "Schedules", description: "Submit schedules and read results." },
+      { name: "Review", description: "The review queue of members that did not pass, and the engineers' dispositions." },
       { name: "Webhooks", description: "Where results are sent (Standard Webhooks v1)." },
       { name: "API keys", description: "Keys of this organization." },
       { name: "Criteria", description: "The organization's limit profiles, materials and section catalogues." },

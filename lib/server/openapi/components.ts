@@ -2,6 +2,8 @@ import apiKeyCreateSchema from "@/api-schemas/v1/api-key-create.schema.json";
 import apiKeyCreatedSchema from "@/api-schemas/v1/api-key-created.schema.json";
 import apiKeyListSchema from "@/api-schemas/v1/api-key-list.schema.json";
 import apiKeySchema from "@/api-schemas/v1/api-key.schema.json";
+import dispositionCreateSchema from "@/api-schemas/v1/disposition-create.schema.json";
+import dispositionSchema from "@/api-schemas/v1/disposition.schema.json";
 import limitProfileWriteSchema from "@/api-schemas/v1/limit-profile-write.schema.json";
 import limitProfileSchema from "@/api-schemas/v1/limit-profile.schema.json";
 import materialWriteSchema from "@/api-schemas/v1/material-write.schema.json";
@@ -14,6 +16,7 @@ import memberResultSchema from "@/api-schemas/v1/member-result.schema.json";
 import problemSchema from "@/api-schemas/v1/problem.schema.json";
 import resultSchema from "@/api-schemas/v1/result.schema.json";
 import resultsPageSchema from "@/api-schemas/v1/results-page.schema.json";
+import reviewQueuePageSchema from "@/api-schemas/v1/review-queue-page.schema.json";
 import scheduleAcceptedSchema from "@/api-schemas/v1/schedule-accepted.schema.json";
 import scheduleStatusSchema from "@/api-schemas/v1/schedule-status.schema.json";
 import scheduleSchema from "@/api-schemas/v1/schedule.schema.json";
@@ -34,6 +37,9 @@ const contractSchemas: [string, Record<string, unknown>][] = [
   ["ScheduleStatus", scheduleStatusSchema],
   ["ResultsPage", resultsPageSchema],
   ["MemberResult", memberResultSchema],
+  ["ReviewQueuePage", reviewQueuePageSchema],
+  ["DispositionCreate", dispositionCreateSchema],
+  ["Disposition", dispositionSchema],
   ["Problem", problemSchema],
   ["ApiKey", apiKeySchema],
   ["ApiKeyCreate", apiKeyCreateSchema],

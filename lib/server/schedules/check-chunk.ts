@@ -6,6 +6,7 @@ import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
 import { getSql } from "@/db/client";
 import { copyRows } from "@/lib/server/copy-rows";
 import { loadScheduleCriteria, toParseOptions, type ScheduleCriteria } from "@/lib/server/criteria/schedule-criteria";
+import { insertMemberReviews } from "@/lib/server/review/insert-member-reviews";
 
 import { completeScheduleIfDone, failSchedule } from "./finish-schedule";
 
@@ -96,6 +97,10 @@ export async function checkChunk(scheduleId: string, chunkIndex: number, runChec
       ["schedule_id", "member_index", "check_key", "combination_id", "span_index", "span_kind", "deflection_mm", "at_mm", "allowed_mm", "utilization", "factor_of_safety", "pass", "limit_ratio", "achieved_ratio"],
       checkRows(scheduleId, outcomes),
     );
+    // The review queue is written with the outcomes, so it is never behind them.
+    // Only chunks with members to review pay for parsing their inputs here (the engine threads parsed them to check).
+    const inputs = outcomes.some((o) => o.error !== null || o.result?.pass !== true) ? (JSON.parse(chunk.members as string) as unknown[]) : [];
+    await insertMemberReviews(tx, scheduleId, chunk.first_member as number, outcomes, inputs);
     await tx`
       update schedule_chunks set done_at = now(), pass_count = ${passed}, fail_count = ${outcomes.length - passed - errored}, error_count = ${errored}
       where schedule_id = ${scheduleId} and chunk_index = ${chunkIndex}`;

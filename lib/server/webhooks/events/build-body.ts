@@ -83,7 +83,7 @@ export async function buildEventBody(event: OutboxEventRow): Promise<string> {
     case "member.dispositioned": {
       const parsed = memberDispositionedPayloadSchema.safeParse(event.payload);
       if (!parsed.success) throw new EventBodyError(`could not build the event: the member.dispositioned payload is malformed (${parsed.error.issues.map((i) => i.path.join(".")).join(", ")})`);
-      return JSON.stringify(buildMemberDispositionedEvent({ ...parsed.data, occurredAt }));
+      return JSON.stringify(buildMemberDispositionedEvent({ ...parsed.data, occurredAt, appUrl: getEnv().APP_URL }));
     }
     case "webhook.test": {
       const endpointId = (event.payload as { endpointId?: unknown }).endpointId;

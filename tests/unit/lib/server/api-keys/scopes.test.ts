@@ -3,8 +3,8 @@ import { describe, expect, it } from "vitest";
 import { adminScopes, apiKeyScopes, hasScope, isApiKeyScope, listGrantableScopes, listMissingScopes, scopeDescriptions } from "@/lib/server/api-keys/scopes";
 
 describe("API key scopes", () => {
-  it("are exactly the five the API checks, two of them administrative", () => {
-    expect([...apiKeyScopes]).toEqual(["schedules:write", "results:read", "webhooks:manage", "keys:manage", "criteria:manage"]);
+  it("are exactly the six the API checks, two of them administrative", () => {
+    expect([...apiKeyScopes]).toEqual(["schedules:write", "results:read", "webhooks:manage", "keys:manage", "criteria:manage", "review:write"]);
     expect([...adminScopes]).toEqual(["webhooks:manage", "keys:manage"]);
     expect(Object.keys(scopeDescriptions).sort()).toEqual([...apiKeyScopes].sort());
   });
@@ -31,8 +31,8 @@ describe("API key scopes", () => {
 
 describe("scopes a role may grant", () => {
   it.each([
-    ["admin", ["schedules:write", "results:read", "webhooks:manage", "keys:manage", "criteria:manage"]],
-    ["engineer", ["schedules:write", "results:read", "criteria:manage"]],
+    ["admin", ["schedules:write", "results:read", "webhooks:manage", "keys:manage", "criteria:manage", "review:write"]],
+    ["engineer", ["schedules:write", "results:read", "criteria:manage", "review:write"]],
     ["integrator", ["results:read", "webhooks:manage", "keys:manage"]],
     ["submitter", ["schedules:write", "results:read"]],
     ["viewer", ["results:read"]],

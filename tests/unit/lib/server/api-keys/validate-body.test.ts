@@ -60,7 +60,7 @@ describe("readJsonBody with the api-key-create schema", () => {
       expect.arrayContaining([
         { pointer: "/name", message: "is required." },
         { pointer: "/colour", message: "is not a known field." },
-        { pointer: "/scopes/1", message: 'must be one of: "schedules:write", "results:read", "webhooks:manage", "keys:manage", "criteria:manage".' },
+        { pointer: "/scopes/1", message: 'must be one of: "schedules:write", "results:read", "webhooks:manage", "keys:manage", "criteria:manage", "review:write".' },
         { pointer: "/expiresInDays", message: "must be >= 1." },
       ]),
     );

@@ -96,13 +96,33 @@ describe("event payloads conform to their published JSON Schemas", () => {
     expect(event.data.truncated).toBe(false);
   });
 
+  const dispositioned = {
+    dispositionId: "dsp_41",
+    scheduleId: "sch_x1",
+    reference: "LBD-HB-S03",
+    mark: "B12/3",
+    disposition: "information_requested" as const,
+    by: "Invented Engineer",
+    note: null,
+    decidedAt: "2026-03-02T09:15:00.000Z",
+    bulkId: null,
+  };
+
   it("schedule.failed, member.dispositioned and webhook.test", () => {
     expectValid("schedule.failed", buildScheduleFailedEvent({ scheduleId: "sch_x1", name: null, reason: "The schedule has no members.", occurredAt }));
     expectValid(
       "member.dispositioned",
-      buildMemberDispositionedEvent({ scheduleId: "sch_x1", mark: "B12", disposition: "accepted-as-is", by: "Tomasz Achebe", note: "Within the span/240 total limit after site measurement.", occurredAt }),
+      buildMemberDispositionedEvent({
+        ...dispositioned,
+        disposition: "accepted_with_justification",
+        note: "Within the span/240 total limit after site measurement.",
+        occurredAt,
+        appUrl: "https://sagline.example",
+      }),
     );
-    expectValid("member.dispositioned", buildMemberDispositionedEvent({ scheduleId: "sch_x1", mark: "B12", disposition: "revise", by: "Tomasz Achebe", note: null, occurredAt }));
+    const revised = buildMemberDispositionedEvent({ ...dispositioned, disposition: "member_to_be_revised", bulkId: "bulk_7k2m", occurredAt, appUrl: "https://sagline.example" });
+    expectValid("member.dispositioned", revised);
+    expect(revised.data.memberUrl).toBe("https://sagline.example/api/v1/schedules/sch_x1/members/B12%2F3");
     expectValid("webhook.test", buildWebhookTestEvent({ endpointId: "wh_7k2m", occurredAt }));
   });
 
@@ -112,6 +132,10 @@ describe("event payloads conform to their published JSON Schemas", () => {
     expect(completed({ ...event, data: { ...event.data, secret: "whsec_x" } })).toBe(false);
     expect(completed({ ...event, type: "schedule.failed" })).toBe(false);
     expect(completed({ ...event, data: { ...event.data, rows: [{ mark: "B1", pass: "yes" }] } })).toBe(false);
-    expect(() => buildMemberDispositionedEvent({ scheduleId: "sch_x1", mark: "", disposition: "x", by: "y", note: null, occurredAt })).toThrow();
+    expect(() => buildMemberDispositionedEvent({ ...dispositioned, mark: "", occurredAt, appUrl: "https://sagline.example" })).toThrow();
+    // @ts-expect-error: a disposition outside Sagline's three kinds must not be sent
+    expect(() => buildMemberDispositionedEvent({ ...dispositioned, disposition: "accepted-as-is", occurredAt, appUrl: "https://sagline.example" })).toThrow();
+    const event2 = JSON.parse(JSON.stringify(buildMemberDispositionedEvent({ ...dispositioned, occurredAt, appUrl: "https://sagline.example" })));
+    expect(schemaFor("member.dispositioned")({ ...event2, data: { ...event2.data, email: "a@b.example" } })).toBe(false);
   });
 });

@@ -7,6 +7,7 @@ import { getSchedule } from "@/db/queries/schedules";
 import { requirePage } from "@/lib/server/auth/guards";
 import { getMemberReport } from "@/lib/server/schedules/get-member-report";
 
+import { DispositionPanel } from "../../../../review/_components/disposition-panel";
 import { PageHeader } from "../../../../_components/page-header";
 import { categoryLabels, formatCheckKey, formatRatio } from "../../../_components/format";
 import { MemberChecksTable } from "../../../_components/member-checks-table";
@@ -118,6 +119,7 @@ export default async function MemberPage({ params }: MemberPageProps) {
         </div>
 
         <aside className="min-w-0 space-y-6">
+          <DispositionPanel organizationId={context.active!.organizationId} scheduleId={schedule.id} mark={report.mark} />
           <MemberSuggestion status={status} suggestion={report.suggestion} />
           <MemberFrequency frequency={report.frequency} />
           <section aria-labelledby="inputs-heading" className="rounded border border-rule bg-sheet p-4">

@@ -72,6 +72,8 @@ CREATE TABLE "section_catalogues" (
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
 );
 --> statement-breakpoint
+ALTER TABLE "member_reviews" ADD COLUMN "reference" text;--> statement-breakpoint
+ALTER TABLE "member_reviews" ADD COLUMN "input_hash" text;--> statement-breakpoint
 ALTER TABLE "catalogue_sections" ADD CONSTRAINT "catalogue_sections_catalogue_id_section_catalogues_id_fk" FOREIGN KEY ("catalogue_id") REFERENCES "public"."section_catalogues"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "limit_profile_versions" ADD CONSTRAINT "limit_profile_versions_profile_id_limit_profiles_id_fk" FOREIGN KEY ("profile_id") REFERENCES "public"."limit_profiles"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "limit_profile_versions" ADD CONSTRAINT "limit_profile_versions_created_by_user_id_users_id_fk" FOREIGN KEY ("created_by_user_id") REFERENCES "public"."users"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
@@ -83,4 +85,5 @@ ALTER TABLE "section_catalogues" ADD CONSTRAINT "section_catalogues_created_by_u
 CREATE UNIQUE INDEX "catalogue_sections_catalogue_id_name_key_idx" ON "catalogue_sections" USING btree ("catalogue_id","name_key");--> statement-breakpoint
 CREATE INDEX "limit_profiles_organization_id_idx" ON "limit_profiles" USING btree ("organization_id");--> statement-breakpoint
 CREATE UNIQUE INDEX "organization_materials_organization_id_name_idx" ON "organization_materials" USING btree ("organization_id",lower("name"));--> statement-breakpoint
-CREATE UNIQUE INDEX "section_catalogues_organization_id_name_idx" ON "section_catalogues" USING btree ("organization_id",lower("name"));
+CREATE UNIQUE INDEX "section_catalogues_organization_id_name_idx" ON "section_catalogues" USING btree ("organization_id",lower("name"));--> statement-breakpoint
+CREATE INDEX "member_reviews_carry_over_idx" ON "member_reviews" USING btree ("organization_id","reference","mark","input_hash") WHERE "member_reviews"."reference" is not null;
