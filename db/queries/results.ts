@@ -255,3 +255,53 @@ export async function findPagePosition(
   const found = await findPosition(scheduleId, { sort: options.sort, filters: options.filters, skip: (options.page - 1) * options.limit, page: options.page });
   return found?.position;
 }
+
+export interface RecordedDisposition {
+  kind: string;
+  justification: string | null;
+  decidedBy: string;
+  decidedAt: string;
+}
+
+export interface FailureRecordRow {
+  memberIndex: number;
+  mark: string;
+  category: string;
+  status: ResultStatus;
+  governingCheck: string | null;
+  utilization: number | null;
+  limitRatio: number | null;
+  achievedRatio: number | null;
+  reviewState: string | null;
+  /** Oldest first, at most `dispositionsPerMember`. */
+  dispositions: RecordedDisposition[];
+}
+
+/**
+ * The members that did not pass, in schedule order, each with its recorded decisions: the body of
+ * the printable record. At most `limit` members and `dispositionsPerMember` decisions each.
+ */
+export async function listFailureRecord(scheduleId: string, options: { limit: number; dispositionsPerMember: number }): Promise<FailureRecordRow[]> {
+  const sql = getSql();
+  const rows = await sql`
+    select o.member_index, o.mark, o.category, o.pass, o.governing_check, o.utilization, o.limit_ratio, o.achieved_ratio, o.detail ->> 'error' as error, r.state as review_state,
+      coalesce((select json_agg(json_build_object('kind', d.kind, 'justification', d.justification, 'decidedBy', d.decided_by_name, 'decidedAt', d.created_at) order by d.id)
+        from (select * from member_dispositions d where d.schedule_id = o.schedule_id and d.member_index = o.member_index order by d.id limit ${options.dispositionsPerMember}) d), '[]'::json) as dispositions
+    from member_outcomes o
+      left join member_reviews r on r.schedule_id = o.schedule_id and r.member_index = o.member_index
+    where o.schedule_id = ${scheduleId} and not o.pass
+    order by o.member_index
+    limit ${options.limit}`;
+  return rows.map((r) => ({
+    memberIndex: r.member_index as number,
+    mark: r.mark as string,
+    category: r.category as string,
+    status: (r.error ? "error" : "fail") as ResultStatus,
+    governingCheck: (r.governing_check as string | null) ?? null,
+    utilization: (r.utilization as number | null) ?? null,
+    limitRatio: (r.limit_ratio as number | null) ?? null,
+    achievedRatio: (r.achieved_ratio as number | null) ?? null,
+    reviewState: (r.review_state as string | null) ?? null,
+    dispositions: (r.dispositions as RecordedDisposition[]).map((d) => ({ ...d, decidedAt: new Date(d.decidedAt).toISOString() })),
+  }));
+}

@@ -25,6 +25,7 @@ export const pageAccess = {
   "/schedules/new": "schedules:submit",
   "/schedules/[scheduleId]": "organization:read",
   "/schedules/[scheduleId]/members/[mark]": "organization:read",
+  "/schedules/[scheduleId]/record": "organization:read",
   "/integrations/webhooks": "integrations:manage",
   "/integrations/webhooks/deliveries": "integrations:manage",
 } as const satisfies Record<string, Access>;
