@@ -17,6 +17,8 @@ export interface ScheduleRow {
   errorCount: number;
   createdAt: Date;
   completedAt: Date | null;
+  /** The schedule's unit system ("SI" or "US"), for showing lengths in its own units. */
+  unitSystem: string;
 }
 
 // A running schedule's counts are summed from its chunks; an ended one's are on its own row.
@@ -25,7 +27,7 @@ const scheduleColumns = `s.id, s.name, s.reference, s.status, s.failure_reason, 
   case when s.status in ('completed', 'failed') then s.pass_count else p.pass_count end as pass_count,
   case when s.status in ('completed', 'failed') then s.fail_count else p.fail_count end as fail_count,
   case when s.status in ('completed', 'failed') then s.error_count else p.error_count end as error_count,
-  s.created_at, s.completed_at`;
+  s.created_at, s.completed_at, s.header -> 'units' ->> 'system' as unit_system`;
 /** A schedule's progress summed from its chunks (alias c): the one definition of it. */
 const CHUNK_TOTALS_COLUMNS = `count(c.done_at)::int as chunks_done, (count(*) filter (where c.done_at is null))::int as open_chunks,
     coalesce(sum(c.member_count) filter (where c.done_at is not null), 0)::int as checked_count,
@@ -68,6 +70,7 @@ function toScheduleRow(r: Record<string, unknown>): ScheduleRow {
     // unsafe() queries may hand timestamps back as text; normalise to Date either way.
     createdAt: new Date(r.created_at as string | Date),
     completedAt: r.completed_at ? new Date(r.completed_at as string | Date) : null,
+    unitSystem: (r.unit_system as string | null) ?? "SI",
   };
 }
 
@@ -96,65 +99,9 @@ export async function listSchedules(organizationId: string, options: { limit: nu
 
 export type ResultStatus = "pass" | "fail" | "error";
 
-export interface ResultRow {
-  memberIndex: number;
-  mark: string;
-  category: string;
-  status: ResultStatus;
-  governingCheck: string | null;
-  utilization: number | null;
-  factorOfSafety: number | null;
-  /** The governing check's signed deflection, mm (+ downward, the engine's sign); null without one. */
-  governingDeflectionMm: number | null;
-  /** The governing deflection check's limit l/N and achieved l/N; null when the frequency governs. */
-  limitRatio: number | null;
-  achievedRatio: number | null;
-  /** The engine's remarks on the member (e.g. "gross section: cracking not included"); empty when none. */
-  notes: string[];
-}
-
 /** The notes stored in an outcome's detail, as a list of strings (none when absent or malformed). */
 export function readStoredNotes(value: unknown): string[] {
   return Array.isArray(value) ? value.filter((note): note is string => typeof note === "string") : [];
-}
-
-/** Members in schedule order, keyset-paginated on member_index, filtered by outcome and category. */
-export async function listResults(
-  scheduleId: string,
-  options: { limit: number; afterIndex?: number; status?: ResultStatus; category?: string },
-): Promise<{ rows: ResultRow[]; hasMore: boolean }> {
-  const sql = getSql();
-  const statusFilter =
-    options.status === "pass"
-      ? sql`and pass`
-      : options.status === "fail"
-        ? sql`and not pass and detail->>'error' is null`
-        : options.status === "error"
-          ? sql`and detail->>'error' is not null`
-          : sql``;
-  const rows = await sql`
-    select o.member_index, o.mark, o.category, o.pass, o.governing_check, o.utilization, o.factor_of_safety, o.limit_ratio, o.achieved_ratio, o.detail->>'error' as error, o.detail->'notes' as notes,
-      (select c.deflection_mm from member_checks c
-        where c.schedule_id = o.schedule_id and c.member_index = o.member_index and c.check_key = o.governing_check) as governing_deflection_mm
-    from member_outcomes o
-    where o.schedule_id = ${scheduleId} and o.member_index > ${options.afterIndex ?? -1}
-      ${statusFilter} ${options.category ? sql`and o.category = ${options.category}` : sql``}
-    order by o.member_index
-    limit ${options.limit + 1}`;
-  const page = rows.slice(0, options.limit).map((r) => ({
-    memberIndex: r.member_index as number,
-    mark: r.mark as string,
-    category: r.category as string,
-    status: (r.error ? "error" : r.pass ? "pass" : "fail") as ResultStatus,
-    governingCheck: (r.governing_check as string | null) ?? null,
-    utilization: (r.utilization as number | null) ?? null,
-    factorOfSafety: (r.factor_of_safety as number | null) ?? null,
-    governingDeflectionMm: (r.governing_deflection_mm as number | null) ?? null,
-    limitRatio: (r.limit_ratio as number | null) ?? null,
-    achievedRatio: (r.achieved_ratio as number | null) ?? null,
-    notes: readStoredNotes(r.notes),
-  }));
-  return { rows: page, hasMore: rows.length > options.limit };
 }
 
 export async function getMemberResult(scheduleId: string, mark: string) {

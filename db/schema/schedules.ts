@@ -74,12 +74,27 @@ export const memberOutcomes = pgTable(
      * none (most passing members). json: written often, never queried inside.
      */
     detail: json(),
+    /** The member's section and material as named in the schedule (catalogue name or "custom" label), for the results table. */
+    section: text(),
+    material: text(),
+    quantity: integer(),
+    /** Span lengths, mm, left to right. */
+    spansMm: doublePrecision().array(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     primaryKey({ columns: [t.scheduleId, t.memberIndex] }),
     // Only failing members: the "fail" filter reads it; indexing every member cost more to write.
     index("member_outcomes_schedule_id_failing_idx").on(t.scheduleId, t.memberIndex).where(sql`not ${t.pass}`),
+    // Only errored members (a handful): the "error" filter reads it.
+    index("member_outcomes_schedule_id_error_idx").on(t.scheduleId, t.memberIndex).where(sql`(${t.detail} ->> 'error') is not null`),
+    // The results table's two deep orderings, each read as a keyset (db/queries/results.ts writes
+    // the same expressions): highest utilization first, errors (no utilization) last; marks
+    // case-insensitively in code-point order, so a mark prefix is one index range. Each index
+    // costs about 1 s more per 100,000 rows written by COPY (README, bench:dashboard), so category
+    // has none: its ordering is a top-N sort of the schedule's rows, bounded by its size.
+    index("member_outcomes_schedule_id_utilization_idx").on(t.scheduleId, sql`coalesce(-${t.utilization}, 'Infinity'::float8)`, t.memberIndex),
+    index("member_outcomes_schedule_id_mark_idx").on(t.scheduleId, sql`lower(${t.mark}) collate "C"`, t.memberIndex),
   ],
 );
 

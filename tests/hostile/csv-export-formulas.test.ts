@@ -4,7 +4,7 @@
 import Papa from "papaparse";
 import { describe, expect, it } from "vitest";
 
-import type { ResultRow } from "@/db/queries/schedules";
+import type { ResultPageRow } from "@/db/queries/results";
 import { resultsToCsv } from "@/lib/server/schedules/represent";
 
 const hostile = [
@@ -22,9 +22,10 @@ const hostile = [
   "\u202e=evil\u202c",
 ];
 
-const rows: ResultRow[] = hostile.map((text, i) => ({
+const rows: ResultPageRow[] = hostile.map((text, i) => ({
   memberIndex: i,
   mark: text,
+  markKey: text.toLowerCase(),
   category: text,
   status: "fail",
   governingCheck: text,
@@ -35,6 +36,13 @@ const rows: ResultRow[] = hostile.map((text, i) => ({
   achievedRatio: 720,
   // notes are text too: the same hostile strings go through the last column
   notes: [text],
+  allowedDeflectionMm: 25,
+  // section and material are text from the schedule too
+  section: text,
+  material: text,
+  quantity: 1,
+  spansMm: [6000],
+  review: null,
 }));
 
 // A plain negative number is a number to every reader, not a formula.

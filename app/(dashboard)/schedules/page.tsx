@@ -10,7 +10,7 @@ import { can } from "@/lib/server/auth/request-context";
 import { formatDateTime } from "../_components/format-date-time";
 import { PageHeader } from "../_components/page-header";
 import { encodeCursor, isScheduleCursor, readPageCursor } from "./_components/cursor";
-import { toQuery } from "./_components/result-filters";
+import { toQuery } from "./_components/search-query";
 import { ScheduleListRow } from "./_components/schedule-list-row";
 
 export const metadata: Metadata = { title: "Schedules" };

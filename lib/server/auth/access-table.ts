@@ -25,6 +25,7 @@ export const pageAccess = {
   "/schedules/new": "schedules:submit",
   "/schedules/[scheduleId]": "organization:read",
   "/schedules/[scheduleId]/members/[mark]": "organization:read",
+  "/schedules/[scheduleId]/record": "organization:read",
   "/integrations/webhooks": "integrations:manage",
   "/integrations/webhooks/deliveries": "integrations:manage",
 } as const satisfies Record<string, Access>;
@@ -36,6 +37,8 @@ export const routeAccess = {
   "POST /api/auth/[...nextauth]": "public",
   "POST /api/schedules/upload": "schedules:submit",
   "GET /api/schedules/[scheduleId]/progress": "organization:read",
+  "GET /api/schedules/[scheduleId]/results": "organization:read",
+  "GET /api/webhooks/deliveries": "integrations:manage",
   "GET /api/templates/schedule.csv": "public",
   "GET /schedules/[scheduleId]/results.csv": "organization:read",
 } as const satisfies Record<string, Access>;

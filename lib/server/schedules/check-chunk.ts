@@ -12,7 +12,13 @@ import { completeScheduleIfDone, failSchedule } from "./finish-schedule";
 
 export const MAX_CHUNK_ATTEMPTS = 10;
 
-export type Outcome = { index: number; mark: string; category: string; result: MemberResult | null; error: string | null };
+/** What the results table shows of a member's input beside its outcome (stored with it, so a page never re-reads the chunk). */
+export type OutcomeInput = { section: string | null; material: string | null; quantity: number; spansMm: number[] };
+export type Outcome = { index: number; mark: string; category: string; input?: OutcomeInput; result: MemberResult | null; error: string | null };
+
+function describeInput(member: { sectionName?: string; materialName?: string; quantity: number; spans: { lengthMm: number }[] }): OutcomeInput {
+  return { section: member.sectionName ?? null, material: member.materialName ?? null, quantity: member.quantity, spansMm: member.spans.map((s) => s.lengthMm) };
+}
 
 /**
  * Parses one chunk's stored members with the schedule's header and checks each one; an engine
@@ -27,11 +33,12 @@ export function checkMembers(header: Record<string, unknown>, firstMember: numbe
   if (!parsed.ok) throw new Error(`stored members no longer parse: ${parsed.issues[0]?.path}: ${parsed.issues[0]?.message}`);
   return parsed.schedule.members.map((member, i) => {
     const index = firstMember + i;
+    const input = describeInput(member);
     try {
-      return { index, mark: member.mark, category: member.category, result: checkMember(member, parsed.schedule.profile, criteria?.catalogue), error: null };
+      return { index, mark: member.mark, category: member.category, input, result: checkMember(member, parsed.schedule.profile, criteria?.catalogue), error: null };
     } catch (error) {
       if (!(error instanceof EngineInputError)) throw error;
-      return { index, mark: member.mark, category: member.category, result: null, error: error.issues.map((e) => `${e.path}: ${e.message}`).join("; ") };
+      return { index, mark: member.mark, category: member.category, input, result: null, error: error.issues.map((e) => `${e.path}: ${e.message}`).join("; ") };
     }
   });
 }
@@ -88,7 +95,7 @@ export async function checkChunk(scheduleId: string, chunkIndex: number, runChec
     await copyRows(
       tx,
       "member_outcomes",
-      ["schedule_id", "member_index", "mark", "category", "pass", "governing_check", "utilization", "factor_of_safety", "limit_ratio", "achieved_ratio", "detail"],
+      ["schedule_id", "member_index", "mark", "category", "pass", "governing_check", "utilization", "factor_of_safety", "limit_ratio", "achieved_ratio", "detail", ...OUTCOME_INPUT_COLUMNS],
       outcomeRows(scheduleId, outcomes),
     );
     await copyRows(
@@ -116,6 +123,8 @@ export function checkKeyOf(combinationId: string, spanIndex: number): string {
   return getCheckKey(combinationId, spanIndex);
 }
 
+export const OUTCOME_INPUT_COLUMNS = ["section", "material", "quantity", "spans_mm"] as const;
+
 export function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
   for (const o of outcomes) {
     const r = o.result;
@@ -142,6 +151,10 @@ export function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
       deflection?.limitRatio ?? null,
       deflection?.achievedRatio ?? null,
       detail === null ? null : JSON.stringify(detail),
+      o.input?.section ?? null,
+      o.input?.material ?? null,
+      o.input?.quantity ?? null,
+      o.input ? `{${o.input.spansMm.join(",")}}` : null,
     ] as const;
   }
 }

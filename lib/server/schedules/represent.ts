@@ -1,4 +1,5 @@
-import type { ResultRow, ScheduleRow } from "@/db/queries/schedules";
+import type { ResultPageRow } from "@/db/queries/results";
+import type { ScheduleRow } from "@/db/queries/schedules";
 import { SAFETY_CAUTION } from "@/lib/safety";
 
 export function scheduleLinks(id: string) {
@@ -24,7 +25,7 @@ export function representSchedule(s: ScheduleRow) {
   };
 }
 
-export function representResult(r: ResultRow) {
+export function representResult(r: ResultPageRow) {
   return {
     mark: r.mark,
     category: r.category,
@@ -34,6 +35,14 @@ export function representResult(r: ResultRow) {
     factorOfSafety: r.factorOfSafety,
     limitRatio: r.limitRatio,
     achievedRatio: r.achievedRatio,
+    /** Signed (+ downward) and allowed deflection of the governing check, mm. */
+    deflectionMm: r.governingDeflectionMm,
+    allowedDeflectionMm: r.allowedDeflectionMm,
+    section: r.section,
+    material: r.material,
+    quantity: r.quantity,
+    spansMm: r.spansMm,
+    review: r.review ? { state: r.review.state } : null,
     pass: r.status === "pass",
     notes: r.notes,
   };
@@ -66,10 +75,62 @@ export function formatCsvCell(value: string | number | boolean | null): string {
   return /[",;\t\n\r]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
 }
 
-// limit_ratio, achieved_ratio (l/N) and notes follow the older columns, so readers that go by position keep working.
-export const RESULT_CSV_HEADER = ["mark", "category", "status", "governing_check", "utilization", "factor_of_safety", "limit_ratio", "achieved_ratio", "notes"];
+// limit_ratio, achieved_ratio (l/N) and notes follow the older columns, and the figures added since
+// follow notes, so readers that go by position keep working. Lengths carry their unit in the name.
+export const RESULT_CSV_HEADER = [
+  "mark",
+  "category",
+  "status",
+  "governing_check",
+  "utilization",
+  "factor_of_safety",
+  "limit_ratio",
+  "achieved_ratio",
+  "notes",
+  "deflection_mm",
+  "allowed_deflection_mm",
+  "section",
+  "material",
+  "quantity",
+  "spans_mm",
+  "review_state",
+];
 
-export function resultsToCsv(rows: ResultRow[], withHeader: boolean): string {
-  const lines = rows.map((r) => [r.mark, r.category, r.status, r.governingCheck, r.utilization, r.factorOfSafety, r.limitRatio, r.achievedRatio, r.notes.join("; ")].map(formatCsvCell).join(","));
-  return (withHeader ? [RESULT_CSV_HEADER.join(","), ...lines] : lines).join("\r\n") + "\r\n";
+/** Rounded for reading, never for deciding: the stored figures stay full precision. */
+function round(value: number | null, digits: number): number | null {
+  if (value === null || !Number.isFinite(value)) return null;
+  const factor = 10 ** digits;
+  return Math.round(value * factor) / factor;
+}
+
+/** One results row as CSV (utilization 3 decimals, factor of safety 2, l/N whole, deflections 0.01 mm). */
+export function formatResultCsvLine(r: ResultPageRow): string {
+  return [
+    r.mark,
+    r.category,
+    r.status,
+    r.governingCheck,
+    round(r.utilization, 3),
+    round(r.factorOfSafety, 2),
+    round(r.limitRatio, 0),
+    round(r.achievedRatio, 0),
+    r.notes.join("; "),
+    round(r.governingDeflectionMm, 2),
+    round(r.allowedDeflectionMm, 2),
+    r.section,
+    r.material,
+    r.quantity,
+    r.spansMm.map((mm) => round(mm, 1)).join(" "),
+    r.review?.state ?? null,
+  ]
+    .map(formatCsvCell)
+    .join(",");
+}
+
+/** The last line of every results CSV: the caution travels with the figures. */
+export const RESULT_CSV_CAUTION_LINE = formatCsvCell(`# ${SAFETY_CAUTION}`);
+
+export function resultsToCsv(rows: ResultPageRow[], withHeader: boolean): string {
+  const lines = rows.map(formatResultCsvLine);
+  return [...(withHeader ? [RESULT_CSV_HEADER.join(",")] : []), ...lines, RESULT_CSV_CAUTION_LINE].join("\r\n") + "\r\n";
 }

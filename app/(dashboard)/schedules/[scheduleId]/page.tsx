@@ -4,28 +4,38 @@ import { notFound } from "next/navigation";
 
 import { Notice } from "@/components/ui/notice";
 import { SafetyCaution } from "@/components/ui/safety-caution";
-import { getSchedule, listResults } from "@/db/queries/schedules";
+import { getSchedule } from "@/db/queries/schedules";
 import { requirePage } from "@/lib/server/auth/guards";
+import { getRequestContext } from "@/lib/server/auth/request-context";
+import { hasResultFilters, readResultQuery, toResultSearchParams } from "@/lib/server/schedules/result-query";
+import { getResultsView, RESULTS_PAGE_SIZE } from "@/lib/server/schedules/results-view";
 
 import { PageHeader } from "../../_components/page-header";
-import { encodeCursor, isIndexCursor, readPageCursor } from "../_components/cursor";
-import { readResultFilters, toQuery } from "../_components/result-filters";
+import { readColumns } from "../_components/result-columns";
 import { ResultFiltersForm } from "../_components/result-filters-form";
-import { ResultsTable } from "../_components/results-table";
 import { ScheduleSummary } from "../_components/schedule-summary";
+import { ResultsLiveView } from "./page-client";
 
-export const metadata: Metadata = { title: "Schedule" };
-
-const PAGE_SIZE = 50;
-
+type SearchParams = Record<string, string | string[] | undefined>;
 type SchedulePageProps = {
   params: Promise<{ scheduleId: string }>;
-  searchParams: Promise<Record<string, string | string[] | undefined>>;
+  searchParams: Promise<SearchParams>;
 };
 
-function buildQuery(values: Record<string, string | undefined>): string {
-  const entries = Object.entries(values).filter((e): e is [string, string] => typeof e[1] === "string" && e[1] !== "");
-  return entries.length === 0 ? "" : `?${new URLSearchParams(entries)}`;
+/** The page title names the schedule; a schedule the visitor may not see is just "Schedule". */
+export async function generateMetadata({ params }: SchedulePageProps): Promise<Metadata> {
+  const { scheduleId } = await params;
+  const context = await getRequestContext();
+  const schedule = context?.active ? await getSchedule(context.active.organizationId, scheduleId) : null;
+  return { title: schedule ? `${schedule.name} · results` : "Schedule" };
+}
+
+function toSearchParams(params: SearchParams): URLSearchParams {
+  const out = new URLSearchParams();
+  for (const [name, value] of Object.entries(params)) {
+    for (const v of Array.isArray(value) ? value : value === undefined ? [] : [value]) out.append(name, v);
+  }
+  return out;
 }
 
 export default async function SchedulePage({ params, searchParams }: SchedulePageProps) {
@@ -35,19 +45,22 @@ export default async function SchedulePage({ params, searchParams }: SchedulePag
   const schedule = await getSchedule(context.active!.organizationId, scheduleId);
   if (!schedule) notFound();
 
-  const query = toQuery(await searchParams);
-  const filters = readResultFilters(query);
-  const { cursor, invalid } = readPageCursor(query.get("cursor"), isIndexCursor);
-  const { rows, hasMore } = await listResults(schedule.id, { limit: PAGE_SIZE, afterIndex: cursor?.after, status: filters.status, category: filters.category });
-  const last = rows.at(-1);
-  const next = hasMore && last ? encodeCursor({ after: last.memberIndex }) : null;
+  const search = toSearchParams(await searchParams);
+  const { query, problems } = readResultQuery(search);
+  const columns = readColumns(search.getAll("col"), search.get("cols"));
+  const view = await getResultsView(schedule, query);
   const base = `/schedules/${schedule.id}`;
-  const filterQuery = { status: filters.status, category: filters.category };
-  const filtered = filters.status !== undefined || filters.category !== undefined;
+  const filterParams = toResultSearchParams(query);
+  const linkParams = { ...filterParams, cols: columns.join(",") };
+  const liveParams = new URLSearchParams(filterParams);
+  if (query.position) liveParams.set("cursor", search.get("cursor")!);
+  else if (query.page) liveParams.set("page", String(query.page));
+  const filtered = hasResultFilters(query.filters);
+  const exportQuery = new URLSearchParams(filterParams).toString();
 
   return (
     <>
-      <p className="mb-2 text-xs">
+      <p className="mb-2 text-xs print:hidden">
         <Link href="/schedules" className="text-action underline">
           Schedules
         </Link>
@@ -55,50 +68,41 @@ export default async function SchedulePage({ params, searchParams }: SchedulePag
       {/* Marks and names may be long unbroken strings: let them wrap anywhere rather than widen the page. */}
       <div className="[&_h1]:[overflow-wrap:anywhere] [&_p]:[overflow-wrap:anywhere]">
         <PageHeader title={schedule.name} lead={schedule.reference ?? undefined}>
-          <a href={`${base}/results.csv${buildQuery(filterQuery)}`} className="rounded border border-rule bg-sheet px-3 py-1.5 text-sm font-medium hover:bg-paper" download>
-            Export CSV{filtered ? " (filtered)" : ""}
-          </a>
+          <span className="flex gap-2 print:hidden">
+            <a href={`${base}/results.csv${exportQuery ? `?${exportQuery}` : ""}`} className="rounded border border-rule bg-sheet px-3 py-1.5 text-sm font-medium hover:bg-paper" download>
+              Export CSV{filtered ? " (filtered)" : ""}
+            </a>
+            <Link href={`${base}/record`} className="rounded border border-rule bg-sheet px-3 py-1.5 text-sm font-medium hover:bg-paper">
+              Printable record
+            </Link>
+          </span>
         </PageHeader>
       </div>
       <SafetyCaution />
       <ScheduleSummary schedule={schedule} />
 
       <section aria-labelledby="results-heading" className="mt-6">
-        <div className="mb-2 flex flex-wrap items-end justify-between gap-3">
+        <div className="mb-2 space-y-2">
           <h2 id="results-heading" className="font-semibold">
             Results
           </h2>
-          <ResultFiltersForm action={base} status={filters.status} category={filters.category} />
+          <ResultFiltersForm action={base} sort={query.sort} filters={query.filters} columns={columns} />
         </div>
-        {filters.rejected.length > 0 ? (
+        {problems.length > 0 ? (
           <div className="mb-2">
-            <Notice tone="info">Not applied, not a filter Sagline knows: {filters.rejected.join(", ")}.</Notice>
+            <Notice tone="info">Not applied, not a value Sagline knows: {problems.map((p) => `${p.pointer.slice("/query/".length)} ${p.message}`).join("; ")}.</Notice>
           </div>
         ) : null}
-        {invalid ? (
-          <div className="mb-2">
-            <Notice tone="info">That page link is not one Sagline issued; showing the first page.</Notice>
-          </div>
-        ) : null}
-        {rows.length === 0 ? (
-          <p className="rounded border border-dashed border-rule bg-sheet p-6 text-ink-soft">
-            {schedule.checkedCount === 0 ? "No member has been checked yet." : filtered ? "No member matches these filters." : "No more members."}
-          </p>
-        ) : (
-          <ResultsTable scheduleId={schedule.id} rows={rows} />
-        )}
-        <nav aria-label="Result pages" className="mt-3 flex gap-3">
-          {cursor ? (
-            <Link className="text-action underline" href={`${base}${buildQuery(filterQuery)}`}>
-              First page
-            </Link>
-          ) : null}
-          {next ? (
-            <Link className="text-action underline" href={`${base}${buildQuery({ ...filterQuery, cursor: next })}`}>
-              {`Next ${PAGE_SIZE} members`}
-            </Link>
-          ) : null}
-        </nav>
+        <ResultsLiveView
+          scheduleId={schedule.id}
+          initial={view}
+          queryString={liveParams.toString()}
+          linkParams={linkParams}
+          columns={columns}
+          unitSystem={schedule.unitSystem}
+          filtered={filtered}
+          pageSize={RESULTS_PAGE_SIZE}
+        />
       </section>
     </>
   );

@@ -80,3 +80,19 @@ export const categoryLabels: Record<string, string> = {
   cantilever: "Cantilever",
   other: "Other",
 };
+
+const MM_PER_INCH = 25.4;
+
+/** A deflection magnitude in the schedule's own length unit: mm for SI schedules, in for US ones. */
+export function formatDeflection(valueMm: number | null | undefined, system: string): string {
+  if (valueMm === null || valueMm === undefined || !Number.isFinite(valueMm)) return "—";
+  if (system === "US") return `${formatNumber(Math.abs(valueMm) / MM_PER_INCH, 3)} in`;
+  return `${formatMm(Math.abs(valueMm))} mm`;
+}
+
+/** Span lengths in the schedule's unit: m for SI, ft for US. */
+export function formatSpans(spansMm: number[], system: string): string {
+  if (spansMm.length === 0) return "—";
+  const inUnit = spansMm.map((mm) => (system === "US" ? formatNumber(mm / (MM_PER_INCH * 12), 2) : formatNumber(mm / 1000, 2)));
+  return `${inUnit.join(" + ")} ${system === "US" ? "ft" : "m"}`;
+}

@@ -1,7 +1,11 @@
 "use client";
 
+import { useQuery } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { useEffect, useState } from "react";
+import { useEffect } from "react";
+
+import { fetchJson } from "@/components/data/fetch-json";
+import { QueryProvider } from "@/components/data/query-provider";
 
 import { isScheduleFinished, scheduleStatusLabels } from "./format";
 import { ProgressBar } from "./progress-bar";
@@ -17,48 +21,41 @@ type Progress = { status: string; progress: { members: number; checked: number }
 
 const POLL_MS = 800;
 
-/** Polls the schedule's progress while the workers check it, then moves on. */
-export function LiveProgress({ scheduleId, initial, finishedHref }: LiveProgressProps) {
+function LiveProgressView({ scheduleId, initial, finishedHref }: LiveProgressProps) {
   const router = useRouter();
-  const [state, setState] = useState(initial);
-  const [problem, setProblem] = useState<string | null>(null);
-
+  const query = useQuery({
+    queryKey: ["schedule-progress", scheduleId],
+    queryFn: ({ signal }) => fetchJson<Progress>(`/api/schedules/${encodeURIComponent(scheduleId)}/progress`, signal),
+    initialData: { status: initial.status, progress: { members: initial.members, checked: initial.checked } },
+    initialDataUpdatedAt: 0,
+    // Stops once the workers are done; paused while the tab is hidden (QueryProvider's default).
+    refetchInterval: (q) => (q.state.data && isScheduleFinished(q.state.data.status) ? false : POLL_MS),
+  });
+  const status = query.data.status;
+  const finished = isScheduleFinished(status) && !isScheduleFinished(initial.status);
   useEffect(() => {
-    let stopped = false;
-    let timer: ReturnType<typeof setTimeout> | undefined;
-    const poll = async () => {
-      try {
-        const response = await fetch(`/api/schedules/${encodeURIComponent(scheduleId)}/progress`, { cache: "no-store" });
-        if (!response.ok) throw new Error(`the progress request answered ${response.status}`);
-        const body = (await response.json()) as Progress;
-        if (stopped) return;
-        setProblem(null);
-        setState({ status: body.status, checked: body.progress.checked, members: body.progress.members });
-        if (isScheduleFinished(body.status)) {
-          if (finishedHref) router.push(finishedHref);
-          else router.refresh();
-          return;
-        }
-      } catch (error) {
-        if (!stopped) setProblem(`Progress is not available right now (${(error as Error).message}); still trying.`);
-      }
-      if (!stopped) timer = setTimeout(poll, POLL_MS);
-    };
-    timer = setTimeout(poll, isScheduleFinished(initial.status) ? 0 : POLL_MS);
-    return () => {
-      stopped = true;
-      if (timer) clearTimeout(timer);
-    };
-  }, [scheduleId, finishedHref, router, initial.status]);
+    if (!finished) return;
+    if (finishedHref) router.push(finishedHref);
+    else router.refresh();
+  }, [finished, finishedHref, router]);
 
   return (
     <div aria-live="polite" className="space-y-1" data-testid="live-progress">
       <p className="text-sm">
-        <span className="font-medium">{scheduleStatusLabels[state.status] ?? state.status}</span>
+        <span className="font-medium">{scheduleStatusLabels[status] ?? status}</span>
         <span className="text-ink-soft"> · the workers are checking every member</span>
       </p>
-      <ProgressBar checked={state.checked} members={state.members} label="Members checked" />
-      {problem ? <p className="text-xs text-caution">{problem}</p> : null}
+      <ProgressBar checked={query.data.progress.checked} members={query.data.progress.members} label="Members checked" />
+      {query.isError ? <p className="text-xs text-caution">Progress is not available right now ({query.error.message}); still trying.</p> : null}
     </div>
+  );
+}
+
+/** Polls the schedule's progress while the workers check it, then moves on. */
+export function LiveProgress(props: LiveProgressProps) {
+  return (
+    <QueryProvider>
+      <LiveProgressView {...props} />
+    </QueryProvider>
   );
 }

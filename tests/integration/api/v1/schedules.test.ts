@@ -43,7 +43,7 @@ describe("POST /api/v1/schedules", () => {
 
     const csv = await api().get(`/api/v1/schedules/${response.body.id}/results`).set("authorization", `Bearer ${key}`).set("accept", "text/csv");
     expect(csv.headers["content-type"]).toContain("text/csv");
-    expect(csv.text.split("\r\n")[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety,limit_ratio,achieved_ratio,notes");
+    expect(csv.text.split("\r\n")[0]).toBe("mark,category,status,governing_check,utilization,factor_of_safety,limit_ratio,achieved_ratio,notes,deflection_mm,allowed_deflection_mm,section,material,quantity,spans_mm,review_state");
     // Formula injection: the cell starts with a quote so a spreadsheet shows it as text.
     expect(csv.text).toContain(`"'=HYPERLINK(""x"")",floor_beam,pass`);
 

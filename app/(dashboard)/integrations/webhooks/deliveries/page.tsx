@@ -6,10 +6,11 @@ import { deliveryStatuses } from "@/db/schema";
 import { requirePage } from "@/lib/server/auth/guards";
 import { listEndpoints } from "@/lib/server/webhooks/endpoints";
 import { allEventTypes } from "@/lib/server/webhooks/events/event-types";
-import { isDeliveryStatus, listDeliveries } from "@/lib/server/webhooks/list-deliveries";
+import { listDeliveries } from "@/lib/server/webhooks/list-deliveries";
 
 import { PageHeader } from "../../../_components/page-header";
-import { DeliveriesTable } from "../_components/deliveries-table";
+import { LiveDeliveries } from "../_components/live-deliveries";
+import { readDeliveryFilter } from "../_components/read-delivery-filter";
 import { ResendFailedForm } from "../_components/resend-failed-form";
 
 export const metadata: Metadata = { title: "Webhook deliveries" };
@@ -26,11 +27,10 @@ export default async function WebhookDeliveriesPage({ searchParams }: { searchPa
   const organizationId = context.active!.organizationId;
   const params = await searchParams;
   const endpoints = await listEndpoints(organizationId);
-  // Unknown filter values are ignored rather than trusted: only this organization's ids and known names pass.
-  const endpointId = endpoints.find((e) => e.id === single(params.endpoint))?.id;
-  const status = single(params.status);
-  const eventType = (allEventTypes as readonly string[]).find((t) => t === single(params.event));
-  const deliveries = await listDeliveries(organizationId, { endpointId, status: isDeliveryStatus(status) ? status : undefined, eventType });
+  const filter = readDeliveryFilter({ get: (name) => single(params[name]) ?? null }, endpoints.map((e) => e.id));
+  const { endpointId, status, eventType } = filter;
+  const deliveries = await listDeliveries(organizationId, filter);
+  const queryString = new URLSearchParams(Object.entries({ endpoint: endpointId, status, event: eventType }).filter((e): e is [string, string] => e[1] !== undefined)).toString();
   const dayAgo = new Date(Date.now() - 86_400_000).toISOString().slice(0, 16);
   return (
     <>
@@ -48,7 +48,7 @@ export default async function WebhookDeliveriesPage({ searchParams }: { searchPa
             </option>
           ))}
         </SelectField>
-        <SelectField label="Status" name="status" defaultValue={isDeliveryStatus(status) ? status : ""}>
+        <SelectField label="Status" name="status" defaultValue={status ?? ""}>
           <option value="">All</option>
           {deliveryStatuses.map((s) => (
             <option key={s} value={s}>
@@ -71,7 +71,7 @@ export default async function WebhookDeliveriesPage({ searchParams }: { searchPa
       <div className="mb-4">
         <ResendFailedForm endpoints={endpoints.map((e) => ({ id: e.id, url: e.url }))} defaultSince={dayAgo} />
       </div>
-      <DeliveriesTable deliveries={deliveries} />
+      <LiveDeliveries initial={deliveries} queryString={queryString} />
     </>
   );
 }

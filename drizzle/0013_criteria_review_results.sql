@@ -72,6 +72,10 @@ CREATE TABLE "section_catalogues" (
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
 );
 --> statement-breakpoint
+ALTER TABLE "member_outcomes" ADD COLUMN "section" text;--> statement-breakpoint
+ALTER TABLE "member_outcomes" ADD COLUMN "material" text;--> statement-breakpoint
+ALTER TABLE "member_outcomes" ADD COLUMN "quantity" integer;--> statement-breakpoint
+ALTER TABLE "member_outcomes" ADD COLUMN "spans_mm" double precision[];--> statement-breakpoint
 ALTER TABLE "member_reviews" ADD COLUMN "reference" text;--> statement-breakpoint
 ALTER TABLE "member_reviews" ADD COLUMN "input_hash" text;--> statement-breakpoint
 ALTER TABLE "catalogue_sections" ADD CONSTRAINT "catalogue_sections_catalogue_id_section_catalogues_id_fk" FOREIGN KEY ("catalogue_id") REFERENCES "public"."section_catalogues"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
@@ -86,4 +90,7 @@ CREATE UNIQUE INDEX "catalogue_sections_catalogue_id_name_key_idx" ON "catalogue
 CREATE INDEX "limit_profiles_organization_id_idx" ON "limit_profiles" USING btree ("organization_id");--> statement-breakpoint
 CREATE UNIQUE INDEX "organization_materials_organization_id_name_idx" ON "organization_materials" USING btree ("organization_id",lower("name"));--> statement-breakpoint
 CREATE UNIQUE INDEX "section_catalogues_organization_id_name_idx" ON "section_catalogues" USING btree ("organization_id",lower("name"));--> statement-breakpoint
+CREATE INDEX "member_outcomes_schedule_id_error_idx" ON "member_outcomes" USING btree ("schedule_id","member_index") WHERE ("member_outcomes"."detail" ->> 'error') is not null;--> statement-breakpoint
+CREATE INDEX "member_outcomes_schedule_id_utilization_idx" ON "member_outcomes" USING btree ("schedule_id",coalesce(-"utilization", 'Infinity'::float8),"member_index");--> statement-breakpoint
+CREATE INDEX "member_outcomes_schedule_id_mark_idx" ON "member_outcomes" USING btree ("schedule_id",lower("mark") collate "C","member_index");--> statement-breakpoint
 CREATE INDEX "member_reviews_carry_over_idx" ON "member_reviews" USING btree ("organization_id","reference","mark","input_hash") WHERE "member_reviews"."reference" is not null;
