@@ -69,6 +69,14 @@ export interface ReinforcedConcreteSection {
   /** Compression steel A's (mm^2) at depth d' (mm); both or neither. */
   compressionSteelMm2?: number;
   compressionDepthMm?: number;
+  /**
+   * Top steel: the steel in tension under hogging (negative) moment, A_s,top (mm^2) at effective
+   * depth d_top measured from the bottom face (the compression face under hogging), mm; both or
+   * neither. When given, negative-moment regions use it (with the bottom tension steel as
+   * compression steel). Absent: see cracked-section.ts HoggingLayout.
+   */
+  topSteelMm2?: number;
+  topEffectiveDepthMm?: number;
   /** Steel modulus E_s, MPa (ACI 318-19 20.2.2.2: 200,000). */
   steelEMpa: number;
   /** Modulus of rupture f_r, MPa (ACI 318-19 19.2.3.1: 0.62 lambda sqrt(f'c)). */

@@ -50,6 +50,8 @@ export const FIXED_COLUMNS: Record<string, ColumnSpec> = {
   effective_depth: createDimensionSpec("Reinforced concrete: effective depth d from the compression face, less than h."),
   compression_steel: { quantity: "area", description: "Reinforced concrete: compression steel area A's (with compression_depth)." },
   compression_depth: createDimensionSpec("Reinforced concrete: depth d' of the compression steel, less than d."),
+  top_steel: { quantity: "area", description: "Reinforced concrete: top steel area A_s,top, in tension under hogging moment (with top_depth)." },
+  top_depth: createDimensionSpec("Reinforced concrete: effective depth d_top of the top steel from the bottom face, less than h."),
   steel_e: { quantity: "modulus", description: "Reinforced concrete: steel modulus E_s (default 200,000 MPa)." },
   overhang_left: { quantity: "length", description: "Left overhang length (0 or empty: none)." },
   overhang_right: { quantity: "length", description: "Right overhang length (0 or empty: none)." },

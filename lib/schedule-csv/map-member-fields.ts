@@ -19,6 +19,8 @@ export const REINFORCEMENT_FIELD_NAMES: Record<string, string> = {
   effective_depth: "effectiveDepth",
   compression_steel: "compressionSteel",
   compression_depth: "compressionDepth",
+  top_steel: "topSteel",
+  top_depth: "topDepth",
   steel_e: "steelE",
 };
 const CUSTOM_MATERIAL_COLUMNS = ["e", "g", "density"];

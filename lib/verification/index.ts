@@ -5,6 +5,7 @@
  */
 import { CASE_E_MPA, CASE_I_MM4, closedFormCases, runCases, type ClosedFormCase, type VerifiedCase } from "./closed-form-cases";
 import { concreteCases } from "./concrete-cases";
+import { crackedMemberCases } from "./cracked-member-cases";
 import { frequencyCases } from "./frequency-cases";
 import { patternCases } from "./pattern-cases";
 import { presetCases } from "./preset-cases";
@@ -54,6 +55,12 @@ export const VERIFICATION_GROUPS: VerificationGroup[] = [
     title: "Reinforced concrete: cracked section and effective I",
     description: "I_cr, M_cr and I_e (ACI 318-19 24.2.3) and the resulting deflections of one rectangular beam, against the formulas written out independently.",
     cases: concreteCases,
+  },
+  {
+    id: "concrete-members",
+    title: "Reinforced concrete members: patterns, springs and top steel",
+    description: "A cracked span with an overhang under pattern live load, the same member on a spring judged from the chord, and the cracked section under hogging with top steel, against the formulas written out independently.",
+    cases: crackedMemberCases,
   },
 ];
 

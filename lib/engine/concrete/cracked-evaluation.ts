@@ -24,7 +24,8 @@ import type { SpanJudgement } from "../checks/span-groups";
 import type { SpanExtreme } from "../solver/deflection-field";
 import { EngineInputError } from "../solver/engine-input-error";
 import { findCombinedSpanExtreme, getCombinedNodeDeflection, getCombinedNodeRotation, type DeflectionTerm } from "./combined-deflection";
-import { createArrangedFactors, solveCrackedState, type CrackedState, type LoadArrangement } from "./cracked-state";
+import { needsHoggingAssumption } from "./cracked-section";
+import { createArrangedFactors, getMemberHoggingLayout, solveCrackedState, type CrackedState, type LoadArrangement } from "./cracked-state";
 
 /** Load cases that are always present: the dead load (self-weight goes to it). */
 export const PERMANENT_CASE_FACTORS: Readonly<Record<string, number>> = { dead: 1 };
@@ -93,8 +94,8 @@ export interface CrackedEvaluation {
   rotations: RotationResult[];
   /** The weighted solutions whose sum is each combination's deflection, in profile order. */
   combinationTerms: DeflectionTerm[][];
-  /** Every load level solved, by its key, for notes and the frequency mass. */
-  states: CrackedState[];
+  /** Every load level solved, by its key (arrangements solved later included), for the notes. */
+  states: Map<string, CrackedState>;
   /** The evaluation's cached state solver, for further arrangements of the same member. */
   solveState: CrackedStateSolver;
 }
@@ -167,16 +168,35 @@ export function evaluateCrackedDeflectionChecks(member: Member, profile: LimitPr
       rotations.push({ combinationId: combination.id, nodeIndex: node, atMm: solution.nodeXMm[node] as number, rotationRad: getCombinedNodeRotation(terms, node) });
     }
   }
-  return { checks, rotations, combinationTerms, states: [...statesByKey.values()], solveState };
+  return { checks, rotations, combinationTerms, states: statesByKey, solveState };
 }
 
-/** Lowest I_e / I_g ratio text and a non-convergence warning, for the member's notes. */
+/** Said when a span between supports without top steel took a hogging moment (cracked-section.ts HoggingLayout). */
+export const HOGGING_ASSUMPTION_NOTE =
+  "top steel not given: where hogging (negative) moment governs a span's I_e, the bottom tension steel is taken at the same depth from the top face, with no compression steel (the lower I_cr of that assumption); if the top steel is less than the bottom steel the deflection is understated: give topSteel and topDepth";
+
+/** Whether a load level used the hogging assumption: a reinforced span without top steel governed by a negative moment. */
+function usesHoggingAssumption(member: Member, state: CrackedState): boolean {
+  for (let index = 0; index < member.spans.length; index++) {
+    const section = member.spans[index]!.reinforcedConcrete;
+    if (section !== undefined && needsHoggingAssumption(section) && (state.serviceMomentNmm[index] as number) < 0) return true;
+  }
+  return false;
+}
+
+/**
+ * The member's cracked notes: lowest I_e / I_g, a non-convergence warning, and the hogging
+ * assumption when it was used (HOGGING_ASSUMPTION_NOTE). Call after every arrangement is solved.
+ */
 export function describeCrackedEvaluation(member: Member, evaluation: CrackedEvaluation): string[] {
   let lowest = Infinity;
   let lowestSpan = 0;
   let converged = true;
-  for (const state of evaluation.states) {
+  let hoggingAssumed = false;
+  const assumptionApplies = getMemberHoggingLayout(member) === "tension_only";
+  for (const state of evaluation.states.values()) {
     converged = converged && state.converged;
+    if (assumptionApplies && !hoggingAssumed) hoggingAssumed = usesHoggingAssumption(member, state);
     member.spans.forEach((span, index) => {
       if (span.reinforcedConcrete === undefined) return;
       const ratio = (state.inertiaMm4[index] as number) / span.iMm4;
@@ -190,5 +210,6 @@ export function describeCrackedEvaluation(member: Member, evaluation: CrackedEva
     `cracked section: I_e per ACI 318-19 Table 24.2.3.5 at each combination's service moment; lowest I_e = ${lowest.toFixed(2)} I_g (span index ${lowestSpan})`,
   ];
   if (!converged) notes.push("cracked section: the I_e iteration did not settle; each span took the lower of its last two I_e values (conservative)");
+  if (hoggingAssumed) notes.push(HOGGING_ASSUMPTION_NOTE);
   return notes;
 }

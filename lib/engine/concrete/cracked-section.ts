@@ -74,12 +74,41 @@ function getCompressionBlock(section: ReinforcedConcreteSection, sign: MomentSig
   return { widthMm: section.webWidthMm, overhangWidthMm: section.flangeWidthMm! - section.webWidthMm, overhangDepthMm: section.flangeThicknessMm! };
 }
 
-function getSteelLayers(section: ReinforcedConcreteSection): SteelLayer[] {
+/**
+ * Which steel resists a hogging (negative) moment, depths from the bottom face:
+ * - "given": the layout as given, tension steel at d and compression steel at d' (the layout of a
+ *   cantilever member, whose given steel is its top steel);
+ * - "tension_only": a span between supports given without top steel: its bottom tension steel
+ *   taken at the same d from the bottom face, without any compression steel. The top steel is
+ *   unknown; of the mirrored layout this is the lower I_cr (the conservative side), and the
+ *   member's result says so.
+ * Top steel, when the section gives it (topSteelMm2), always wins: A_s,top at d_top, with the
+ * bottom tension steel as compression steel at h - d.
+ */
+export type HoggingLayout = "given" | "tension_only";
+
+function hasTopSteel(section: ReinforcedConcreteSection): boolean {
+  return section.topSteelMm2 !== undefined && section.topEffectiveDepthMm !== undefined;
+}
+
+function getSteelLayers(section: ReinforcedConcreteSection, sign: MomentSign, hogging: HoggingLayout): SteelLayer[] {
+  if (sign === "hogging" && hasTopSteel(section)) {
+    return [
+      { areaMm2: section.topSteelMm2!, depthMm: section.topEffectiveDepthMm! },
+      { areaMm2: section.tensionSteelMm2, depthMm: section.depthMm - section.effectiveDepthMm },
+    ];
+  }
   const layers: SteelLayer[] = [{ areaMm2: section.tensionSteelMm2, depthMm: section.effectiveDepthMm }];
+  if (sign === "hogging" && hogging === "tension_only") return layers;
   if (section.compressionSteelMm2 !== undefined && section.compressionDepthMm !== undefined) {
     layers.push({ areaMm2: section.compressionSteelMm2, depthMm: section.compressionDepthMm });
   }
   return layers;
+}
+
+/** Whether a hogging moment on this section needs the "tension_only" assumption (no top steel given). */
+export function needsHoggingAssumption(section: ReinforcedConcreteSection): boolean {
+  return !hasTopSteel(section);
 }
 
 /** Transformed factor of a steel layer: n - 1 above the neutral axis (in compressed concrete), n below. */
@@ -136,12 +165,13 @@ function findNeutralAxisMm(block: CompressionBlock, layers: SteelLayer[], modula
  *   I_cr = b_w kd^3/3 + (b_f - b_w)(kd^3 - (kd - h_f)^3)/3 + n A_s (d - kd)^2 + (n - 1) A's (kd - d')^2
  * (flange term only while kd > h_f; b_f kd^3/3 when kd <= h_f), n = E_s / E_c. A compression layer
  * that falls below the neutral axis is counted as tension steel (n A's). Under hogging a flanged
- * section is taken as its web alone (flange cracked), which is conservative.
+ * section is taken as its web alone (flange cracked), which is conservative, and the steel is that
+ * of HoggingLayout (the top steel when given).
  */
-export function getCrackedSection(section: ReinforcedConcreteSection, concreteEMpa: number, sign: MomentSign): CrackedSection {
+export function getCrackedSection(section: ReinforcedConcreteSection, concreteEMpa: number, sign: MomentSign, hogging: HoggingLayout = "given"): CrackedSection {
   const modularRatio = section.steelEMpa / concreteEMpa;
   const block = getCompressionBlock(section, sign);
-  const layers = getSteelLayers(section);
+  const layers = getSteelLayers(section, sign, hogging);
   const kd = findNeutralAxisMm(block, layers, modularRatio, section.depthMm);
   const flangeDepth = Math.min(kd, block.overhangDepthMm);
   let iCrMm4 = (block.widthMm * kd ** 3) / 3 + (block.overhangWidthMm * (kd ** 3 - (kd - flangeDepth) ** 3)) / 3;

@@ -8,7 +8,8 @@ import type { Member, ReinforcedConcreteSection } from "../model";
 import { createCaseFactors, type CaseFactors } from "../solver/deflection-field";
 import { findSpanMomentExtreme } from "../solver/moment-field";
 import { solveValidatedMember, type MemberSolution, type PatternSplit } from "../solver/solve-member";
-import { getCrackedSection, getCrackingMomentNmm, getGrossConcreteProperties, type MomentSign } from "./cracked-section";
+import { getSpanJudgements } from "../checks/span-groups";
+import { getCrackedSection, getCrackingMomentNmm, getGrossConcreteProperties, type HoggingLayout, type MomentSign } from "./cracked-section";
 import { getEffectiveInertiaMm4 } from "./effective-inertia";
 
 /** Most solves per load level; then the lower of the last two iterates is used (and said). */
@@ -65,7 +66,9 @@ interface SpanCrackingFacts {
   iGMm4: number;
   mCrNmm: number;
   iCrSaggingMm4: number;
+  /** I_cr under hogging with the layout as given, and with the "tension_only" assumption (cracked-section.ts HoggingLayout). */
   iCrHoggingMm4: number;
+  iCrHoggingTensionOnlyMm4: number;
 }
 
 // Section facts depend only on the section and E_c: computed once per distinct section object.
@@ -84,6 +87,7 @@ function getSpanCrackingFacts(section: ReinforcedConcreteSection, concreteEMpa: 
       mCrNmm: getCrackingMomentNmm(section),
       iCrSaggingMm4: getCrackedSection(section, concreteEMpa, "sagging").iCrMm4,
       iCrHoggingMm4: getCrackedSection(section, concreteEMpa, "hogging").iCrMm4,
+      iCrHoggingTensionOnlyMm4: getCrackedSection(section, concreteEMpa, "hogging", "tension_only").iCrMm4,
     };
     byModulus.set(concreteEMpa, facts);
   }
@@ -92,22 +96,33 @@ function getSpanCrackingFacts(section: ReinforcedConcreteSection, concreteEMpa: 
 
 /**
  * I_e of a reinforced span at service moment M_a (N*mm, + sagging): Table 24.2.3.5 with the
- * cracked section for the moment's sign. The span's own largest moment sets one uniform I_e for
- * the whole span: the lowest I_e that 24.2.3.6 and 24.2.3.7 (averaging, or the midspan value)
- * could give, hence conservative (from memory).
+ * cracked section for the moment's sign (under hogging, the top steel when the section gives it,
+ * else the `hogging` layout: cracked-section.ts HoggingLayout). The span's own largest moment sets
+ * one uniform I_e for the whole span: the lowest I_e that 24.2.3.6 and 24.2.3.7 (averaging, or the
+ * midspan value) could give, hence conservative (from memory).
  */
-export function getSpanEffectiveInertiaMm4(section: ReinforcedConcreteSection, concreteEMpa: number, momentNmm: number): number {
+export function getSpanEffectiveInertiaMm4(section: ReinforcedConcreteSection, concreteEMpa: number, momentNmm: number, hogging: HoggingLayout = "given"): number {
   const facts = getSpanCrackingFacts(section, concreteEMpa);
   const sign: MomentSign = momentNmm >= 0 ? "sagging" : "hogging";
-  const iCr = sign === "sagging" ? facts.iCrSaggingMm4 : facts.iCrHoggingMm4;
+  const iCr = sign === "sagging" ? facts.iCrSaggingMm4 : hogging === "tension_only" ? facts.iCrHoggingTensionOnlyMm4 : facts.iCrHoggingMm4;
   return getEffectiveInertiaMm4(facts.iGMm4, iCr, facts.mCrNmm, momentNmm);
 }
 
-function getNextInertia(member: Member, solution: MemberSolution, factors: CaseFactors, current: readonly number[], moments: number[]): number[] {
+/**
+ * The hogging layout of a member's spans without top steel: the given layout for a member of
+ * overhangs only (a cantilever's given steel is its top steel, model.ts), else "tension_only":
+ * in a member with a span between supports the given layout is that span's bottom steel.
+ */
+export function getMemberHoggingLayout(member: Member): HoggingLayout {
+  for (const judgement of getSpanJudgements(member)) if (judgement.spanKind === "span") return "tension_only";
+  return "given";
+}
+
+function getNextInertia(member: Member, hogging: HoggingLayout, solution: MemberSolution, factors: CaseFactors, current: readonly number[], moments: number[]): number[] {
   return member.spans.map((span, index) => {
     const moment = findSpanMomentExtreme(solution, factors, index).momentNmm;
     moments[index] = moment;
-    return span.reinforcedConcrete === undefined ? (current[index] as number) : getSpanEffectiveInertiaMm4(span.reinforcedConcrete, span.eMpa, moment);
+    return span.reinforcedConcrete === undefined ? (current[index] as number) : getSpanEffectiveInertiaMm4(span.reinforcedConcrete, span.eMpa, moment, hogging);
   });
 }
 
@@ -128,17 +143,18 @@ function getLargestRelativeChange(a: readonly number[], b: readonly number[]): n
 export function solveCrackedState(member: Member, stateFactors: Record<string, number>, arrangement?: LoadArrangement): CrackedState {
   let inertia = member.spans.map((span) => span.iMm4);
   const moments = member.spans.map(() => 0);
+  const hogging = getMemberHoggingLayout(member);
   for (let iteration = 1; iteration <= MAX_CRACKED_ITERATIONS; iteration++) {
     const solution = solveValidatedMember(createMemberWithInertia(member, inertia), arrangement?.split);
     const factors = createArrangedFactors(solution, stateFactors, arrangement);
-    const next = getNextInertia(member, solution, factors, inertia, moments);
+    const next = getNextInertia(member, hogging, solution, factors, inertia, moments);
     if (getLargestRelativeChange(inertia, next) <= CRACKED_TOLERANCE) return { solution, factors, inertiaMm4: inertia, serviceMomentNmm: moments, converged: true };
     if (iteration === MAX_CRACKED_ITERATIONS) inertia = inertia.map((value, index) => Math.min(value, next[index] as number));
     else inertia = next;
   }
   const solution = solveValidatedMember(createMemberWithInertia(member, inertia), arrangement?.split);
   const factors = createArrangedFactors(solution, stateFactors, arrangement);
-  getNextInertia(member, solution, factors, inertia, moments);
+  getNextInertia(member, hogging, solution, factors, inertia, moments);
   return { solution, factors, inertiaMm4: inertia, serviceMomentNmm: moments, converged: false };
 }
 

@@ -7,7 +7,7 @@ export const MAX_TENSION_STEEL_RATIO = 0.08;
 type SectionField = keyof ReinforcedConcreteSection;
 
 const REQUIRED_POSITIVE: SectionField[] = ["webWidthMm", "depthMm", "tensionSteelMm2", "effectiveDepthMm", "steelEMpa", "ruptureMpa"];
-const OPTIONAL_POSITIVE: SectionField[] = ["flangeWidthMm", "flangeThicknessMm", "compressionSteelMm2", "compressionDepthMm"];
+const OPTIONAL_POSITIVE: SectionField[] = ["flangeWidthMm", "flangeThicknessMm", "compressionSteelMm2", "compressionDepthMm", "topSteelMm2", "topEffectiveDepthMm"];
 
 /** A problem with one field of a reinforced section (the engine's field name). */
 export interface ReinforcementProblem {
@@ -17,7 +17,7 @@ export interface ReinforcementProblem {
 
 /**
  * Geometric problems of a reinforced section whose numbers are positive and finite: d < h,
- * d' < d, flange and compression steel given whole, flange at least as wide as the web and
+ * d' < d, d_top < h, flange, compression steel and top steel given whole, flange at least as wide as the web and
  * thinner than h, tension steel at most MAX_TENSION_STEEL_RATIO of b_w d.
  */
 export function findReinforcementProblems(section: ReinforcedConcreteSection): ReinforcementProblem[] {
@@ -33,6 +33,11 @@ function collectGeometryIssues(section: ReinforcedConcreteSection, path: string,
   if (section.flangeThicknessMm !== undefined && section.flangeThicknessMm >= section.depthMm) issues.push({ path: `${path}.flangeThicknessMm`, message: "the flange thickness must be less than the section depth h" });
   if ((section.compressionSteelMm2 === undefined) !== (section.compressionDepthMm === undefined)) issues.push({ path: `${path}.compressionSteelMm2`, message: "compression steel needs both its area and its depth d'" });
   if (section.compressionDepthMm !== undefined && section.compressionDepthMm >= section.effectiveDepthMm) issues.push({ path: `${path}.compressionDepthMm`, message: "the compression steel depth d' must be less than the effective depth d" });
+  if ((section.topSteelMm2 === undefined) !== (section.topEffectiveDepthMm === undefined)) issues.push({ path: `${path}.topSteelMm2`, message: "top steel needs both its area and its depth d_top from the bottom face" });
+  if (section.topEffectiveDepthMm !== undefined && section.topEffectiveDepthMm >= section.depthMm) issues.push({ path: `${path}.topEffectiveDepthMm`, message: `the top steel depth d_top (${section.topEffectiveDepthMm} mm, from the bottom face) must be less than the section depth h (${section.depthMm} mm)` });
+  if (section.topSteelMm2 !== undefined && section.topEffectiveDepthMm !== undefined && section.topSteelMm2 > MAX_TENSION_STEEL_RATIO * section.webWidthMm * section.topEffectiveDepthMm) {
+    issues.push({ path: `${path}.topSteelMm2`, message: `top steel is more than ${MAX_TENSION_STEEL_RATIO * 100}% of b_w d_top: check the area and its unit` });
+  }
   if (section.tensionSteelMm2 > MAX_TENSION_STEEL_RATIO * section.webWidthMm * section.effectiveDepthMm) {
     issues.push({ path: `${path}.tensionSteelMm2`, message: `tension steel is more than ${MAX_TENSION_STEEL_RATIO * 100}% of b_w d: check the area and its unit` });
   }

@@ -16,7 +16,7 @@ export const RUPTURE_COEFFICIENT_SQRT_MPA = 0.62;
 /** Sustained-load duration when a reinforced member gives none: five years or more (xi = 2.0, the largest, conservative). */
 export const DEFAULT_DURATION_MONTHS = 60;
 
-const REINFORCEMENT_SPEC = createFieldSpec(["tensionSteel", "effectiveDepth", "compressionSteel", "compressionDepth", "steelE"], ["tensionSteel", "effectiveDepth"]);
+const REINFORCEMENT_SPEC = createFieldSpec(["tensionSteel", "effectiveDepth", "compressionSteel", "compressionDepth", "topSteel", "topDepth", "steelE"], ["tensionSteel", "effectiveDepth"]);
 const CREEP_SPEC = createFieldSpec(["method", "durationMonths", "compressionRatio", "factor"], ["method"]);
 
 const PUBLIC_FIELDS: Partial<Record<keyof ReinforcedConcreteSection, string>> = {
@@ -24,6 +24,8 @@ const PUBLIC_FIELDS: Partial<Record<keyof ReinforcedConcreteSection, string>> = 
   effectiveDepthMm: "effectiveDepth",
   compressionSteelMm2: "compressionSteel",
   compressionDepthMm: "compressionDepth",
+  topSteelMm2: "topSteel",
+  topEffectiveDepthMm: "topDepth",
   steelEMpa: "steelE",
 };
 
@@ -34,13 +36,16 @@ export interface ReinforcementInput {
   effectiveDepthMm: number;
   compressionSteelMm2?: number;
   compressionDepthMm?: number;
+  topSteelMm2?: number;
+  topEffectiveDepthMm?: number;
   steelEMpa: number;
 }
 
 /**
- * `{ tensionSteel, effectiveDepth, compressionSteel?, compressionDepth?, steelE? }`: areas in area
- * units, depths (from the compression face) in section-dimension units, steelE in modulus units
- * (default 200,000 MPa). Compression steel needs both its area and its depth.
+ * `{ tensionSteel, effectiveDepth, compressionSteel?, compressionDepth?, topSteel?, topDepth?, steelE? }`:
+ * areas in area units, depths (from the compression face; topDepth from the bottom face, the
+ * compression face under hogging) in section-dimension units, steelE in modulus units (default
+ * 200,000 MPa). Compression steel and top steel each need both their area and their depth.
  */
 export function readReinforcement(ctx: ReadContext, value: unknown, path: FieldPath): ReinforcementInput | null {
   const block = readObject(ctx, value, path, REINFORCEMENT_SPEC);
@@ -50,15 +55,24 @@ export function readReinforcement(ctx: ReadContext, value: unknown, path: FieldP
   const depth = readQuantity(ctx, block.effectiveDepth, childPath(path, "effectiveDepth"), "sectionDimension", "positive");
   const compression = block.compressionSteel === undefined ? undefined : readQuantity(ctx, block.compressionSteel, childPath(path, "compressionSteel"), "area", "positive");
   const compressionDepth = block.compressionDepth === undefined ? undefined : readQuantity(ctx, block.compressionDepth, childPath(path, "compressionDepth"), "sectionDimension", "positive");
+  const top = block.topSteel === undefined ? undefined : readQuantity(ctx, block.topSteel, childPath(path, "topSteel"), "area", "positive");
+  const topDepth = block.topDepth === undefined ? undefined : readQuantity(ctx, block.topDepth, childPath(path, "topDepth"), "sectionDimension", "positive");
+  if ((block.topSteel === undefined) !== (block.topDepth === undefined)) {
+    ctx.issues.add(childPath(path, block.topSteel === undefined ? "topSteel" : "topDepth"), "top steel needs both topSteel (area) and topDepth (d_top, from the bottom face)");
+  }
   const steelE = block.steelE === undefined ? DEFAULT_STEEL_E_MPA : readQuantity(ctx, block.steelE, childPath(path, "steelE"), "modulus", "positive");
   if ((block.compressionSteel === undefined) !== (block.compressionDepth === undefined)) {
     ctx.issues.add(childPath(path, block.compressionSteel === undefined ? "compressionSteel" : "compressionDepth"), "compression steel needs both compressionSteel (area) and compressionDepth (d', from the compression face)");
   }
-  if (ctx.issues.count > before || tension === null || depth === null || compression === null || compressionDepth === null || steelE === null) return null;
+  if (ctx.issues.count > before || tension === null || depth === null || compression === null || compressionDepth === null || top === null || topDepth === null || steelE === null) return null;
   const input: ReinforcementInput = { path, tensionSteelMm2: tension, effectiveDepthMm: depth, steelEMpa: steelE };
   if (compression !== undefined && compressionDepth !== undefined) {
     input.compressionSteelMm2 = compression;
     input.compressionDepthMm = compressionDepth;
+  }
+  if (top !== undefined && topDepth !== undefined) {
+    input.topSteelMm2 = top;
+    input.topEffectiveDepthMm = topDepth;
   }
   return input;
 }
@@ -89,6 +103,10 @@ export function createReinforcedSection(ctx: ReadContext, input: ReinforcementIn
   if (input.compressionSteelMm2 !== undefined) {
     built.compressionSteelMm2 = input.compressionSteelMm2;
     built.compressionDepthMm = input.compressionDepthMm;
+  }
+  if (input.topSteelMm2 !== undefined) {
+    built.topSteelMm2 = input.topSteelMm2;
+    built.topEffectiveDepthMm = input.topEffectiveDepthMm;
   }
   const problems = findReinforcementProblems(built);
   for (const problem of problems) ctx.issues.add(childPath(input.path, PUBLIC_FIELDS[problem.field] ?? problem.field), `${problem.message}${where}`);

@@ -1,5 +1,5 @@
 import type { InputIssue, Load, Member, Support, SupportKind } from "../model";
-import { describeOutOfBounds } from "../input-bounds";
+import { describeOutOfBounds, QUANTITY_BOUNDS } from "../input-bounds";
 import { INTERNAL_UNITS, type QuantityKind } from "../units/unit-table";
 import { EngineInputError } from "./engine-input-error";
 
@@ -50,6 +50,9 @@ function getFieldPath(collection: string, index: number, field: string): string 
 
 /** A size (span, E, I, ...): positive, finite and inside its physical range (input-bounds.ts). */
 function collectSizeIssue(collection: string, index: number, field: string, value: unknown, kind: QuantityKind, what: string, issues: InputIssue[]): void {
+  // the common case first, in one range test: > 0 and inside the bounds (NaN fails every comparison)
+  const bound = QUANTITY_BOUNDS[kind];
+  if (typeof value === "number" && value > 0 && value >= bound.minAbs && value <= bound.maxAbs) return;
   if (isPositiveFinite(value)) {
     const outOfBounds = describeOutOfBounds(kind, value, INTERNAL_UNITS[kind]);
     if (outOfBounds !== null) issues.push({ path: getFieldPath(collection, index, field), message: `${what} ${outOfBounds}` });
@@ -60,6 +63,8 @@ function collectSizeIssue(collection: string, index: number, field: string, valu
 
 /** A signed value (load intensity, force, moment): finite and not beyond its physical range. */
 function collectSignedIssue(index: number, field: string, value: unknown, kind: QuantityKind, what: string, issues: InputIssue[]): void {
+  const maxAbs = QUANTITY_BOUNDS[kind].maxAbs;
+  if (typeof value === "number" && value >= -maxAbs && value <= maxAbs) return;
   if (isFiniteNumber(value)) {
     const outOfBounds = describeOutOfBounds(kind, value, INTERNAL_UNITS[kind], true);
     if (outOfBounds !== null) issues.push({ path: getFieldPath("loads", index, field), message: `${what} ${outOfBounds}` });

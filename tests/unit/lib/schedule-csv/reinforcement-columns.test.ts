@@ -25,6 +25,15 @@ describe("reinforced concrete columns", () => {
     expect(member.materialCreepFactor).toBeCloseTo(1.4 / (1 + (50 * 400) / (1200 * 530)), 12);
   });
 
+  it("top_steel and top_depth give the steel for hogging regions", () => {
+    const header = `${HEADER},top_steel [mm^2],top_depth [mm]`;
+    const result = parseScheduleCsv([header, "RB1,floor_beam,1,concrete-fc30,,tee,1200,100,300,600,2000,530,,,7.5,roller fixed,18,12,2454,545"].join("\n"), { name: "Invented RC frame", limits: { preset: "aci-318-19-floor" } });
+    if (!result.ok) throw new Error(JSON.stringify(result.errors));
+    const parsed = parseSchedule(result.doc);
+    if (!parsed.ok) throw new Error(JSON.stringify(parsed.issues));
+    expect(parsed.schedule.members[0]!.spans[0]?.reinforcedConcrete).toMatchObject({ topSteelMm2: 2454, topEffectiveDepthMm: 545 });
+  });
+
   it("an effective depth beyond h is an error on that row's effective_depth column", () => {
     const { result, parsed } = parse([
       "RB1,floor_beam,1,concrete-fc30,,tee,1200,100,300,600,2000,530,,,7.5,pinned roller,18,12",

@@ -299,5 +299,5 @@ describe("pattern loading: brute force over every arrangement (independent check
     }
     // the generated members exercise patterns: many checks are worse than with every span loaded
     expect(patternMattered).toBeGreaterThan(20);
-  });
+  }, 120_000); // a generous bound: the brute force takes seconds on a loaded machine, and vitest's 5 s default is no speed target
 });

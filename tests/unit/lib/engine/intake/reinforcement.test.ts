@@ -54,6 +54,18 @@ describe("reinforcement block", () => {
     expect(twelve.materialCreepFactor).toBeCloseTo(1.4, 12);
   });
 
+  it("top steel for hogging regions: topSteel at topDepth (from the bottom face), both or neither", () => {
+    const doc = createDoc({ ...concrete, supports: ["roller", "fixed"], reinforcement: { ...reinforcement, topSteel: { value: 24.54, unit: "cm^2" }, topDepth: 445 } });
+    const section = parseOk(doc).members[0]!.spans[0]!.reinforcedConcrete!;
+    // 1 cm^2 = 100 mm^2 (SI, NIST SP 811)
+    expect(section.topSteelMm2).toBeCloseTo(2454, 9);
+    expect(section.topEffectiveDepthMm).toBe(445);
+    const half = formatIssues(parseIssues(createDoc({ ...concrete, reinforcement: { ...reinforcement, topSteel: 2454 } })));
+    expect(half).toEqual(["members[0].reinforcement.topDepth: top steel needs both topSteel (area) and topDepth (d_top, from the bottom face)"]);
+    const deep = formatIssues(parseIssues(createDoc({ ...concrete, reinforcement: { ...reinforcement, topSteel: 2454, topDepth: 520 } })));
+    expect(deep).toEqual(["members[0].reinforcement.topDepth: the top steel depth d_top (520 mm, from the bottom face) must be less than the section depth h (500 mm) (members[0].spans[0])"]);
+  });
+
   it("errors name the field and the member", () => {
     const issues = formatIssues(parseIssues(createDoc({ ...concrete, reinforcement: { tensionSteel: 0, effectiveDepth: 440 } })));
     expect(issues).toContain("members[0].reinforcement.tensionSteel: must be greater than 0");
