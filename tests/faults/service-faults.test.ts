@@ -34,9 +34,11 @@ async function expectUnfinished(id: string) {
   return progress;
 }
 
-async function expectCompleteOnce(id: string, worker: ReturnType<typeof drill.startWorker>) {
+/** Completed after the fault (so the fault hit it unfinished), once, by the same worker process. */
+async function expectCompleteOnce(id: string, worker: ReturnType<typeof drill.startWorker>, faultAtMs: number) {
   const final = await waitForFinalState(id, FINISH_WITHIN_MS);
   expect(final.status).toBe("completed");
+  expect(final.completedAtMs).toBeGreaterThan(faultAtMs);
   expect(final.checked_count).toBe(MEMBERS);
   expect(await countResults(id)).toEqual({ outcomes: { n: MEMBERS, d: MEMBERS }, checks: { n: MEMBERS * 2, d: MEMBERS * 2 } });
   // The worker carried on by itself: the process that saw the fault is the one still running.
@@ -52,11 +54,12 @@ describe("service faults during a schedule", () => {
     await waitForProgress(id, (p) => p.chunks_done >= 1, 180_000);
     const redis = new Redis(process.env.REDIS_URL!);
     await expectUnfinished(id);
+    const faultAtMs = Date.now();
     // The faults suite's Redis database is its own (test-faults.sh): FLUSHDB loses every queued job.
     await redis.flushdb();
     expect(await redis.dbsize()).toBeLessThanOrEqual(5);
     await redis.quit();
-    const final = await expectCompleteOnce(id, worker);
+    const final = await expectCompleteOnce(id, worker, faultAtMs);
     console.log(`[faults] flush: completed ${final.seconds.toFixed(1)} s after submission`);
   });
 
@@ -64,10 +67,11 @@ describe("service faults during a schedule", () => {
     const id = await submit("Redis restart drill");
     await waitForProgress(id, (p) => p.chunks_done >= 1, 180_000);
     await expectUnfinished(id);
+    const faultAtMs = Date.now();
     execFileSync("bash", ["docker-local/redis.sh", "stop"], { stdio: "ignore" });
     await new Promise((r) => setTimeout(r, 1500));
     execFileSync("bash", ["docker-local/redis.sh", "start"], { stdio: "ignore" });
-    const final = await expectCompleteOnce(id, worker);
+    const final = await expectCompleteOnce(id, worker, faultAtMs);
     console.log(`[faults] Redis restart: completed ${final.seconds.toFixed(1)} s after submission`);
   });
 
@@ -75,20 +79,23 @@ describe("service faults during a schedule", () => {
     const id = await submit("PostgreSQL restart drill");
     // Catch a worker inside the COPY of this schedule's results, then stop the server under it.
     const sql = getSql();
+    await waitForProgress(id, (p) => p.status === "checking", 180_000);
+    await expectUnfinished(id);
     let copying = false;
     const deadline = Date.now() + 180_000;
     while (!copying && Date.now() < deadline) {
-      const [row] = await sql`select count(*)::int as n from pg_stat_activity where state = 'active' and query ilike 'copy member_%'`;
+      const [row] = await sql`select count(*)::int as n from pg_stat_activity where state = 'active' and datname = current_database() and query ilike 'copy member_%'`;
       copying = (row!.n as number) > 0;
       if (!copying) await new Promise((r) => setTimeout(r, 5));
     }
     expect(copying).toBe(true);
     // The same script test-faults.sh started the cluster with: same data folder, port and options.
     const database = new URL(process.env.DATABASE_URL!).pathname.slice(1);
+    const faultAtMs = Date.now();
     execFileSync("bash", ["docker-local/postgres.sh", "stop"], { stdio: "ignore" });
     execFileSync("bash", ["docker-local/postgres.sh", "start", database], { stdio: "ignore" });
-    await expectUnfinished(id);
-    const final = await expectCompleteOnce(id, worker);
+    // The COPY caught in flight was rolled back with its transaction; the completion comes after.
+    const final = await expectCompleteOnce(id, worker, faultAtMs);
     console.log(`[faults] PostgreSQL restart mid-COPY: completed ${final.seconds.toFixed(1)} s after submission`);
   });
 });
