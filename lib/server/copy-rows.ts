@@ -34,7 +34,9 @@ export async function copyRows(sql: Sql | TransactionSql, table: string, columns
   const refused = observeRefusal(query as unknown as DriverQuery);
   // also rejects when the COPY statement itself fails, which `await query.writable()` reports
   refused.catch(() => undefined);
-  const writable = await query.writable();
+  // The connection may drop before the COPY starts: then only `refused` settles (a hang otherwise,
+  // and a job that hangs keeps renewing its lock, so it is never retried).
+  const writable = await Promise.race([query.writable(), refused]);
   async function* lines() {
     let batch = "";
     for (const row of rows) {

@@ -1,7 +1,8 @@
 // Member throughput of one worker process at a given check concurrency (engine threads):
 // submits a schedule of production-size chunks, starts a worker with CHECK_CONCURRENCY, and times
 // the first stored chunk to completion (so the process start and warm-up are not counted).
-// Run by docker-local/bench-workers.sh (npm run bench:workers); not a test.
+// Run by docker-local/bench-workers.sh (npm run bench:workers); not a test. The worker log goes to
+// .local/logs/drill-sagline-throughput-*.log.
 import { getSql, closeDb } from "@/db/client";
 import { createDrill, submitDrillSchedule, waitForProgress } from "@/tests/helpers/drill";
 import { closeQueues } from "@/workers/queues";

@@ -1,6 +1,7 @@
 // Shared pieces of the fault drills: workers of their own on a private queue prefix, and waiting
 // on a schedule straight from PostgreSQL.
 import { spawn, type ChildProcess } from "node:child_process";
+import { mkdirSync, openSync } from "node:fs";
 
 import { getSql } from "@/db/client";
 import { getChunkTotals } from "@/db/queries/schedules";
@@ -11,6 +12,10 @@ import { createBeam, createScheduleDoc } from "./schedules";
 export function createDrill(name: string) {
   const prefix = `sagline-${name}-${Date.now().toString(36)}`;
   const children = new Set<ChildProcess>();
+
+  // Every worker of the drill writes to one log, for reading after a failure.
+  mkdirSync(".local/logs", { recursive: true });
+  const log = openSync(`.local/logs/drill-${prefix}.log`, "a");
 
   function startWorker(extraEnv: Record<string, string> = {}): ChildProcess {
     const child = spawn("npx", ["tsx", "workers/index.ts"], {
@@ -25,7 +30,7 @@ export function createDrill(name: string) {
         RECONCILE_EVERY_MS: "1000",
         ...extraEnv,
       },
-      stdio: "ignore",
+      stdio: ["ignore", log, log],
       detached: true,
     });
     children.add(child);
@@ -100,8 +105,9 @@ export async function waitForProgress(id: string, test: (p: Awaited<ReturnType<t
 /** Waits for the schedule to reach a final state; resolves with the status and the seconds it took from `sinceMs`. */
 export async function waitForFinalState(id: string, timeoutMs: number) {
   const progress = await waitForProgress(id, (p) => p.status === "completed" || p.status === "failed", timeoutMs);
-  const [row] = await getSql()`select extract(epoch from completed_at - created_at)::float8 as seconds from schedules where id = ${id}`;
-  return { ...progress, seconds: row!.seconds as number };
+  const [row] = await getSql()`
+    select extract(epoch from completed_at - created_at)::float8 as seconds, extract(epoch from completed_at)::float8 * 1000 as completed_ms from schedules where id = ${id}`;
+  return { ...progress, seconds: row!.seconds as number, completedAtMs: row!.completed_ms as number };
 }
 
 /** Exactly one outcome per member and one row per member and check. */
