@@ -6,8 +6,10 @@ import { Notice } from "@/components/ui/notice";
 import { SafetyCaution } from "@/components/ui/safety-caution";
 import { getSchedule, listResults } from "@/db/queries/schedules";
 import { requirePage } from "@/lib/server/auth/guards";
+import { can } from "@/lib/server/auth/request-context";
 
 import { PageHeader } from "../../_components/page-header";
+import { ProfileVersionNotice } from "../../settings/limit-profiles/_components/profile-version-notice";
 import { encodeCursor, isIndexCursor, readPageCursor } from "../_components/cursor";
 import { readResultFilters, toQuery } from "../_components/result-filters";
 import { ResultFiltersForm } from "../_components/result-filters-form";
@@ -62,6 +64,7 @@ export default async function SchedulePage({ params, searchParams }: SchedulePag
       </div>
       <SafetyCaution />
       <ScheduleSummary schedule={schedule} />
+      <ProfileVersionNotice organizationId={context.active!.organizationId} scheduleId={schedule.id} canRecheck={can(context, "schedules:submit")} />
 
       <section aria-labelledby="results-heading" className="mt-6">
         <div className="mb-2 flex flex-wrap items-end justify-between gap-3">
