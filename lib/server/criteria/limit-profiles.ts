@@ -1,5 +1,3 @@
-import { z } from "zod";
-
 import { parseLimitProfile } from "@/lib/engine/intake";
 import type { LimitProfile } from "@/lib/engine/model";
 import { getPreset, listPresetIds } from "@/lib/engine/presets";
@@ -11,20 +9,18 @@ import { issuesToFieldErrors } from "@/lib/server/schedules/issue-pointers";
 export const MAX_LIMIT_PROFILES = 200;
 
 /**
- * What a person or a key writes: a label and a source, and either a preset to copy or the
- * definition (the public `limits.custom` format without id, label and source, which Sagline sets).
+ * What a person or a key writes (api-schemas/v1/limit-profile-write.schema.json; the settings
+ * screen's form schema): a label and a source, and either a preset to copy or the definition (the
+ * public `limits.custom` format without id, label and source, which Sagline sets).
  */
-export const limitProfileInputSchema = z
-  .object({
-    label: z.string().trim().min(1).max(200),
-    source: z.string().trim().min(1).max(500),
-    basedOnPreset: z.string().max(64).optional(),
-    definition: z.record(z.string(), z.unknown()).optional(),
-    /** For an edit: the version the change was made from; another edit in between is a conflict. */
-    expectedVersion: z.number().int().positive().optional(),
-  })
-  .strict();
-export type LimitProfileInput = z.infer<typeof limitProfileInputSchema>;
+export interface LimitProfileInput {
+  label: string;
+  source: string;
+  basedOnPreset?: string;
+  definition?: Record<string, unknown>;
+  /** For an edit: the version the change was made from; another edit in between is a conflict. */
+  expectedVersion?: number;
+}
 
 export interface LimitProfileSummary {
   id: string;
@@ -67,6 +63,18 @@ export function describeProfileDefinition(profile: LimitProfile): Record<string,
 /** The engine profile's id: the public id and version, so results name exactly what they were checked with. */
 function getEngineProfileId(profileId: string, version: number): string {
   return `${profileId}.v${version}`;
+}
+
+/** Label and source trimmed; blank after trimming is refused, naming the field. */
+function readTexts(input: LimitProfileInput): LimitProfileInput {
+  const label = input.label.trim();
+  const source = input.source.trim();
+  const errors = [
+    ...(label === "" || label.length > 200 ? [{ pointer: "/label", message: "must be 1 to 200 characters" }] : []),
+    ...(source === "" || source.length > 500 ? [{ pointer: "/source", message: "must be 1 to 500 characters: the published source or the in-house rule" }] : []),
+  ];
+  if (errors.length > 0) throw new DomainError("invalid_input", "The profile needs a label and a source.", errors);
+  return { ...input, label, source };
 }
 
 function resolveDefinition(profileId: string, version: number, input: LimitProfileInput, previous: Record<string, unknown> | null) {
@@ -123,7 +131,8 @@ export async function getLimitProfileOrThrow(organizationId: string, profileId: 
   };
 }
 
-export async function createLimitProfile(organizationId: string, input: LimitProfileInput, userId: string | null = null): Promise<LimitProfileSummary> {
+export async function createLimitProfile(organizationId: string, given: LimitProfileInput, userId: string | null = null): Promise<LimitProfileSummary> {
+  const input = readTexts(given);
   const sql = getSql();
   const [count] = await sql`select count(*)::int as n from limit_profiles where organization_id = ${organizationId}`;
   if ((count?.n as number) >= MAX_LIMIT_PROFILES) throw new DomainError("conflict", `The organization already has ${MAX_LIMIT_PROFILES} limit profiles, the most it may hold.`);
@@ -144,7 +153,8 @@ export async function createLimitProfile(organizationId: string, input: LimitPro
  * Saves an edit as a new version; earlier versions, and every schedule checked against them,
  * stay as they were. With expectedVersion, an edit made from an older version is a conflict.
  */
-export async function updateLimitProfile(organizationId: string, profileId: string, input: LimitProfileInput, userId: string | null = null): Promise<LimitProfileSummary> {
+export async function updateLimitProfile(organizationId: string, profileId: string, given: LimitProfileInput, userId: string | null = null): Promise<LimitProfileSummary> {
+  const input = readTexts(given);
   return getSql().begin(async (tx) => {
     const [current] = await tx`select * from limit_profiles where id = ${profileId} and organization_id = ${organizationId} for update`;
     if (!current) throw new DomainError("not_found", "The limit profile was not found.");

@@ -1,8 +1,6 @@
-import { z } from "zod";
-
 import type { Material } from "@/lib/engine/materials";
 import { getSql } from "@/db/client";
-import { organizationMaterialFamilies } from "@/db/schema";
+import type { OrganizationMaterialFamily } from "@/db/schema";
 import { DomainError } from "@/lib/server/errors";
 import { createId } from "@/lib/server/ids";
 
@@ -11,26 +9,24 @@ import { isUniqueViolation } from "./unique-violation";
 export const MAX_ORGANIZATION_MATERIALS = 500;
 
 /**
- * An organization material as the API and the settings screen write it, internal units. Concrete
- * is left to the library (concrete-fc<f'c>): its E, modulus of rupture and creep follow f'c.
+ * An organization material as the API (api-schemas/v1/material-write.schema.json) and the settings
+ * screen (its form schema) validate it, internal units. Concrete is left to the library
+ * (concrete-fc<f'c>): its E, modulus of rupture and creep follow f'c.
  */
-export const materialInputSchema = z
-  .object({
-    name: z.string().trim().min(1).max(100),
-    family: z.enum(organizationMaterialFamilies),
-    eMpa: z.number().positive().max(1e7),
-    gMpa: z.number().positive().max(1e7).nullable().optional(),
-    densityKgPerM3: z.number().positive().max(1e5).nullable().optional(),
-    creepFactor: z.number().min(0).max(10).nullable().optional(),
-    source: z.string().trim().min(1).max(500),
-  })
-  .strict();
-export type MaterialInput = z.infer<typeof materialInputSchema>;
+export interface MaterialInput {
+  name: string;
+  family: OrganizationMaterialFamily;
+  eMpa: number;
+  gMpa?: number | null;
+  densityKgPerM3?: number | null;
+  creepFactor?: number | null;
+  source: string;
+}
 
 export interface OrganizationMaterialView {
   id: string;
   name: string;
-  family: (typeof organizationMaterialFamilies)[number];
+  family: OrganizationMaterialFamily;
   eMpa: number;
   gMpa: number | null;
   densityKgPerM3: number | null;
@@ -69,6 +65,18 @@ export function toEngineMaterial(view: OrganizationMaterialView): Material {
   };
 }
 
+/** Name and source trimmed; blank after trimming is refused, naming the field. */
+function readTexts(input: MaterialInput): MaterialInput {
+  const name = input.name.trim();
+  const source = input.source.trim();
+  const errors = [
+    ...(name === "" || name.length > 100 ? [{ pointer: "/name", message: "must be 1 to 100 characters" }] : []),
+    ...(source === "" || source.length > 500 ? [{ pointer: "/source", message: "must be 1 to 500 characters: where the values come from" }] : []),
+  ];
+  if (errors.length > 0) throw new DomainError("invalid_input", "The material needs a name and a source.", errors);
+  return { ...input, name, source };
+}
+
 function conflictOnName(error: unknown, name: string): never {
   if (isUniqueViolation(error)) throw new DomainError("conflict", `A material named "${name}" already exists in this organization.`, [{ pointer: "/name", message: "already in use" }]);
   throw error;
@@ -85,7 +93,8 @@ export async function getOrganizationMaterialOrThrow(organizationId: string, mat
   return toView(row);
 }
 
-export async function createOrganizationMaterial(organizationId: string, input: MaterialInput): Promise<OrganizationMaterialView> {
+export async function createOrganizationMaterial(organizationId: string, given: MaterialInput): Promise<OrganizationMaterialView> {
+  const input = readTexts(given);
   const sql = getSql();
   const [count] = await sql`select count(*)::int as n from organization_materials where organization_id = ${organizationId}`;
   if ((count?.n as number) >= MAX_ORGANIZATION_MATERIALS) throw new DomainError("conflict", `The organization already has ${MAX_ORGANIZATION_MATERIALS} materials, the most it may hold.`);
@@ -102,7 +111,8 @@ export async function createOrganizationMaterial(organizationId: string, input: 
 }
 
 /** Changes a material for schedules submitted from now on; those already submitted keep the values they were checked with. */
-export async function updateOrganizationMaterial(organizationId: string, materialId: string, input: MaterialInput): Promise<OrganizationMaterialView> {
+export async function updateOrganizationMaterial(organizationId: string, materialId: string, given: MaterialInput): Promise<OrganizationMaterialView> {
+  const input = readTexts(given);
   try {
     const [row] = await getSql()`
       update organization_materials set name = ${input.name}, family = ${input.family}, e_mpa = ${input.eMpa}, g_mpa = ${input.gMpa ?? null},

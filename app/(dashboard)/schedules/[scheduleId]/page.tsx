@@ -6,11 +6,12 @@ import { Notice } from "@/components/ui/notice";
 import { SafetyCaution } from "@/components/ui/safety-caution";
 import { getSchedule } from "@/db/queries/schedules";
 import { requirePage } from "@/lib/server/auth/guards";
-import { getRequestContext } from "@/lib/server/auth/request-context";
+import { can, getRequestContext } from "@/lib/server/auth/request-context";
 import { hasResultFilters, readResultQuery, toResultSearchParams } from "@/lib/server/schedules/result-query";
 import { getResultsView, RESULTS_PAGE_SIZE } from "@/lib/server/schedules/results-view";
 
 import { PageHeader } from "../../_components/page-header";
+import { ProfileVersionNotice } from "../../settings/limit-profiles/_components/profile-version-notice";
 import { readColumns } from "../_components/result-columns";
 import { ResultFiltersForm } from "../_components/result-filters-form";
 import { ScheduleSummary } from "../_components/schedule-summary";
@@ -80,6 +81,7 @@ export default async function SchedulePage({ params, searchParams }: SchedulePag
       </div>
       <SafetyCaution />
       <ScheduleSummary schedule={schedule} />
+      <ProfileVersionNotice organizationId={context.active!.organizationId} scheduleId={schedule.id} canRecheck={can(context, "schedules:submit")} />
 
       <section aria-labelledby="results-heading" className="mt-6">
         <div className="mb-2 space-y-2">

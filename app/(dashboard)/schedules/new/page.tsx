@@ -4,6 +4,7 @@ import Link from "next/link";
 import { SafetyCaution } from "@/components/ui/safety-caution";
 import { listPresets } from "@/lib/engine/presets";
 import { requirePage } from "@/lib/server/auth/guards";
+import { loadUploadCriteria } from "@/lib/server/criteria/upload-criteria";
 import { MAX_SCHEDULE_BODY_BYTES } from "@/lib/server/schedules/submit-from-request";
 
 import { PageHeader } from "../../_components/page-header";
@@ -12,8 +13,10 @@ import { UploadWizard } from "./_components/upload-wizard";
 export const metadata: Metadata = { title: "Submit a CSV" };
 
 export default async function NewSchedulePage() {
-  await requirePage("/schedules/new");
-  const presets = listPresets().map((p) => ({ id: p.id, label: p.label, source: p.source }));
+  const context = await requirePage("/schedules/new");
+  // the organization's own profiles beside the presets, and what the server reads catalogue names and materials with
+  const criteria = await loadUploadCriteria(context.active!.organizationId);
+  const presets = [...criteria.profiles.map((p) => ({ id: p.id, label: `${p.profile.label} (organization profile, v${p.version})`, source: p.profile.source })), ...listPresets().map((p) => ({ id: p.id, label: p.label, source: p.source }))];
   return (
     <>
       <p className="mb-2 text-xs">
@@ -28,7 +31,7 @@ export default async function NewSchedulePage() {
       </PageHeader>
       <SafetyCaution />
       <div className="mt-6">
-        <UploadWizard presets={presets} maxBytes={MAX_SCHEDULE_BODY_BYTES} />
+        <UploadWizard presets={presets} maxBytes={MAX_SCHEDULE_BODY_BYTES} criteria={criteria} />
       </div>
     </>
   );

@@ -6,6 +6,8 @@
 import Papa from "papaparse";
 
 import { parseSchedule } from "@/lib/engine/intake";
+import type { Material } from "@/lib/engine/materials";
+import type { CatalogueSection, LimitProfile } from "@/lib/engine/model";
 import { getPreset, listProfileLoadCases } from "@/lib/engine/presets";
 import { QUANTITY_KIND_LABELS, SYSTEM_DEFAULT_UNITS, type QuantityKind, type UnitSystem } from "@/lib/engine/units";
 import {
@@ -152,7 +154,15 @@ export function describeDefaultUnit(kind: QuantityKind, system: UnitSystem | nul
   return system ? `${system} default (${SYSTEM_DEFAULT_UNITS[system][kind]})` : "choose a unit";
 }
 
+/** The organization's criteria the server reads the schedule with (catalogues in use, materials, profiles), as plain data. */
+export interface UploadCriteria {
+  catalogue: CatalogueSection[];
+  materials: Material[];
+  profiles: { id: string; profile: LimitProfile }[];
+}
+
 export interface ValidationInput {
+  criteria?: UploadCriteria;
   parsed: Extract<ParsedCsv, { ok: true }>;
   mapped: MappedHeader;
   system: UnitSystem | null;
@@ -167,7 +177,7 @@ export type ValidationResult = { ok: true; memberCount: number } | { ok: false; 
  * Every row through the server's row mapper, then the whole schedule through intake (the same
  * first checks the server makes); every problem is listed with row, line and column.
  */
-export function validateSchedule({ parsed, mapped, system, presetId, name, reference }: ValidationInput): ValidationResult {
+export function validateSchedule({ criteria, parsed, mapped, system, presetId, name, reference }: ValidationInput): ValidationResult {
   const names = Object.keys(DELIMITERS) as DelimiterName[];
   const found = findDelimiterInSingleColumnHeader(parsed.header.fields, names.map((d) => DELIMITERS[d].char));
   const other = names.find((d) => DELIMITERS[d].char === found);
@@ -190,10 +200,20 @@ export function validateSchedule({ parsed, mapped, system, presetId, name, refer
       }
       return created.mapper.mapRow(mapped.keep.map((i) => record.fields[i] ?? ""), where);
     },
-    { name, reference: reference || undefined, units, limits: { preset: presetId } },
+    // an organization profile (lp_...) or a preset, as the server reads the limits parameter
+    { name, reference: reference || undefined, units, limits: presetId.startsWith("lp_") ? { profile: presetId } : { preset: presetId } },
   );
   if (!built.ok) return { ok: false, errors: built.errors };
-  const intake = parseSchedule(built.doc);
+  const intake = parseSchedule(
+    built.doc,
+    criteria
+      ? {
+          catalogue: criteria.catalogue,
+          organizationMaterials: new Map(criteria.materials.map((m) => [m.id, m])),
+          organizationProfiles: new Map(criteria.profiles.map((p) => [p.id, p.profile])),
+        }
+      : {},
+  );
   if (!intake.ok) return { ok: false, errors: intake.issues.map((issue) => mapIssueToCsvRow(issue, built.places)) };
   // One place per member.
   return { ok: true, memberCount: built.places.length };

@@ -18,6 +18,7 @@ import {
   relineErrors,
   suggestDelimiter,
   validateSchedule,
+  type UploadCriteria,
   writeMappedCsv,
   type ColumnChoices,
   type DelimiterName,
@@ -28,7 +29,7 @@ import { RowErrors, type RowError } from "./row-errors";
 import { sendUpload } from "./send-upload";
 import { UploadOptions, type PresetOption, type UnitsChoice } from "./upload-options";
 
-export type UploadWizardProps = { presets: PresetOption[]; maxBytes: number };
+export type UploadWizardProps = { presets: PresetOption[]; maxBytes: number; criteria?: UploadCriteria };
 
 const PREVIEW_ROWS = 10;
 const EMPTY_CHOICES: ColumnChoices = { targets: {}, units: {} };
@@ -51,7 +52,7 @@ function Step({ n, title, children }: { n: number; title: string; children: Reac
 }
 
 /** Choose, preview, map, check every row, then submit and follow the workers' progress. */
-export function UploadWizard({ presets, maxBytes }: UploadWizardProps) {
+export function UploadWizard({ presets, maxBytes, criteria }: UploadWizardProps) {
   const [file, setFile] = useState<Loaded | null>(null);
   const [loadError, setLoadError] = useState<string | null>(null);
   const [delimiter, setDelimiter] = useState<DelimiterName>("comma");
@@ -113,7 +114,7 @@ export function UploadWizard({ presets, maxBytes }: UploadWizardProps) {
       ? parsed
       : missing.length > 0
         ? { ok: false, errors: missing }
-        : validateSchedule({ parsed, mapped, system, presetId, name: name.trim(), reference: reference.trim() });
+        : validateSchedule({ criteria, parsed, mapped, system, presetId, name: name.trim(), reference: reference.trim() });
     setChecked(result);
     return result;
   };
