@@ -85,7 +85,7 @@ export async function insertResultsFixture(members: FixtureMember[], options: { 
     await tx`
       insert into schedules (id, organization_id, name, status, source, profile, header, member_count, chunk_count, chunks_done, checked_count, pass_count, fail_count, error_count, completed_at)
       values (${id}, ${demoOrganizations.engineering.id}, ${name}, ${running ? "checking" : "completed"}, 'api-json', ${JSON.stringify({ id: "ibc-2021-floor", label: "Fixture limits", source: "fixture" })}::jsonb,
-        ${JSON.stringify(header)}::jsonb, ${memberCount}, ${running ? 2 : 0}, 0, ${members.length}, ${counts.pass}, ${counts.fail}, ${counts.errors}, ${running ? null : new Date()})`;
+        ${JSON.stringify(header)}::jsonb, ${memberCount}, ${running ? 2 : 0}, 0, ${members.length}, ${counts.pass}, ${counts.fail}, ${counts.errors}, case when ${running} then null else now() end)`;
     await writeOutcomes(tx, id, members);
   });
   if (running) await appendFixtureChunk(id, 0, members, { outcomesWritten: true });

@@ -1,3 +1,4 @@
+import { MEMBER_CATEGORIES } from "@/lib/engine/intake";
 import { IDEMPOTENCY_LEASE_SECONDS } from "@/lib/server/http/idempotency";
 import { RESULT_PAGE_DEFAULT, RESULT_PAGE_MAX, SCHEDULE_PAGE_DEFAULT, SCHEDULE_PAGE_MAX } from "@/lib/server/schedules/page-limits";
 
@@ -84,12 +85,20 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
       operationId: "listResults",
       tags: ["Schedules"],
       summary: "The pass/fail table",
-      description: "One row per member, as JSON or CSV (cells that a spreadsheet would read as formulas are neutralised). Each row carries the engine's notes on the member (CSV: the notes column, joined with \"; \"), e.g. \"gross section: cracking not included\" for concrete checked with its gross I.",
+      description: "One row per member, sorted, filtered and keyset-paginated (a crafted or foreign-order cursor is a 400), as JSON or CSV. The CSV is streamed, rounds its figures (utilization 3 decimals, factor of safety 2, l/N whole, deflections 0.01 mm), names units in its headers and ends with the safety caution; cells that a spreadsheet would read as formulas are neutralised. Each row carries the engine's notes on the member (CSV: the notes column, joined with \"; \"), e.g. \"gross section: cracking not included\" for concrete checked with its gross I.",
       parameters: [
         scheduleId,
         queryParameter("format", "Answer format (or send Accept: text/csv).", { enum: ["json", "csv"], default: "json" }),
         queryParameter("status", "Only members with this outcome.", { enum: ["pass", "fail", "error"] }),
-        queryParameter("category", "Only members of this category.", { type: "string" }),
+        queryParameter("category", "Only members of this category.", { enum: [...MEMBER_CATEGORIES] }),
+        queryParameter("sort", "Order: schedule order (default), utilization (highest first, errors last), mark (case-insensitive, code-point order) or category. A cursor belongs to one order.", {
+          enum: ["schedule", "utilization", "mark", "category"],
+          default: "schedule",
+        }),
+        queryParameter("mark", "Only marks starting with this text, case-insensitively (at most 64 characters).", { type: "string", maxLength: 64 }),
+        queryParameter("utilizationAbove", "Only members whose utilization is above this value, e.g. 0.9.", { type: "string", pattern: "^-?\\d+(\\.\\d+)?$" }),
+        queryParameter("review", "awaiting: only members awaiting an engineer's review.", { enum: ["awaiting"] }),
+        queryParameter("page", "Jump to this page (1-based; JSON only); then follow links.next and links.previous, which stay fast at any depth.", { type: "integer", minimum: 1 }),
         ...pageParameters(RESULT_PAGE_MAX, RESULT_PAGE_DEFAULT),
       ],
       responses: {

@@ -83,11 +83,10 @@ export const categoryLabels: Record<string, string> = {
 
 const MM_PER_INCH = 25.4;
 
-/** A deflection magnitude in the schedule's own length unit: mm for SI schedules, in for US ones. */
+/** A deflection magnitude in the schedule's own length unit (mm for SI, in for US), without the unit: the column header names it. */
 export function formatDeflection(valueMm: number | null | undefined, system: string): string {
   if (valueMm === null || valueMm === undefined || !Number.isFinite(valueMm)) return "—";
-  if (system === "US") return `${formatNumber(Math.abs(valueMm) / MM_PER_INCH, 3)} in`;
-  return `${formatMm(Math.abs(valueMm))} mm`;
+  return system === "US" ? formatNumber(Math.abs(valueMm) / MM_PER_INCH, 3) : formatMm(Math.abs(valueMm));
 }
 
 /** Span lengths in the schedule's unit: m for SI, ft for US. */

@@ -82,8 +82,13 @@ export function ResultsTable({ scheduleId, rows, columns, unitSystem }: ResultsT
             <th scope="col" className={head}>Governing check</th>
             {columns.map((c) => (
               <th key={c} scope="col" className={`${head} ${optionalHeads[c].right ? "text-right" : ""}`}>
-                {c === "ratio" ? <span className="normal-case">l/N achieved (limit)</span> : optionalColumnLabels[c]}
-                {c === "deflection" || c === "allowed" ? <span className="normal-case"> ({unit})</span> : null}
+                {c === "ratio" ? (
+                  <span className="normal-case">l/N achieved (limit)</span>
+                ) : c === "deflection" || c === "allowed" ? (
+                  `${c === "allowed" ? "Allowed" : "Deflection"} (${unit})`
+                ) : (
+                  optionalColumnLabels[c]
+                )}
               </th>
             ))}
             <th scope="col" className={`${head} text-right`}>Utilization</th>
