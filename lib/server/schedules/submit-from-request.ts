@@ -1,8 +1,8 @@
 import { DomainError } from "@/lib/server/errors";
 import { hashRequest, runIdempotent, type StoredResponse } from "@/lib/server/http/idempotency";
-import { decodeUtf8, readBodyBytes } from "@/lib/server/http/read-body";
+import { readBodyBytes } from "@/lib/server/http/read-body";
 
-import { assertMatchesScheduleSchema, parseJsonBody, readCsvParameters, readScheduleCsv } from "./read-schedule-body";
+import { readCsvParameters, readScheduleCsv, readScheduleJson } from "./read-schedule-body";
 import { scheduleLinks } from "./represent";
 import { submitSchedule, type SubmitScheduleInput, type SubmittedSchedule } from "./submit-schedule";
 
@@ -13,9 +13,7 @@ type Submitter = Pick<SubmitScheduleInput, "organizationId" | "apiKeyId" | "subm
 
 async function buildSubmission(fullType: string, type: string, bytes: Uint8Array, params: URLSearchParams): Promise<Pick<SubmitScheduleInput, "doc" | "source" | "toFieldErrors">> {
   if (type === "application/json") {
-    const doc = parseJsonBody(decodeUtf8(bytes, "body"));
-    assertMatchesScheduleSchema(doc);
-    return { doc, source: "api-json" };
+    return { doc: readScheduleJson(bytes, "body"), source: "api-json" };
   }
   if (type === "text/csv") {
     const csv = await readScheduleCsv(bytes, readCsvParameters((n) => params.get(n), "CSV schedule"));
@@ -41,9 +39,7 @@ async function buildFromMultipart(bytes: Uint8Array, params: URLSearchParams, co
     return typeof v === "string" ? v : params.get(name);
   };
   if (file.type === "application/json" || fileName.toLowerCase().endsWith(".json")) {
-    const doc = parseJsonBody(decodeUtf8(fileBytes, "file"));
-    assertMatchesScheduleSchema(doc);
-    return { doc, source: "api-json" as const };
+    return { doc: readScheduleJson(fileBytes, "file"), source: "api-json" as const };
   }
   const csv = await readScheduleCsv(fileBytes, readCsvParameters(get, fileName.replace(/\.[^.]+$/, "")));
   return { ...csv, source: "api-csv" as const };
