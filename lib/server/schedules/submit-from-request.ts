@@ -3,11 +3,11 @@ import { hashRequest, runIdempotent, type StoredResponse } from "@/lib/server/ht
 import { readBodyBytes } from "@/lib/server/http/read-body";
 
 import { readCsvParameters, readScheduleCsv, readScheduleJson } from "./read-schedule-body";
+import { MAX_SCHEDULE_BODY_BYTES, withIntakePermit } from "./intake-gate";
 import { scheduleLinks } from "./represent";
 import { submitSchedule, type SubmitScheduleInput, type SubmittedSchedule } from "./submit-schedule";
 
-/** Stated in the API docs: the largest body POST /api/v1/schedules reads. */
-export const MAX_SCHEDULE_BODY_BYTES = 64 * 1024 * 1024;
+export { MAX_SCHEDULE_BODY_BYTES };
 
 type Submitter = Pick<SubmitScheduleInput, "organizationId" | "apiKeyId" | "submittedByUserId">;
 
@@ -47,9 +47,14 @@ async function buildFromMultipart(bytes: Uint8Array, params: URLSearchParams, co
 
 /**
  * POST /api/v1/schedules behind the API-key check: reads the body (JSON, CSV or multipart),
- * validates all of it, stores and queues it, under the Idempotency-Key rules.
+ * validates all of it, stores and queues it, under the Idempotency-Key rules and an intake permit
+ * (503 with Retry-After when the process is already reading as many as its memory budget allows).
  */
 export async function submitScheduleRequest(request: Request, submitter: Submitter): Promise<StoredResponse & { replayed: boolean }> {
+  return withIntakePermit(() => readAndSubmit(request, submitter));
+}
+
+async function readAndSubmit(request: Request, submitter: Submitter): Promise<StoredResponse & { replayed: boolean }> {
   const url = new URL(request.url);
   const fullType = request.headers.get("content-type") ?? "";
   const type = fullType.split(";")[0]!.trim().toLowerCase();
