@@ -51,7 +51,7 @@ async function buildFromMultipart(bytes: Uint8Array, params: URLSearchParams, co
  * (503 with Retry-After when the process is already reading as many as its memory budget allows).
  */
 export async function submitScheduleRequest(request: Request, submitter: Submitter): Promise<StoredResponse & { replayed: boolean }> {
-  return withIntakePermit(() => readAndSubmit(request, submitter));
+  return withIntakePermit(request, () => readAndSubmit(request, submitter));
 }
 
 async function readAndSubmit(request: Request, submitter: Submitter): Promise<StoredResponse & { replayed: boolean }> {

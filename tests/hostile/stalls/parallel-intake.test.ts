@@ -15,7 +15,7 @@ import { createTestKey } from "@/tests/helpers/api-keys";
 import { createBeam, createScheduleDoc } from "@/tests/helpers/schedules";
 
 /** README, "What we promise and how we test it": the web process's resident memory bound. */
-const WEB_RSS_BOUND_MB = 1536;
+const WEB_RSS_BOUND_MB = 1024;
 const SUBMISSIONS = 6;
 
 /** A valid schedule body just under the body limit: members with notes at their longest. */

@@ -20,7 +20,7 @@ async function readMultipart(request: Request): Promise<FormData> {
 }
 
 // POST /api/schedules/upload: a CSV schedule from the dashboard (cookie session); 202 with its id, 422 with every row error.
-export const POST = withSessionRoute("POST /api/schedules/upload", (request, context) => withIntakePermit(() => uploadSchedule(request, context)));
+export const POST = withSessionRoute("POST /api/schedules/upload", (request, context) => withIntakePermit(request, () => uploadSchedule(request, context)));
 
 async function uploadSchedule(request: Request, context: Parameters<Parameters<typeof withSessionRoute>[1]>[1]) {
   const form = await readMultipart(request);
