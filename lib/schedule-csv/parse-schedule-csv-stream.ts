@@ -56,7 +56,7 @@ export async function parseScheduleCsvBytes(bytes: Uint8Array, options: ParseSch
   const delimiter = options.delimiter ?? ",";
   if (!isCsvDelimiter(delimiter)) return invalidDelimiter();
   assertNotUtf16(bytes);
-  const reader = createScheduleCsvReader(options);
+  const reader = createScheduleCsvReader(options, { compactCapacityBytes: bytes.byteLength });
   const reading = createPapaReading(delimiter, CSV_ROW_LIMITS, reader.sink);
   const normaliser = createLineEndNormaliser();
   let fedChars = 0;

@@ -1,5 +1,7 @@
 import { MAX_MEMBERS, SCHEDULE_FORMAT } from "../engine/intake";
 import type { InputIssue } from "../engine/model";
+import { createLazyMembers } from "../schedule-members/lazy-members";
+import { CompactRows } from "./compact-rows";
 import { isCsvDelimiter, type CsvDelimiter } from "./delimiters";
 import { readCsvRecords, type CsvReadResult, type CsvRecordLimits, type CsvRecordSink } from "./read-csv-records";
 import { createCsvRowMapper, type CsvMapperOptions, type CsvRowError, type CsvRowMapper, type PublicMember } from "./row-mapper";
@@ -51,7 +53,7 @@ export function invalidDelimiter(): ParseScheduleCsvResult {
  * The record sink behind parseScheduleCsv and the streaming server reader: the first record is
  * the header (checked once), each later one becomes a member; only members and errors are kept.
  */
-export function createScheduleCsvReader(options: ParseScheduleCsvOptions): { sink: CsvRecordSink; finish(read: CsvReadResult): ParseScheduleCsvResult } {
+export function createScheduleCsvReader(options: ParseScheduleCsvOptions, keep: MemberKeeping = {}): { sink: CsvRecordSink; finish(read: CsvReadResult): ParseScheduleCsvResult } {
   let headerLine: number | null = null;
   let headerErrors: CsvRowError[] = [];
   let collector: ReturnType<typeof createScheduleCollector> | null = null;
@@ -68,7 +70,7 @@ export function createScheduleCsvReader(options: ParseScheduleCsvOptions): { sin
         return false;
       }
       const mapper = created.mapper;
-      collector = createScheduleCollector((r, where) => mapper.mapRow(r.fields, where), { name: options.name, reference: options.reference, units: options.units ?? {}, limits: options.limits });
+      collector = createScheduleCollector((r, where) => mapper.mapRow(r.fields, where), { name: options.name, reference: options.reference, units: options.units ?? {}, limits: options.limits }, keep);
       return true;
     }
     collector?.add(record);
@@ -101,13 +103,24 @@ export interface CsvScheduleFields {
 }
 
 /**
+ * How members are kept until intake. By default as objects; with `compactCapacityBytes` (the
+ * body's byte length) as their CSV fields in a byte arena (compact-rows.ts), handed out as a lazy
+ * array that maps a row again whenever its member is read, so a valid body costs about its own
+ * size again rather than a tree of member objects.
+ */
+export interface MemberKeeping {
+  compactCapacityBytes?: number;
+}
+
+/**
  * Maps data records to members one at a time (blank records give none) and writes the
  * public-format document around them. Once a row has failed, members are no longer kept, only
  * errors (the first MAX_KEPT_ROW_ERRORS) and their count; a file without a single member is an
  * error of its own.
  */
-export function createScheduleCollector(mapRecord: MapCsvRecord, schedule: CsvScheduleFields) {
+export function createScheduleCollector(mapRecord: MapCsvRecord, schedule: CsvScheduleFields, keep: MemberKeeping = {}) {
   let members: PublicMember[] = [];
+  const compact = keep.compactCapacityBytes === undefined ? null : new CompactRows(keep.compactCapacityBytes);
   let places: CsvRowPlace[] = [];
   const errors: CsvRowError[] = [];
   let errorCount = 0;
@@ -129,25 +142,45 @@ export function createScheduleCollector(mapRecord: MapCsvRecord, schedule: CsvSc
         errors.push(...mapped.errors.slice(0, Math.max(0, MAX_KEPT_ROW_ERRORS - errors.length)));
         members = [];
         places = [];
+        compact?.clear();
       } else if (mapped.member && errorCount === 0) {
-        members.push(mapped.member);
+        if (compact) compact.push(record.fields);
+        else members.push(mapped.member);
         places.push(mapped.sources ? { ...where, sources: share(mapped.sources) } : where);
       }
     },
     finish(): ParseScheduleCsvResult {
       if (errorCount > 0) return { ok: false, errors, errorCount };
-      if (members.length === 0) return { ok: false, errors: [{ row: 2, column: "", code: "no_rows", message: "the file has no member rows" }] };
+      const memberCount = compact ? compact.count : members.length;
+      if (memberCount === 0) return { ok: false, errors: [{ row: 2, column: "", code: "no_rows", message: "the file has no member rows" }] };
       const doc: Record<string, unknown> = {
         format: SCHEDULE_FORMAT,
         name: schedule.name,
         ...(schedule.reference === undefined ? {} : { reference: schedule.reference }),
         units: schedule.units,
         limits: schedule.limits,
-        members,
+        members: compact ? createLazyCsvMembers(compact, places, mapRecord) : members,
       };
       return { ok: true, doc, places };
     },
   };
+}
+
+function createLazyCsvMembers(rows: CompactRows, places: readonly CsvRowPlace[], mapRecord: MapCsvRecord): unknown[] {
+  const memberAt = (index: number) => {
+    const { row, line } = places[index]!;
+    const mapped = mapRecord({ fields: rows.fields(index), row, line }, { row, line });
+    // The same fields mapped the first time; anything else is a defect, not bad input.
+    if (!mapped.ok || !mapped.member) throw new Error(`CSV row ${row} no longer maps to a member`);
+    return mapped.member;
+  };
+  return createLazyMembers({
+    count: rows.count,
+    memberAt,
+    chunkText: (first, last) => JSON.stringify(Array.from({ length: last - first }, (_, i) => memberAt(first + i))),
+    // The reader refuses NUL characters, and no mapped field adds one.
+    mayHoldNulEscape: () => false,
+  });
 }
 
 /** Every record through createScheduleCollector; the upload page's `mapRecord` first checks the record against the file as written. */

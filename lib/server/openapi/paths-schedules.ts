@@ -64,6 +64,7 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
         "413": problemResponse(`Body over ${bodyMb} MB.`),
         "415": problemResponse("Not JSON, CSV or multipart/form-data."),
         "422": problemResponse("Invalid schedule (errors[] with pointers or CSV row/line/column), or an Idempotency-Key reused with another body."),
+        "503": problemResponse("The server is already reading as many schedules as its memory budget allows; nothing was stored. Send it again after Retry-After seconds."),
       },
     },
     "GET /api/v1/schedules": {

@@ -1,5 +1,5 @@
 // What npm run start:production refuses to start with: the local demo's settings (fakes, loopback
-// webhook allowlist, the local SMTP capture) and the demo's published credentials in the database.
+// webhook allowlist, the local SMTP capture), no stated TRUSTED_PROXY_COUNT, and the demo's published credentials in the database.
 import { isIPv4, isIPv6 } from "node:net";
 
 import type { Sql, TransactionSql } from "postgres";
@@ -38,6 +38,12 @@ export function findProductionConfigProblems(env: Record<string, string | undefi
     .map((s) => s.trim())
     .filter((entry) => entry && isLoopbackHost(hostOfAllowlistEntry(entry)));
   if (loopback.length > 0) problems.push(`WEBHOOK_ALLOWLIST lets webhooks reach this machine (${loopback.join(", ")}): remove the loopback entries.`);
+  // Without a stated proxy count the per-address sign-in limit cannot know which address is the client's.
+  if ((env.TRUSTED_PROXY_COUNT ?? "").trim() === "") {
+    problems.push(
+      "TRUSTED_PROXY_COUNT is not set: set it to the number of proxies in front of the web process that append to X-Forwarded-For (1 behind one load balancer), or to 0 to state that there is none; with 0 behind a proxy every client shares the proxy's address and the per-address sign-in limit is advisory.",
+    );
+  }
   const smtpHost = env.SMTP_HOST?.trim() ?? "";
   if (!smtpHost) problems.push("SMTP_HOST is not set: name the mail server that sends invitations and password resets.");
   else if (isLoopbackHost(smtpHost)) problems.push(`SMTP_HOST=${smtpHost} is this machine (where the local SMTP fake listens): name a real mail server.`);

@@ -1,9 +1,12 @@
 import { CSV_DELIMITER_CHARS, CSV_DELIMITERS, mapIssueToCsvRow, type CsvDelimiter } from "@/lib/schedule-csv";
 import { CsvEncodingError, parseScheduleCsvBytes } from "@/lib/schedule-csv/parse-schedule-csv-stream";
 import type { InputIssue } from "@/lib/engine/model";
+import { MAX_MEMBERS } from "@/lib/engine/intake";
 import { DomainError, type FieldError } from "@/lib/server/errors";
+import { decodeUtf8 } from "@/lib/server/http/read-body";
 
 import { MAX_LISTED_ERRORS } from "./issue-pointers";
+import { MemberTextError, scanScheduleJson } from "./scan-schedule-json";
 import { throwInvalidSchedule } from "./submit-schedule";
 import { findScheduleSchemaErrors } from "./validate-schedule-schema";
 
@@ -11,6 +14,26 @@ import { findScheduleSchemaErrors } from "./validate-schedule-schema";
 export function assertMatchesScheduleSchema(doc: unknown): void {
   const found = findScheduleSchemaErrors(doc);
   if (found) throwInvalidSchedule(found.listed, found.total);
+}
+
+/**
+ * A JSON schedule body, checked against the public JSON Schema. A valid body keeps its members as
+ * their text in the body (scan-schedule-json.ts), read one at a time; a body the scan does not
+ * follow, or one with a member that does not parse, is parsed whole so the error reads as usual.
+ */
+export function readScheduleJson(bytes: Uint8Array, what: "body" | "file"): unknown {
+  const scanned = scanScheduleJson(bytes, MAX_MEMBERS);
+  if (scanned) {
+    try {
+      assertMatchesScheduleSchema(scanned);
+      return scanned;
+    } catch (error) {
+      if (!(error instanceof MemberTextError)) throw error;
+    }
+  }
+  const doc = parseJsonBody(decodeUtf8(bytes, what));
+  assertMatchesScheduleSchema(doc);
+  return doc;
 }
 
 export function parseJsonBody(text: string): unknown {

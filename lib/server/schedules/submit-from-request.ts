@@ -1,21 +1,19 @@
 import { DomainError } from "@/lib/server/errors";
 import { hashRequest, runIdempotent, type StoredResponse } from "@/lib/server/http/idempotency";
-import { decodeUtf8, readBodyBytes } from "@/lib/server/http/read-body";
+import { readBodyBytes } from "@/lib/server/http/read-body";
 
-import { assertMatchesScheduleSchema, parseJsonBody, readCsvParameters, readScheduleCsv } from "./read-schedule-body";
+import { readCsvParameters, readScheduleCsv, readScheduleJson } from "./read-schedule-body";
+import { MAX_SCHEDULE_BODY_BYTES, withIntakePermit } from "./intake-gate";
 import { scheduleLinks } from "./represent";
 import { submitSchedule, type SubmitScheduleInput, type SubmittedSchedule } from "./submit-schedule";
 
-/** Stated in the API docs: the largest body POST /api/v1/schedules reads. */
-export const MAX_SCHEDULE_BODY_BYTES = 64 * 1024 * 1024;
+export { MAX_SCHEDULE_BODY_BYTES };
 
 type Submitter = Pick<SubmitScheduleInput, "organizationId" | "apiKeyId" | "submittedByUserId">;
 
 async function buildSubmission(fullType: string, type: string, bytes: Uint8Array, params: URLSearchParams): Promise<Pick<SubmitScheduleInput, "doc" | "source" | "toFieldErrors">> {
   if (type === "application/json") {
-    const doc = parseJsonBody(decodeUtf8(bytes, "body"));
-    assertMatchesScheduleSchema(doc);
-    return { doc, source: "api-json" };
+    return { doc: readScheduleJson(bytes, "body"), source: "api-json" };
   }
   if (type === "text/csv") {
     const csv = await readScheduleCsv(bytes, readCsvParameters((n) => params.get(n), "CSV schedule"));
@@ -41,9 +39,7 @@ async function buildFromMultipart(bytes: Uint8Array, params: URLSearchParams, co
     return typeof v === "string" ? v : params.get(name);
   };
   if (file.type === "application/json" || fileName.toLowerCase().endsWith(".json")) {
-    const doc = parseJsonBody(decodeUtf8(fileBytes, "file"));
-    assertMatchesScheduleSchema(doc);
-    return { doc, source: "api-json" as const };
+    return { doc: readScheduleJson(fileBytes, "file"), source: "api-json" as const };
   }
   const csv = await readScheduleCsv(fileBytes, readCsvParameters(get, fileName.replace(/\.[^.]+$/, "")));
   return { ...csv, source: "api-csv" as const };
@@ -51,9 +47,14 @@ async function buildFromMultipart(bytes: Uint8Array, params: URLSearchParams, co
 
 /**
  * POST /api/v1/schedules behind the API-key check: reads the body (JSON, CSV or multipart),
- * validates all of it, stores and queues it, under the Idempotency-Key rules.
+ * validates all of it, stores and queues it, under the Idempotency-Key rules and an intake permit
+ * (503 with Retry-After when the process is already reading as many as its memory budget allows).
  */
 export async function submitScheduleRequest(request: Request, submitter: Submitter): Promise<StoredResponse & { replayed: boolean }> {
+  return withIntakePermit(request, () => readAndSubmit(request, submitter));
+}
+
+async function readAndSubmit(request: Request, submitter: Submitter): Promise<StoredResponse & { replayed: boolean }> {
   const url = new URL(request.url);
   const fullType = request.headers.get("content-type") ?? "";
   const type = fullType.split(";")[0]!.trim().toLowerCase();

@@ -9,6 +9,8 @@ import { getSql } from "@/db/client";
 import { loadSubmissionCriteria, storeScheduleCriteria } from "@/lib/server/criteria/schedule-criteria";
 import { DomainError, type FieldError } from "@/lib/server/errors";
 import { createId } from "@/lib/server/ids";
+import { getMemberSource, type MemberSource } from "@/lib/schedule-members/lazy-members";
+import { runInWindow } from "@/lib/server/run-in-window";
 
 import { enqueueChunks } from "./enqueue-chunks";
 import { issuesToFieldErrors, MAX_LISTED_ERRORS } from "./issue-pointers";
@@ -46,6 +48,9 @@ export interface CheckedSchedule {
   marks: string[];
 }
 
+/** The organization's criteria a schedule is read with: catalogues in use, materials, profiles. */
+type CriteriaOptions = Pick<ParseScheduleOptions, "catalogue" | "organizationMaterials" | "organizationProfiles">;
+
 /**
  * Every problem of a schedule, from intake and from the engine's member checks, all at once.
  * Each member is checked as soon as it is read and then dropped: holding the model of 100,000
@@ -53,7 +58,7 @@ export interface CheckedSchedule {
  */
 export function collectScheduleIssues(
   doc: unknown,
-  criteria: Pick<ParseScheduleOptions, "catalogue" | "organizationMaterials" | "organizationProfiles"> = {},
+  criteria: CriteriaOptions = {},
 ): ({ ok: true } & CheckedSchedule) | { ok: false; issues: InputIssue[]; unlistedCount: number } {
   const engineIssues: InputIssue[] = [];
   const marks: string[] = [];
@@ -77,8 +82,28 @@ export function collectScheduleIssues(
 }
 
 function findMembersWithNul(members: unknown[]): InputIssue[] {
-  return members.flatMap((member, index) => (JSON.stringify(member).includes("\\u0000") ? [{ path: `members[${index}]`, message: "contains a NUL character (U+0000), which cannot be stored" }] : []));
+  const issues: InputIssue[] = [];
+  // A plain loop: members may be a lazy array (lazy-members.ts), read once each.
+  for (let index = 0; index < members.length; index++) {
+    if (JSON.stringify(members[index]).includes("\\u0000")) issues.push({ path: `members[${index}]`, message: "contains a NUL character (U+0000), which cannot be stored" });
+  }
+  return issues;
 }
+
+/** Members as the chunk writer reads them: the compact source of a lazy array, or a plain array. */
+function readMemberSource(members: unknown[]): MemberSource {
+  return (
+    getMemberSource(members) ?? {
+      count: members.length,
+      memberAt: (index) => members[index],
+      chunkText: (first, last) => JSON.stringify(members.slice(first, last)),
+      mayHoldNulEscape: () => true,
+    }
+  );
+}
+
+/** Chunk inserts in flight at once: pipelined, yet only this many chunk texts exist at a time. */
+const CHUNK_WRITES_IN_FLIGHT = 3;
 
 /** A callback must be one of the organization's own endpoints; any other id reads as unknown. */
 async function assertCallbackEndpoint(organizationId: string, endpointId: string): Promise<void> {
@@ -100,14 +125,21 @@ export function throwInvalidSchedule(errors: FieldError[], total: number): never
   );
 }
 
+/** A schedule ready to store: checked, with its members still in their compact form. */
+export interface PreparedSchedule {
+  parsed: ParsedSchedule;
+  marks: string[];
+  header: Record<string, unknown>;
+  members: MemberSource;
+  chunkCount: number;
+}
+
 /**
- * Validates a whole schedule (all or nothing), stores it with its work chunks (each holding its members)
- * in one transaction, then queues the chunks for the workers. Nothing is written when any member is bad.
+ * Every check before storing (intake, the engine's member checks, characters PostgreSQL cannot
+ * hold); throws the 422 listing the problems. Touches no database, so memory probes can run it.
  */
-export async function submitSchedule(input: SubmitScheduleInput): Promise<SubmittedSchedule> {
-  // The organization's catalogues in use, materials and named profile, frozen with the schedule.
-  const criteria = await loadSubmissionCriteria(input.organizationId, input.doc);
-  const checked = collectScheduleIssues(input.doc, criteria.options);
+export function prepareSchedule(input: Pick<SubmitScheduleInput, "doc" | "toFieldErrors">, criteria: CriteriaOptions = {}): PreparedSchedule {
+  const checked = collectScheduleIssues(input.doc, criteria);
   if (!checked.ok) {
     // Intake stops listing at the cap and ends with its "N more issues not listed" line: the
     // problem body states the total instead.
@@ -116,20 +148,27 @@ export async function submitSchedule(input: SubmitScheduleInput): Promise<Submit
     throwInvalidSchedule(listed.slice(0, MAX_LISTED_ERRORS), listedIssues.length + checked.unlistedCount);
   }
   const doc = input.doc as Record<string, unknown>;
-  const members = doc.members as Record<string, unknown>[];
-  const { schedule: parsed, marks } = checked;
-  const chunkCount = Math.ceil(members.length / CHUNK_SIZE);
-  // One JSON text per chunk: cheaper than a string per member joined afterwards.
-  const chunkTexts = Array.from({ length: chunkCount }, (_, chunk) => JSON.stringify(members.slice(chunk * CHUNK_SIZE, (chunk + 1) * CHUNK_SIZE)));
+  const members = readMemberSource(doc.members as unknown[]);
   // PostgreSQL's text and jsonb cannot hold U+0000: refuse it by name instead of failing at the insert.
-  const withNul = chunkTexts.some((text) => text.includes("\\u0000")) ? findMembersWithNul(members) : [];
+  const withNul = members.mayHoldNulEscape() ? findMembersWithNul(doc.members as unknown[]) : [];
   const headerHasNul = JSON.stringify([doc.name, doc.reference, doc.units, doc.limits]).includes("\\u0000");
   if (withNul.length > 0 || headerHasNul) {
     const issues = withNul.length > 0 ? withNul : [{ path: "", message: "the schedule's name, reference, units or limits contain a NUL character (U+0000), which cannot be stored" }];
     throwInvalidSchedule((input.toFieldErrors ?? issuesToFieldErrors)(issues).slice(0, MAX_LISTED_ERRORS), issues.length);
   }
-  const id = createId("sch");
   const header = { format: doc.format, name: doc.name, reference: doc.reference, units: doc.units, limits: doc.limits };
+  return { parsed: checked.schedule, marks: checked.marks, header, members, chunkCount: Math.ceil(members.count / CHUNK_SIZE) };
+}
+
+/**
+ * Validates a whole schedule (all or nothing), stores it with its work chunks (each holding its members)
+ * in one transaction, then queues the chunks for the workers. Nothing is written when any member is bad.
+ */
+export async function submitSchedule(input: SubmitScheduleInput): Promise<SubmittedSchedule> {
+  // The organization's catalogues in use, materials and named profile, frozen with the schedule.
+  const criteria = await loadSubmissionCriteria(input.organizationId, input.doc);
+  const { parsed, marks, header, members, chunkCount } = prepareSchedule(input, criteria.options);
+  const id = createId("sch");
 
   const sql = getSql();
   if (input.callbackEndpointId) await assertCallbackEndpoint(input.organizationId, input.callbackEndpointId);
@@ -139,21 +178,19 @@ export async function submitSchedule(input: SubmitScheduleInput): Promise<Submit
         callback_endpoint_id, profile, header, member_count, chunk_count, queued_at)
       values (${id}, ${input.organizationId}, ${input.projectId ?? null}, ${parsed.name}, ${parsed.reference}, 'queued', ${input.source},
         ${input.submittedByUserId ?? null}, ${input.apiKeyId ?? null}, ${input.callbackEndpointId ?? null},
-        ${JSON.stringify(parsed.profile)}::jsonb, ${JSON.stringify(header)}::jsonb, ${members.length}, ${chunkCount}, now())
+        ${JSON.stringify(parsed.profile)}::jsonb, ${JSON.stringify(header)}::jsonb, ${members.count}, ${chunkCount}, now())
       returning created_at`;
     await storeScheduleCriteria(tx, id, criteria.catalogueIds, criteria.freeze(), input.recheckOfScheduleId ?? null);
-    // One row per chunk holding its members: pipelined in this transaction, all or none.
-    await Promise.all(
-      Array.from({ length: chunkCount }, (_, chunk) => {
-        const first = chunk * CHUNK_SIZE;
-        const last = Math.min(first + CHUNK_SIZE, members.length);
-        const chunkMarks = marks.slice(first, last);
-        return tx`
-          insert into schedule_chunks (schedule_id, chunk_index, first_member, member_count, marks, members)
-          values (${id}, ${chunk}, ${first}, ${last - first}, ${tx.array(chunkMarks)}, ${chunkTexts[chunk]!})`;
-      }),
-    );
-    const stored: SubmittedSchedule = { id, status: "queued", memberCount: members.length, createdAt: new Date(inserted!.created_at as string).toISOString() };
+    // One row per chunk holding its members, all or none. Each chunk's JSON text is built just
+    // before its insert (one text per chunk, never a string per member), a few pipelined at once.
+    await runInWindow(chunkCount, CHUNK_WRITES_IN_FLIGHT, async (chunk) => {
+      const first = chunk * CHUNK_SIZE;
+      const last = Math.min(first + CHUNK_SIZE, members.count);
+      await tx`
+        insert into schedule_chunks (schedule_id, chunk_index, first_member, member_count, marks, members)
+        values (${id}, ${chunk}, ${first}, ${last - first}, ${tx.array(marks.slice(first, last))}, ${members.chunkText(first, last)})`;
+    });
+    const stored: SubmittedSchedule = { id, status: "queued", memberCount: members.count, createdAt: new Date(inserted!.created_at as string).toISOString() };
     await input.inTransaction?.(tx, stored);
     return stored;
   });

@@ -2,7 +2,8 @@
 // body's size plus a constant, measured in a fresh process (csv-memory-probe.ts) for bodies that
 // keep nothing but the body itself: 17 MB of blank lines (it ran the web process out of memory
 // before), an endless quoted cell, and rows that all fail. Valid rows also keep their members,
-// which the 100,000-row limit caps; that figure is printed, not bounded here.
+// which the 100,000-row limit caps; that figure is printed here (garbage included) and bounded,
+// live, from body to chunk texts, in intake-memory.test.ts.
 import { execFile } from "node:child_process";
 import { fileURLToPath } from "node:url";
 import { promisify } from "node:util";

@@ -20,6 +20,8 @@ const runDir = mkdtempSync(join(tmpdir(), "sagline-production-"));
 const productionEnv: NodeJS.ProcessEnv = {
   ...withoutVariables(process.env, ["SAGLINE_FAKES", "WEBHOOK_ALLOWLIST", "SMTP_HOST", "MAIL_UI_URL", "MAIL_DIR"]),
   SMTP_HOST: "smtp.mail-relay.example",
+  // Stated explicitly, as a production start requires (0: no proxy in front).
+  TRUSTED_PROXY_COUNT: "0",
   SAGLINE_APP_PORT: String(port),
   APP_URL: `http://127.0.0.1:${port}`,
   NEXTAUTH_URL: `http://127.0.0.1:${port}`,
@@ -61,6 +63,8 @@ describe("npm run start:production refuses", () => {
     ["a loopback webhook allowlist", { WEBHOOK_ALLOWLIST: "127.0.0.1:3792" }, "WEBHOOK_ALLOWLIST lets webhooks reach this machine (127.0.0.1:3792)"],
     ["no SMTP host", { SMTP_HOST: "" }, "SMTP_HOST is not set"],
     ["the local SMTP capture as mail host", { SMTP_HOST: "127.0.0.1" }, "SMTP_HOST=127.0.0.1 is this machine"],
+    ["no stated proxy count", { TRUSTED_PROXY_COUNT: undefined }, "TRUSTED_PROXY_COUNT is not set: set it to the number of proxies"],
+    ["an empty proxy count", { TRUSTED_PROXY_COUNT: "" }, "TRUSTED_PROXY_COUNT is not set"],
   ])("%s", { timeout: 180_000 }, async (_what, overrides, message) => {
     const { code, stderr } = await startProduction({ ...productionEnv, ...overrides });
     expect(code).toBe(1);

@@ -2,7 +2,7 @@ import { DomainError } from "@/lib/server/errors";
 import { readBodyBytes } from "@/lib/server/http/read-body";
 import { withSessionRoute } from "@/lib/server/auth/guards";
 import { readCsvParameters, readScheduleCsv } from "@/lib/server/schedules/read-schedule-body";
-import { MAX_SCHEDULE_BODY_BYTES } from "@/lib/server/schedules/submit-from-request";
+import { MAX_SCHEDULE_BODY_BYTES, withIntakePermit } from "@/lib/server/schedules/intake-gate";
 import { submitSchedule } from "@/lib/server/schedules/submit-schedule";
 
 async function readMultipart(request: Request): Promise<FormData> {
@@ -20,7 +20,9 @@ async function readMultipart(request: Request): Promise<FormData> {
 }
 
 // POST /api/schedules/upload: a CSV schedule from the dashboard (cookie session); 202 with its id, 422 with every row error.
-export const POST = withSessionRoute("POST /api/schedules/upload", async (request, context) => {
+export const POST = withSessionRoute("POST /api/schedules/upload", (request, context) => withIntakePermit(request, () => uploadSchedule(request, context)));
+
+async function uploadSchedule(request: Request, context: Parameters<Parameters<typeof withSessionRoute>[1]>[1]) {
   const form = await readMultipart(request);
   const file = form.get("file");
   if (!(file instanceof Blob)) throw new DomainError("bad_request", 'The upload needs a "file" part.', [{ pointer: "/file", message: "missing" }]);
@@ -39,4 +41,4 @@ export const POST = withSessionRoute("POST /api/schedules/upload", async (reques
     toFieldErrors: csv.toFieldErrors,
   });
   return Response.json({ ...created, links: { self: `/schedules/${created.id}`, progress: `/api/schedules/${created.id}/progress` } }, { status: 202 });
-});
+}

@@ -4,7 +4,7 @@ import { describe, expect, it } from "vitest";
 
 import { findProductionConfigProblems, isLoopbackHost } from "@/lib/server/operations/production-readiness";
 
-const good = { SMTP_HOST: "smtp.mail-relay.example", WEBHOOK_ALLOWLIST: "hooks.partner.example:8443", SAGLINE_FAKES: "0" };
+const good = { SMTP_HOST: "smtp.mail-relay.example", WEBHOOK_ALLOWLIST: "hooks.partner.example:8443", SAGLINE_FAKES: "0", TRUSTED_PROXY_COUNT: "1" };
 
 describe("isLoopbackHost", () => {
   it.each(["localhost", "LOCALHOST.", "api.localhost", "127.0.0.1", "127.5.6.7", "0.0.0.0", "::1", "[::1]", "0:0:0:0:0:0:0:1", "::", "::ffff:127.0.0.1", "::ffff:0.0.0.0"])("%s is loopback", (host) => {
@@ -18,7 +18,11 @@ describe("isLoopbackHost", () => {
 describe("findProductionConfigProblems", () => {
   it("accepts a real SMTP host, no fakes and a non-loopback allowlist", () => {
     expect(findProductionConfigProblems(good)).toEqual([]);
-    expect(findProductionConfigProblems({ SMTP_HOST: "smtp.mail-relay.example" })).toEqual([]);
+    expect(findProductionConfigProblems({ SMTP_HOST: "smtp.mail-relay.example", TRUSTED_PROXY_COUNT: "0" })).toEqual([]);
+  });
+
+  it.each([undefined, "", " "])("refuses TRUSTED_PROXY_COUNT=%s: the proxy count must be stated, 0 included", (count) => {
+    expect(findProductionConfigProblems({ ...good, TRUSTED_PROXY_COUNT: count })).toEqual([expect.stringMatching(/^TRUSTED_PROXY_COUNT is not set: .* or to 0 to state that there is none/)]);
   });
 
   it("refuses the local fakes", () => {
@@ -34,6 +38,6 @@ describe("findProductionConfigProblems", () => {
   });
 
   it("lists every problem at once", () => {
-    expect(findProductionConfigProblems({ SAGLINE_FAKES: "1", WEBHOOK_ALLOWLIST: "127.0.0.1:3792" })).toHaveLength(3);
+    expect(findProductionConfigProblems({ SAGLINE_FAKES: "1", WEBHOOK_ALLOWLIST: "127.0.0.1:3792" })).toHaveLength(4);
   });
 });
