@@ -61,6 +61,8 @@ export const actionAccess = {
   "webhooks/sendTestEvent": "integrations:manage",
   "webhooks/resendDelivery": "integrations:manage",
   "webhooks/resendFailedSince": "integrations:manage",
+  // A what-if reads the record and writes nothing: whoever may read results may try one.
+  "members/recheckMember": "organization:read",
 } as const satisfies Record<string, Access>;
 
 export type PagePath = keyof typeof pageAccess;
