@@ -28,7 +28,7 @@ export default async function DashboardLayout({ children }: { children: ReactNod
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:bg-sheet focus:p-2">
         Skip to content
       </a>
-      <header className="border-b border-rule bg-sheet">
+      <header className="border-b border-rule bg-sheet print:hidden">
         <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
           <span className="text-base font-semibold tracking-tight">
             Sag<span className="text-action">line</span>

@@ -81,7 +81,7 @@ export function DeflectionPanel({ id, title, combinationId, samples, checks, spa
           </g>
         ))}
         <text transform={`translate(14 ${PAD.top + plotH / 2}) rotate(-90)`} textAnchor="middle">
-          {unit}, + down
+          {`${unit}, + down`}
         </text>
       </g>
       {/* the undeflected member, and a tick where each support holds it */}
@@ -101,7 +101,7 @@ export function DeflectionPanel({ id, title, combinationId, samples, checks, spa
             <g key={r.index} data-allowed-span={r.index}>
               <line x1={x0} x2={x1} y1={y} y2={y} strokeWidth="1.4" strokeDasharray="6 4" />
               {x1 - x0 > 70 ? (
-                <text x={x1 - 3} y={labelBelow ? y + 12 : y - 4} textAnchor="end" fontSize="10" fill="currentColor" stroke="none">
+                <text x={x0 + 3} y={labelBelow ? y + 12 : y - 4} textAnchor="start" fontSize="10" fill="currentColor" stroke="none">
                   allowed {formatSignificant(Math.abs(r.allowed), 3)}
                 </text>
               ) : null}
@@ -121,6 +121,9 @@ export function DeflectionPanel({ id, title, combinationId, samples, checks, spa
         const y = sy(r.peak);
         const wide = scale.toPx(r.span.startMm + r.span.lengthMm) - scale.toPx(r.span.startMm) > 60;
         const labelAbove = r.peak >= 0;
+        // near either end of the drawing the label turns inward, so it is never cut off
+        const anchor = x > DIAGRAM_WIDTH - DIAGRAM_PAD.right - 40 ? "end" : x < DIAGRAM_PAD.left + 40 ? "start" : "middle";
+        const labelX = anchor === "end" ? x - 7 : anchor === "start" ? x + 7 : x;
         return (
           <g key={r.index} data-maximum-span={r.index}>
             {r.check.pass ? (
@@ -129,7 +132,7 @@ export function DeflectionPanel({ id, title, combinationId, samples, checks, spa
               <path d={`M${x} ${y - 5}l5 9h-10z`} fill="currentColor" />
             )}
             {wide ? (
-              <text x={x} y={labelAbove ? y - 8 : y + 15} textAnchor="middle" fontSize="10.5" fontWeight={r.check.pass ? 400 : 700} fill="currentColor">
+              <text x={labelX} y={labelAbove ? y - 8 : y + 15} textAnchor={anchor} fontSize="10.5" fontWeight={r.check.pass ? 400 : 700} fill="currentColor">
                 {formatSignificant(Math.abs(r.peak), 3)}
                 {r.check.pass ? "" : " over"}
               </text>

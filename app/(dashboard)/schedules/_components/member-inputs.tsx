@@ -29,6 +29,7 @@ function describeMember(input: Record<string, unknown>, units: DisplayUnits): Ro
   const add = (field: string, label: string, format: (value: unknown) => string) => {
     if (input[field] !== undefined) rows.push({ label, value: format(input[field]) });
   };
+  add("mark", "Mark", formatPlain);
   add("category", "Category", (v) => (typeof v === "string" ? (categoryLabels[v] ?? v) : formatPlain(v)));
   add("quantity", "Quantity", formatPlain);
   add("material", "Material", (v) => formatMaterial(v, units));

@@ -7,7 +7,9 @@ import { SUPPORT_WORDS, SupportSymbol } from "./support-symbol";
 
 /** Loads drawn one per row; the rest are counted, and all of them are in the inputs table. */
 export const MAX_SKETCHED_LOADS = 10;
-const ROW_PX = 26;
+/** Each load row: a label line, then the arrows. */
+const ROW_PX = 36;
+const LABEL_PX = 13;
 const TOP_PX = 10;
 
 export type MemberSketchProps = { model: MemberModelView; scale: XScale; units: DisplayUnits; id: string };
@@ -52,8 +54,9 @@ function Arrow({ x, top, bottom, up }: { x: number; top: number; bottom: number;
 }
 
 function LoadRow({ load, row, scale, memberEndMm, units }: { load: Load; row: number; scale: XScale; memberEndMm: number; units: DisplayUnits }) {
-  const top = TOP_PX + row * ROW_PX + 4;
-  const bottom = top + ROW_PX - 8;
+  const labelY = TOP_PX + row * ROW_PX + 10;
+  const top = TOP_PX + row * ROW_PX + LABEL_PX;
+  const bottom = TOP_PX + (row + 1) * ROW_PX - 3;
   const label = labelLoad(load, units);
   if (load.kind === "point" || load.kind === "moment") {
     const x = scale.toPx(load.atMm);
@@ -70,7 +73,7 @@ function LoadRow({ load, row, scale, memberEndMm, units }: { load: Load; row: nu
             <path d={load.mNmm >= 0 ? `M${x + 7} ${bottom - 1}l-3.5 -5h7z` : `M${x - 7} ${bottom - 1}l-3.5 -5h7z`} fill="currentColor" stroke="none" />
           </g>
         )}
-        <text x={textX} y={top + 12} textAnchor={anchor} fontSize="11" fill="currentColor" stroke="none">
+        <text x={textX} y={labelY + 12} textAnchor={anchor} fontSize="11" fill="currentColor" stroke="none">
           {label}
         </text>
       </g>
@@ -83,7 +86,7 @@ function LoadRow({ load, row, scale, memberEndMm, units }: { load: Load; row: nu
   const wStart = load.kind === "uniform" ? load.wNPerMm : load.wStartNPerMm;
   const wEnd = load.kind === "uniform" ? load.wNPerMm : load.wEndNPerMm;
   const peak = Math.max(Math.abs(wStart), Math.abs(wEnd)) || 1;
-  const heightAt = (w: number) => 4 + ((ROW_PX - 12) * Math.abs(w)) / peak;
+  const heightAt = (w: number) => 4 + ((bottom - top - 4) * Math.abs(w)) / peak;
   const arrows = Math.max(2, Math.min(24, Math.round((x1 - x0) / 28)));
   const xs = Array.from({ length: arrows + 1 }, (_, k) => x0 + ((x1 - x0) * k) / arrows);
   const anchor = x0 > DIAGRAM_WIDTH - 200 ? "end" : "start";
@@ -94,7 +97,7 @@ function LoadRow({ load, row, scale, memberEndMm, units }: { load: Load; row: nu
         const w = wStart + ((wEnd - wStart) * k) / arrows;
         return <Arrow key={k} x={x} top={bottom - heightAt(w)} bottom={bottom} up={w < 0} />;
       })}
-      <text x={anchor === "end" ? x1 : x0 + 2} y={top + 2} textAnchor={anchor} fontSize="11" fill="currentColor" stroke="none" dominantBaseline="hanging">
+      <text x={anchor === "end" ? x1 : x0 + 2} y={labelY} textAnchor={anchor} fontSize="11" fill="currentColor" stroke="none">
         {label}
       </text>
     </g>
@@ -169,7 +172,7 @@ export function MemberSketch({ model, scale, units, id }: MemberSketchProps) {
           </g>
         ))}
         <text x={DIAGRAM_WIDTH / 2} y={axisY + 32} textAnchor="middle">
-          Position from the left end ({prettyUnit(lengthUnit)})
+          {`Position from the left end (${prettyUnit(lengthUnit)})`}
         </text>
       </g>
     </svg>

@@ -1,6 +1,6 @@
 "use client";
 
-import { useActionState, useId, useState } from "react";
+import { startTransition, useActionState, useId, useState, type FormEvent } from "react";
 
 import { Button } from "@/components/ui/button";
 import { Field, SELECT_CLASS, SelectField } from "@/components/ui/field";
@@ -107,6 +107,13 @@ export function MemberWhatIf({ scheduleId, mark, units, materialIds, record, lab
   const fields = SHAPES.find((s) => s.value === shape)?.fields ?? [];
   const errors = state && !state.ok ? (state.fieldErrors ?? {}) : {};
   const result = state?.ok ? state.data : undefined;
+  // Sent by hand, not as the form's action: a form action clears the fields after it runs, and
+  // the engineer compares trials by editing the last one.
+  const submit = (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    const data = new FormData(event.currentTarget);
+    startTransition(() => action(data));
+  };
 
   return (
     <section aria-labelledby="what-if-heading" className="rounded border border-dashed border-ink-soft bg-sheet p-4 print:hidden" data-testid="what-if">
@@ -117,7 +124,7 @@ export function MemberWhatIf({ scheduleId, mark, units, materialIds, record, lab
         Rechecked on the spot with the same limits, loads and supports. <strong className="font-semibold text-ink">Nothing here changes the record</strong>: it is not saved, and the results above stay as checked.
         Numbers are in the schedule&apos;s units.
       </p>
-      <form action={action} aria-label="What-if recheck" className="mt-3 space-y-3" id={formId}>
+      <form onSubmit={submit} aria-label="What-if recheck" className="mt-3 space-y-3" id={formId}>
         <input type="hidden" name="scheduleId" value={scheduleId} />
         <input type="hidden" name="mark" value={mark} />
         <SelectField label="Section" name="shape" value={shape} onChange={(e) => setShape(e.target.value)} className={`${SELECT_CLASS} w-full`}>

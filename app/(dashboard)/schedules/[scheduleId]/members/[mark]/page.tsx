@@ -1,10 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { cache } from "react";
 
 import { SafetyCaution } from "@/components/ui/safety-caution";
-import { getSchedule } from "@/db/queries/schedules";
 import { listMaterialIds } from "@/lib/engine/materials";
 import type { UnitSystem } from "@/lib/engine/units";
 import { requirePage } from "@/lib/server/auth/guards";
@@ -23,20 +21,9 @@ import { MemberUsed } from "../../../_components/member-used";
 import { MemberWhatIf } from "../../../_components/member-what-if";
 import { OutcomeLabel } from "../../../_components/outcome-label";
 import { ShapeDiagram } from "../../../_components/shape-diagram";
+import { decodeMark, findSchedule } from "./find-member";
 
 type MemberPageProps = { params: Promise<{ scheduleId: string; mark: string }> };
-
-// Next passes the segment percent-encoded; a malformed escape is simply a mark that does not exist.
-function decodeMark(segment: string): string | null {
-  try {
-    return decodeURIComponent(segment);
-  } catch {
-    return null;
-  }
-}
-
-// The title and the page read the same schedule once per request.
-const findSchedule = cache(async (organizationId: string, scheduleId: string) => getSchedule(organizationId, scheduleId));
 
 export async function generateMetadata({ params }: MemberPageProps): Promise<Metadata> {
   const { scheduleId, mark: markSegment } = await params;
@@ -165,7 +152,6 @@ export default async function MemberPage({ params }: MemberPageProps) {
           </h2>
           <MemberRotations rotations={rotations} />
         </section>
-        <SafetyCaution />
       </div>
     </>
   );
