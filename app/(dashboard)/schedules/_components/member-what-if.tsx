@@ -47,10 +47,10 @@ export type MemberWhatIfProps = {
   units: DisplayUnits;
   materialIds: string[];
   record: { pass: boolean; utilization: number | null; governingCheck: string | null; checks: MemberCheckRow[] };
-  labels: Record<string, string>;
 };
 
-function Comparison({ outcome, record, units, labels }: { outcome: WhatIfOutcome; record: MemberWhatIfProps["record"]; units: DisplayUnits; labels: Record<string, string> }) {
+// Checks go by combination id here (short, the column is narrow); the checks table gives the full labels.
+function Comparison({ outcome, record, units }: { outcome: WhatIfOutcome; record: MemberWhatIfProps["record"]; units: DisplayUnits }) {
   const recordOf = (key: string) => record.checks.find((c) => c.checkKey === key);
   return (
     <div className="overflow-x-auto">
@@ -72,7 +72,7 @@ function Comparison({ outcome, record, units, labels }: { outcome: WhatIfOutcome
             return (
               <tr key={check.checkKey} className="border-t border-rule">
                 <th scope="row" className="px-2 py-1 text-left font-normal [overflow-wrap:anywhere]">
-                  {labels[check.combinationId] ?? check.combinationId}, span {check.spanIndex + 1}
+                  {`${check.combinationId}, span ${check.spanIndex + 1}`}
                 </th>
                 <td className="px-2 py-1 text-right whitespace-nowrap">{formatQuantity(check.allowedMm, "deflection", units, 3)}</td>
                 <td className="px-2 py-1 text-right whitespace-nowrap">
@@ -99,7 +99,7 @@ function Comparison({ outcome, record, units, labels }: { outcome: WhatIfOutcome
  * The what-if: a trial section or material for this member, checked at once by the engine with
  * the schedule's limits and units. The answer is shown beside the record and never stored.
  */
-export function MemberWhatIf({ scheduleId, mark, units, materialIds, record, labels }: MemberWhatIfProps) {
+export function MemberWhatIf({ scheduleId, mark, units, materialIds, record }: MemberWhatIfProps) {
   const [state, action, pending] = useActionState(recheckMember, null);
   const [shape, setShape] = useState<string>("keep");
   const [material, setMaterial] = useState<string>("keep");
@@ -206,7 +206,7 @@ export function MemberWhatIf({ scheduleId, mark, units, materialIds, record, lab
               </>
             ) : null}
           </dl>
-          <Comparison outcome={result.outcome} record={record} units={units} labels={labels} />
+          <Comparison outcome={result.outcome} record={record} units={units} />
           {result.outcome.notes.length > 0 ? (
             <ul className="list-disc pl-5 text-ink-soft">
               {result.outcome.notes.map((note) => (

@@ -111,7 +111,6 @@ export default async function MemberPage({ params }: MemberPageProps) {
                 units={units}
                 materialIds={listMaterialIds().filter((id) => !id.includes("<"))}
                 record={{ pass: status === "pass", utilization: report.utilization, governingCheck: report.governingCheck, checks }}
-                labels={labels}
               />
             ) : null}
           </div>
