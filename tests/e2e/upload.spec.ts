@@ -79,7 +79,7 @@ describe("uploading a CSV schedule", () => {
 
     await failRow.getByRole("link", { name: "F1" }).click();
     await page.getByRole("heading", { name: "Member F1" }).waitFor();
-    await expect(page.getByRole("img", { name: "Deflected shape per combination" }).isVisible()).resolves.toBe(true);
+    await expect(page.getByRole("img", { name: "Member, supports and loads as analysed" }).isVisible()).resolves.toBe(true);
     await page.close();
   });
 });

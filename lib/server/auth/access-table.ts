@@ -83,6 +83,8 @@ export const actionAccess = {
   "section-catalogues/importCatalogue": "criteria:manage",
   "section-catalogues/setCatalogueInUse": "criteria:manage",
   "section-catalogues/deleteCatalogue": "criteria:manage",
+  // A what-if reads the record and writes nothing: whoever may read results may try one.
+  "members/recheckMember": "organization:read",
 } as const satisfies Record<string, Access>;
 
 export type PagePath = keyof typeof pageAccess;

@@ -1,8 +1,9 @@
-import { checkMember } from "@/lib/engine/check-member";
-import { parseSchedule } from "@/lib/engine/intake";
 import type { CheckResult, FrequencyResult, RotationResult, ShapeSample } from "@/lib/engine/model";
 import { getMemberResult, readStoredNotes } from "@/db/queries/schedules";
-import { loadScheduleCriteria, toParseOptions, type ScheduleCriteria } from "@/lib/server/criteria/schedule-criteria";
+import { loadScheduleCriteria, type ScheduleCriteria } from "@/lib/server/criteria/schedule-criteria";
+
+import type { MemberModelView } from "./describe-member-model";
+import { runStoredMember } from "./run-stored-member";
 
 export interface MemberCheckRow {
   checkKey: string;
@@ -53,11 +54,14 @@ export interface MemberReport {
   factorOfSafety: number | null;
   checks: MemberCheckRow[];
   frequency: FrequencyResult | null;
-  suggestion: { minIMm4: number; sectionName: string | null } | null;
+  /** minIMm4 is null when no uniform I can pass (springs, shear deflection or frequency); a note says why. */
+  suggestion: { minIMm4: number | null; sectionName: string | null } | null;
   /** Assumptions intake made and the engine's remarks, e.g. "gross section: cracking not included"; empty when none. */
   notes: string[];
   rotations: RotationResult[];
   shape: ShapeSample[];
+  /** Only with `{ model: true }` (the member page): what the engine used. Not part of the API answer. */
+  model?: MemberModelView;
 }
 
 type StoredDetail = { frequency: FrequencyResult | null; suggestion: MemberReport["suggestion"]; error: string | null; notes?: unknown };
@@ -65,31 +69,27 @@ type StoredDetail = { frequency: FrequencyResult | null; suggestion: MemberRepor
 interface MemberDiagrams extends Pick<MemberReport, "shape" | "rotations"> {
   /** Per check (combination id and span index), its pattern and spring-support figures. */
   figures: Map<string, CheckFigures>;
+  model: MemberModelView | null;
 }
 
 const figuresKeyOf = (combinationId: string, spanIndex: number): string => `${combinationId}\u0000${spanIndex}`;
+const noDiagrams = (): MemberDiagrams => ({ shape: [], rotations: [], figures: new Map(), model: null });
 
 /**
  * Re-runs the engine for one stored member for what only its own page needs: the sampled shape,
- * the support rotations and each check's figures (spans loaded, chord and settlement). Cheap for
- * one member; storing them for every member of a 100,000-member schedule is not.
+ * the support rotations, each check's figures (spans loaded, chord and settlement) and the model
+ * used. Cheap for one member; storing them for every member of a 100,000-member schedule is not.
  */
 function computeMemberDiagrams(header: Record<string, unknown>, input: unknown, criteria: ScheduleCriteria | null): MemberDiagrams {
-  const none: MemberDiagrams = { shape: [], rotations: [], figures: new Map() };
   // the criteria frozen with the schedule: catalogue names and organization materials read as they were checked
-  const parsed = parseSchedule({ ...header, members: [input] }, toParseOptions(criteria));
-  if (!parsed.ok) return none;
-  try {
-    const result = checkMember(parsed.schedule.members[0]!, parsed.schedule.profile, undefined, { shape: true });
-    const figures = new Map(result.checks.map((check) => [figuresKeyOf(check.combinationId, check.spanIndex), pickFigures(check)] as const));
-    return { shape: result.shape ?? [], rotations: result.rotations, figures };
-  } catch {
-    return none;
-  }
+  const run = runStoredMember(header, input, criteria);
+  if (!run.ok) return noDiagrams();
+  const figures = new Map(run.result.checks.map((check) => [figuresKeyOf(check.combinationId, check.spanIndex), pickFigures(check)] as const));
+  return { shape: run.result.shape ?? [], rotations: run.result.rotations, figures, model: run.model };
 }
 
 /** null when the schedule has no member with that mark. The caller has checked the schedule is the organization's. */
-export async function getMemberReport(scheduleId: string, mark: string): Promise<MemberReport | null> {
+export async function getMemberReport(scheduleId: string, mark: string, options: { model?: boolean } = {}): Promise<MemberReport | null> {
   const found = await getMemberResult(scheduleId, mark);
   if (!found) return null;
   const { member } = found;
@@ -97,7 +97,7 @@ export async function getMemberReport(scheduleId: string, mark: string): Promise
   const checked = member.checked === true;
   const detail = (member.detail ?? null) as StoredDetail | null;
   const header = member.header as Record<string, unknown>;
-  const diagrams = checked && !detail?.error ? computeMemberDiagrams(header, member.input, await loadScheduleCriteria(scheduleId)) : { shape: [], rotations: [], figures: new Map<string, CheckFigures>() };
+  const diagrams = checked && !detail?.error ? computeMemberDiagrams(header, member.input, await loadScheduleCriteria(scheduleId)) : noDiagrams();
   return {
     mark: member.mark as string,
     category: member.category as string,
@@ -128,5 +128,6 @@ export async function getMemberReport(scheduleId: string, mark: string): Promise
     notes: readStoredNotes(detail?.notes),
     shape: diagrams.shape,
     rotations: diagrams.rotations,
+    ...(options.model === true && diagrams.model !== null ? { model: diagrams.model } : {}),
   };
 }

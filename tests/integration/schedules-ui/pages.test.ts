@@ -136,13 +136,16 @@ describe("a member's page", () => {
     expect(response.status).toBe(200);
     expect(response.text).toContain("Member PG-F1");
     expect(response.text).toContain("Minimum second moment of area");
-    expect(response.text).toContain("Deflection (mm, + downward)");
-    expect(response.text).toContain("Position from the left end, x (m)");
+    expect(response.text).toContain("mm, + down");
+    expect(response.text).toContain("Position from the left end (m)");
+    // what was used: the section's I and the material's E, in the schedule's units
+    expect(response.text).toContain("What was used");
+    expect(response.text).toMatch(/data-support-kind="pinned"/);
     expect(response.text).toMatch(/<svg[^>]*role="img"/);
     // The checks table lists both combinations of the preset (IBC 2021 Table 1604.3: live, dead + live).
     expect(response.text).toContain("dead+live");
     // limit l/N beside the achieved l/N (the live row's limit is l/360, IBC 2021 Table 1604.3, from memory)
-    expect(response.text).toContain("Achieved");
+    expect(response.text).toContain("l/N achieved");
     expect(response.text).toContain("l/360");
   });
 
@@ -210,8 +213,8 @@ describe("deflection direction", () => {
     expect(results.text).toContain("Deflection (mm)");
     expect(results.text).toMatch(/PG-U1[^]*?1\.19 up[^]*?PG-D1[^]*?1\.19 down/);
     const member = await viewer.get(`/schedules/${created.body.id}/members/PG-U1`);
-    expect(member.text).toContain("1.19 up");
-    expect(member.text).not.toContain("1.19 down");
+    expect(member.text).toContain("1.19 mm up");
+    expect(member.text).not.toContain("1.19 mm down");
   });
 });
 

@@ -5,7 +5,7 @@ import { FormField } from "@/components/forms/form-field";
 import { SubmitButton } from "@/components/forms/submit-button";
 
 import { inviteMember } from "../actions";
-import { RoleSelect } from "./role-select";
+import { RoleDescriptions, RoleSelect } from "./role-select";
 
 export function InviteForm() {
   return (
@@ -13,9 +13,10 @@ export function InviteForm() {
       <h2 className="font-semibold">Invite a person</h2>
       <FormField label="E-mail" name="email" type="email" maxLength={320} autoComplete="off" />
       <div className="flex items-center gap-2">
-        <RoleSelect id="invite-role" label="Role" />
+        <RoleSelect id="invite-role" label="Role" describedBy="invite-role-descriptions" />
         <SubmitButton pendingLabel="Sending…">Send invitation</SubmitButton>
       </div>
+      <RoleDescriptions id="invite-role-descriptions" />
       <p className="text-xs text-ink-soft">The link works once and expires after 72 hours.</p>
     </ActionForm>
   );

@@ -1,6 +1,7 @@
 "use client";
 
 import { ActionForm } from "@/components/forms/action-form";
+import { ConfirmStep } from "@/components/forms/confirm-step";
 import { SubmitButton } from "@/components/forms/submit-button";
 import type { Role } from "@/db/schema";
 
@@ -27,21 +28,26 @@ export function MemberRow({ membershipId, name, email, role, isSelf }: MemberRow
         </ActionForm>
       </td>
       <td className="py-2">
-        <ActionForm action={removeMember} label={`Remove ${name}`} className="flex flex-col gap-1">
-          <input type="hidden" name="membershipId" value={membershipId} />
-          <fieldset className="text-xs">
-            <legend className="text-ink-soft">API keys {name} made</legend>
-            <label className="mr-3 inline-flex items-center gap-1">
-              <input type="radio" name="creatorKeys" value="revoke" required /> revoke them
-            </label>
-            <label className="inline-flex items-center gap-1">
-              <input type="radio" name="creatorKeys" value="keep" required /> keep them working
-            </label>
-          </fieldset>
-          <SubmitButton tone="danger" pendingLabel="Removing…" aria-label={`Remove ${name}`}>
-            Remove
-          </SubmitButton>
-        </ActionForm>
+        <ConfirmStep opener="Remove…" openerLabel={`Remove ${name}`}>
+          <ActionForm action={removeMember} label={`Confirm removing ${name}`} className="flex flex-col gap-1">
+            <p>
+              Remove <strong>{name}</strong> from this organization? They lose access at once.
+            </p>
+            <input type="hidden" name="membershipId" value={membershipId} />
+            <fieldset className="text-xs">
+              <legend className="text-ink-soft">API keys {name} made</legend>
+              <label className="mr-3 inline-flex items-center gap-1">
+                <input type="radio" name="creatorKeys" value="revoke" required /> revoke them
+              </label>
+              <label className="inline-flex items-center gap-1">
+                <input type="radio" name="creatorKeys" value="keep" required /> keep them working
+              </label>
+            </fieldset>
+            <SubmitButton tone="danger" pendingLabel="Removing…">
+              Yes, remove {name}
+            </SubmitButton>
+          </ActionForm>
+        </ConfirmStep>
       </td>
     </tr>
   );

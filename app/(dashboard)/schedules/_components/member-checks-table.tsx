@@ -1,5 +1,9 @@
+import type { CheckLimitUsed } from "@/lib/server/schedules/describe-member-model";
 import type { MemberCheckRow } from "@/lib/server/schedules/get-member-report";
-import { formatMm, formatNumber, formatRatio, formatSignedMm, formatSpanRatio } from "./format";
+import { getDeflectionDirection } from "@/lib/engine/deflection-direction";
+
+import { formatQuantity, formatSignificant, prettyUnit, toDisplay, type DisplayUnits } from "./display-units";
+import { formatRatio, formatSpanRatio } from "./format";
 import { OutcomeLabel } from "./outcome-label";
 
 /** Spans loaded per variable case, 1-based like the Span column: "live 1, 3; snow none". */
@@ -11,64 +15,88 @@ function describeLoadedSpans(loadedSpans: Record<string, number[]> | undefined):
     .join("; ");
 }
 
-export type MemberChecksTableProps = { checks: MemberCheckRow[]; governingKey: string | null };
+/** A signed deflection (+ down) as its magnitude in the display unit and its direction. */
+function formatDeflection(valueMm: number | null | undefined, units: DisplayUnits): string {
+  if (valueMm === null || valueMm === undefined || !Number.isFinite(valueMm)) return "—";
+  const direction = getDeflectionDirection(valueMm);
+  const magnitude = formatQuantity(Math.abs(valueMm), "deflection", units, 3);
+  return direction === "none" ? magnitude : `${magnitude} ${direction}`;
+}
 
-export function MemberChecksTable({ checks, governingKey }: MemberChecksTableProps) {
+export type MemberChecksTableProps = {
+  checks: MemberCheckRow[];
+  governingKey: string | null;
+  units: DisplayUnits;
+  /** Combination labels by id, when the model is known. */
+  labels?: Record<string, string>;
+  limits?: CheckLimitUsed[];
+};
+
+const th = "px-2 py-2 align-bottom font-medium";
+
+export function MemberChecksTable({ checks, governingKey, units, labels = {}, limits = [] }: MemberChecksTableProps) {
   if (checks.length === 0) return <p className="text-ink-soft">No checks were recorded for this member.</p>;
+  const limitOf = (c: MemberCheckRow) => limits.find((l) => l.combinationId === c.combinationId && l.spanIndex === c.spanIndex);
   return (
     <div className="overflow-x-auto rounded border border-rule bg-sheet">
-      <table className="w-full min-w-[52rem] border-collapse text-left">
+      <table className="w-full border-collapse text-left text-sm">
         <caption className="sr-only">Every deflection check of this member</caption>
-        <thead className="text-xs uppercase tracking-wide text-ink-soft">
+        <thead className="text-xs text-ink-soft">
           <tr className="border-b border-rule">
-            <th scope="col" className="px-2 py-2 font-medium">Combination</th>
-            <th scope="col" className="px-2 py-2 font-medium">Span</th>
-            <th scope="col" className="px-2 py-2 font-medium">Spans loaded</th>
-            <th scope="col" className="px-2 py-2 text-right font-medium">Deflection (mm)</th>
-            <th scope="col" className="px-2 py-2 text-right font-medium">At x (m)</th>
-            <th scope="col" className="px-2 py-2 text-right font-medium">Allowed (mm)</th>
-            <th scope="col" className="px-2 py-2 text-right font-medium">
-              Achieved <span className="normal-case">l/N</span>
+            <th scope="col" className={th}>Combination</th>
+            <th scope="col" className={th}>Span</th>
+            <th scope="col" className={th}>Spans loaded</th>
+            <th scope="col" className={`${th} text-right`}>Largest deflection</th>
+            <th scope="col" className={`${th} text-right`}>At ({prettyUnit(units.length)} from left)</th>
+            <th scope="col" className={`${th} text-right`}>Allowed</th>
+            <th scope="col" className={`${th} text-right`}>
+              l/N achieved <span className="block font-normal">(limit)</span>
             </th>
-            <th scope="col" className="px-2 py-2 text-right font-medium">
-              Limit <span className="normal-case">l/N</span>
-            </th>
-            <th scope="col" className="px-2 py-2 text-right font-medium">Utilization</th>
-            <th scope="col" className="px-2 py-2 text-right font-medium">Factor of safety</th>
-            <th scope="col" className="px-2 py-2 font-medium">Result</th>
+            <th scope="col" className={`${th} text-right`}>Utilization</th>
+            <th scope="col" className={`${th} text-right`}>Factor of safety</th>
+            <th scope="col" className={th}>Result</th>
           </tr>
         </thead>
         <tbody>
-          {checks.map((c) => (
-            <tr key={c.checkKey} className={`border-t border-rule ${c.pass ? "" : "bg-red-50 [&>*:first-child]:border-l-4 [&>*:first-child]:border-l-fail"}`}>
-              <th scope="row" className="px-2 py-1.5 font-medium [overflow-wrap:anywhere]">
-                {c.combinationId}
-                {c.checkKey === governingKey ? <span className="block text-xs font-normal text-ink-soft">governing</span> : null}
-              </th>
-              <td className="px-2 py-1.5">
-                {c.spanIndex + 1}
-                {c.spanKind === "cantilever" ? <span className="text-ink-soft"> · cantilever</span> : null}
-              </td>
-              <td className="px-2 py-1.5 text-ink-soft">{describeLoadedSpans(c.loadedSpans)}</td>
-              <td className="px-2 py-1.5 text-right">
-                {formatSignedMm(c.deflectionMm)}
-                {c.deflectionBasis !== undefined ? (
-                  <span className="block text-xs text-ink-soft">
-                    {c.deflectionBasis === "chord" ? "from chord" : "total"}; chord {formatMm(c.chordDeflectionMm ?? null)}, total {formatMm(c.totalDeflectionMm ?? null)}, settlement {(c.supportSettlementMm ?? []).map((v) => formatMm(v)).join(" / ")}
-                  </span>
-                ) : null}
-              </td>
-              <td className="px-2 py-1.5 text-right">{formatNumber(c.atMm / 1000, 3)}</td>
-              <td className="px-2 py-1.5 text-right">{formatMm(c.allowedMm)}</td>
-              <td className="px-2 py-1.5 text-right">{formatSpanRatio(c.achievedRatio)}</td>
-              <td className="px-2 py-1.5 text-right">{formatSpanRatio(c.limitRatio)}</td>
-              <td className={`px-3 py-1.5 text-right ${c.pass ? "" : "font-semibold"}`}>{formatRatio(c.utilization)}</td>
-              <td className="px-2 py-1.5 text-right">{formatRatio(c.factorOfSafety)}</td>
-              <td className="px-2 py-1.5">
-                <OutcomeLabel status={c.pass ? "pass" : "fail"} />
-              </td>
-            </tr>
-          ))}
+          {checks.map((c) => {
+            const limit = limitOf(c);
+            return (
+              <tr key={c.checkKey} className={`border-t border-rule ${c.pass ? "" : "bg-red-50 [&>*:first-child]:border-l-4 [&>*:first-child]:border-l-fail"}`}>
+                <th scope="row" className="px-2 py-1.5 font-medium [overflow-wrap:anywhere]">
+                  {labels[c.combinationId] ?? c.combinationId}
+                  {labels[c.combinationId] ? <span className="block text-xs font-normal text-ink-soft">{c.combinationId}</span> : null}
+                  {c.checkKey === governingKey ? <span className="block text-xs font-semibold">governing</span> : null}
+                </th>
+                <td className="px-2 py-1.5">
+                  {c.spanIndex + 1}
+                  {c.spanKind === "cantilever" ? <span className="block text-xs text-ink-soft">cantilever</span> : null}
+                </td>
+                <td className="px-2 py-1.5 text-ink-soft [overflow-wrap:anywhere]">{describeLoadedSpans(c.loadedSpans)}</td>
+                <td className="px-2 py-1.5 text-right">
+                  <span className="whitespace-nowrap">{formatDeflection(c.deflectionMm, units)}</span>
+                  {c.deflectionBasis !== undefined ? (
+                    <span className="block text-xs text-ink-soft">
+                      {c.deflectionBasis === "chord" ? "from chord" : "total"}; chord {formatDeflection(c.chordDeflectionMm, units)}, total {formatDeflection(c.totalDeflectionMm, units)}, settlement{" "}
+                      {(c.supportSettlementMm ?? []).map((v) => formatDeflection(v, units)).join(" / ")}
+                    </span>
+                  ) : null}
+                </td>
+                <td className="px-2 py-1.5 text-right">{formatSignificant(toDisplay(c.atMm, "length", units), 3)}</td>
+                <td className="px-2 py-1.5 text-right">
+                  <span className="whitespace-nowrap">{formatQuantity(c.allowedMm, "deflection", units, 3)}</span>
+                  {limit?.capGoverned ? <span className="block text-xs font-semibold">cap governs</span> : null}
+                </td>
+                <td className="px-2 py-1.5 text-right whitespace-nowrap">
+                  {formatSpanRatio(c.achievedRatio)} <span className="text-ink-soft">({formatSpanRatio(c.limitRatio)})</span>
+                </td>
+                <td className={`px-2 py-1.5 text-right ${c.pass ? "" : "font-semibold"}`}>{formatRatio(c.utilization)}</td>
+                <td className="px-2 py-1.5 text-right">{formatRatio(c.factorOfSafety)}</td>
+                <td className="px-2 py-1.5">
+                  <OutcomeLabel status={c.pass ? "pass" : "fail"} />
+                </td>
+              </tr>
+            );
+          })}
         </tbody>
       </table>
     </div>

@@ -10,9 +10,10 @@ import { StatusBadge } from "./status-badge";
 
 export type ScheduleSummaryProps = { schedule: ScheduleRow };
 
-function Item({ term, children }: { term: string; children: ReactNode }) {
+// One div per dt/dd pair, directly in the dl (a deeper wrapper breaks the list for screen readers).
+function Item({ term, children, className = "" }: { term: string; children: ReactNode; className?: string }) {
   return (
-    <div className="min-w-0">
+    <div className={`min-w-0 ${className}`}>
       <dt className="text-xs font-medium uppercase tracking-wide text-ink-soft">{term}</dt>
       <dd className="mt-0.5 [overflow-wrap:anywhere]">{children}</dd>
     </div>
@@ -50,18 +51,14 @@ export function ScheduleSummary({ schedule: s }: ScheduleSummaryProps) {
             {s.completedAt ? ` · finished ${formatDateTime(s.completedAt)}` : ""}
           </span>
         </Item>
-        <div className="sm:col-span-2 lg:col-span-4">
-          <Item term="Limit profile">
-            <span className="font-medium">{s.profile.label}</span> <span className="text-ink-soft">({s.profile.id})</span>
-            <span className="block text-xs text-ink-soft">Source: {s.profile.source}</span>
-          </Item>
-        </div>
+        <Item term="Limit profile" className="sm:col-span-2 lg:col-span-4">
+          <span className="font-medium">{s.profile.label}</span> <span className="text-ink-soft">({s.profile.id})</span>
+          <span className="block text-xs text-ink-soft">Source: {s.profile.source}</span>
+        </Item>
         {s.failureReason ? (
-          <div className="sm:col-span-2 lg:col-span-4">
-            <Item term="Why the check stopped">
-              <span className="text-fail">{s.failureReason}</span>
-            </Item>
-          </div>
+          <Item term="Why the check stopped" className="sm:col-span-2 lg:col-span-4">
+            <span className="text-fail">{s.failureReason}</span>
+          </Item>
         ) : null}
       </dl>
     </section>

@@ -34,7 +34,9 @@ export function KeyTable({ keys }: KeyTableProps) {
             <th className="pb-1 pr-3 font-medium">Name</th>
             <th className="pb-1 pr-3 font-medium">Scopes</th>
             <th className="pb-1 pr-3 font-medium">Created by</th>
-            <th className="pb-1 pr-3 font-medium">Last used</th>
+            <th className="pb-1 pr-3 font-medium">
+              Last used <span className="block normal-case tracking-normal">recorded once a minute at most</span>
+            </th>
             <th className="pb-1 pr-3 font-medium">Expires</th>
             <th className="pb-1 pr-3 font-medium">Status</th>
             <th className="pb-1 font-medium">
@@ -57,7 +59,7 @@ export function KeyTable({ keys }: KeyTableProps) {
                 </ul>
               </td>
               <td className="py-2 pr-3 text-ink-soft">{describeCreator(key)}</td>
-              <td className="py-2 pr-3 text-ink-soft" title="Recorded at most once a minute">
+              <td className="py-2 pr-3 text-ink-soft">
                 {formatUtcMinute(key.lastUsedAt, "never")}
               </td>
               <td className="py-2 pr-3 text-ink-soft">{formatUtcMinute(key.expiresAt, "never")}</td>

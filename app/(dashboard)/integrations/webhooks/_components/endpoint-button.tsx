@@ -2,6 +2,7 @@
 
 import { ActionForm } from "@/components/forms/action-form";
 import { SubmitButton } from "@/components/forms/submit-button";
+import { ConfirmStep } from "@/components/forms/confirm-step";
 import type { ActionResult } from "@/lib/server/auth/guards";
 
 export type EndpointButtonProps = {
@@ -10,10 +11,27 @@ export type EndpointButtonProps = {
   fields: Record<string, string>;
   children: string;
   tone?: "primary" | "quiet" | "danger";
+  /** For an action that cannot be taken back: the question asked before it runs. */
+  confirm?: { question: string; confirmLabel: string };
 };
 
-/** One small action on an endpoint or delivery, with its outcome shown beside it. */
-export function EndpointButton({ action, label, fields, children, tone = "quiet" }: EndpointButtonProps) {
+/** One small action on an endpoint or delivery, with its outcome shown beside it; `confirm` asks first. */
+export function EndpointButton({ action, label, fields, children, tone = "quiet", confirm }: EndpointButtonProps) {
+  if (confirm) {
+    return (
+      <ConfirmStep opener={`${children}…`} openerLabel={label} tone={tone === "danger" ? "danger" : "quiet"}>
+        <ActionForm action={action} label={`Confirm: ${label}`} className="space-y-2">
+          {Object.entries(fields).map(([name, value]) => (
+            <input key={name} type="hidden" name={name} value={value} />
+          ))}
+          <p>{confirm.question}</p>
+          <SubmitButton tone="danger" pendingLabel="Working…">
+            {confirm.confirmLabel}
+          </SubmitButton>
+        </ActionForm>
+      </ConfirmStep>
+    );
+  }
   return (
     <ActionForm action={action} label={label} className="space-y-1">
       {Object.entries(fields).map(([name, value]) => (

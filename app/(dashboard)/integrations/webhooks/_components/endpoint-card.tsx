@@ -38,13 +38,25 @@ export function EndpointCard({ endpoint }: EndpointCardProps) {
           action={setEndpointEnabled}
           label={`${endpoint.enabled ? "Disable" : "Enable"} ${endpoint.url}`}
           fields={{ endpointId: endpoint.id, enabled: endpoint.enabled ? "false" : "true" }}
+          {...(endpoint.enabled ? { confirm: { question: "Stop delivering events to this endpoint? Events while it is disabled are not sent; you can enable it again and resend them.", confirmLabel: "Yes, disable it" } } : {})}
         >
           {endpoint.enabled ? "Disable" : "Enable"}
         </EndpointButton>
-        <EndpointButton action={rotateSecret} label={`Rotate the secret of ${endpoint.url}`} fields={{ endpointId: endpoint.id }}>
+        <EndpointButton
+          action={rotateSecret}
+          label={`Rotate the secret of ${endpoint.url}`}
+          fields={{ endpointId: endpoint.id }}
+          confirm={{ question: "Make a new signing secret? The old one keeps signing for a grace period; the receiver must switch to the new one before it ends.", confirmLabel: "Yes, rotate the secret" }}
+        >
           Rotate secret
         </EndpointButton>
-        <EndpointButton action={deleteEndpoint} label={`Delete ${endpoint.url}`} fields={{ endpointId: endpoint.id }} tone="danger">
+        <EndpointButton
+          action={deleteEndpoint}
+          label={`Delete ${endpoint.url}`}
+          fields={{ endpointId: endpoint.id }}
+          tone="danger"
+          confirm={{ question: "Delete this endpoint and stop every delivery to it? This cannot be undone.", confirmLabel: "Yes, delete the endpoint" }}
+        >
           Delete
         </EndpointButton>
         <RevealSecret endpointId={endpoint.id} url={endpoint.url} />
