@@ -10,8 +10,8 @@ export interface ParseScheduleCsvOptions extends CsvMapperOptions {
   /** Schedule-level fields a CSV cannot carry. */
   name: string;
   reference?: string;
-  /** The public `limits` block, e.g. { preset: "ibc-2021-floor" }. */
-  limits: unknown;
+  /** The public `profile` block, e.g. { preset: "ibc-2021-floor" }. */
+  profile: unknown;
 }
 
 export interface CsvRowPlace {
@@ -68,7 +68,7 @@ export function createScheduleCsvReader(options: ParseScheduleCsvOptions): { sin
         return false;
       }
       const mapper = created.mapper;
-      collector = createScheduleCollector((r, where) => mapper.mapRow(r.fields, where), { name: options.name, reference: options.reference, units: options.units ?? {}, limits: options.limits });
+      collector = createScheduleCollector((r, where) => mapper.mapRow(r.fields, where), { name: options.name, reference: options.reference, units: options.units ?? {}, profile: options.profile });
       return true;
     }
     collector?.add(record);
@@ -97,7 +97,7 @@ export interface CsvScheduleFields {
   /** Left out of the document when undefined. */
   reference?: string;
   units: NonNullable<CsvMapperOptions["units"]>;
-  limits: unknown;
+  profile: unknown;
 }
 
 /**
@@ -142,7 +142,7 @@ export function createScheduleCollector(mapRecord: MapCsvRecord, schedule: CsvSc
         name: schedule.name,
         ...(schedule.reference === undefined ? {} : { reference: schedule.reference }),
         units: schedule.units,
-        limits: schedule.limits,
+        profile: schedule.profile,
         members,
       };
       return { ok: true, doc, places };
@@ -159,7 +159,7 @@ export function mapCsvRecordsToSchedule(records: Iterable<CsvMemberRecord>, mapR
 
 /**
  * Re-addresses an intake issue on `members[i]...` to the CSV row the member came from; issues
- * outside the members (limits, units) keep row 0.
+ * outside the members (profile, units) keep row 0.
  */
 export function mapIssueToCsvRow(issue: InputIssue, places: readonly CsvRowPlace[]): CsvRowError {
   const match = /^members\[(\d+)\]\.?(.*)$/.exec(issue.path);

@@ -19,10 +19,10 @@ export function createBeam(mark: string, spanM = 6, liveKnPerM = 7.5) {
 
 export function createScheduleDoc(members: unknown[], name = "Test schedule, Fenwick Quay") {
   return {
-    format: "sagline.schedule/v1",
+    format: "sagline.schedule/v2",
     name,
     units: { system: "SI", length: "m", sectionDimension: "mm", distributedLoad: "kN/m", force: "kN" },
-    limits: { preset: "ibc-2021-floor" },
+    profile: { preset: "ibc-2021-floor" },
     members,
   };
 }

@@ -230,7 +230,7 @@ function applyOverrides(ctx: ReadContext, preset: LimitProfile, value: unknown, 
   return ok ? profile : null;
 }
 
-/** `limits.sustainedLiveFraction`: a number from 0 to 1, only for presets that read it (ACI). */
+/** `profile.sustainedLiveFraction`: a number from 0 to 1, only for presets that read it (ACI). */
 function readSustainedLiveFraction(ctx: ReadContext, value: unknown, path: FieldPath, presetId: string): number | undefined | null {
   if (value === undefined) return undefined;
   const fractionPath = childPath(path, "sustainedLiveFraction");

@@ -1,5 +1,6 @@
 import { IDEMPOTENCY_LEASE_SECONDS } from "@/lib/server/http/idempotency";
 import { RESULT_PAGE_DEFAULT, RESULT_PAGE_MAX, SCHEDULE_PAGE_DEFAULT, SCHEDULE_PAGE_MAX } from "@/lib/server/schedules/page-limits";
+import { SCHEDULE_FORMAT } from "@/lib/vocabulary";
 
 import { jsonResponse, linkHeader, pageParameters, pathParameter, problemResponse, queryParameter, type Operation } from "./operations";
 
@@ -9,8 +10,8 @@ const csvParameters = [
   queryParameter("delimiter", "CSV field separator, taken as given and never guessed.", { enum: ["comma", "semicolon", "tab"], default: "comma" }),
   queryParameter("units", "Default unit system of the CSV's bare numbers.", { enum: ["SI", "US"] }),
   queryParameter(
-    "limits",
-    "CSV only: the limit preset every member is checked against, e.g. `ibc-2021-floor`. ACI 318-19 presets take their default sustained live fraction 1.0 (the conservative bound); a JSON schedule can set `limits.sustainedLiveFraction`.",
+    "profile",
+    "CSV only: the limit profile every member is checked against, e.g. `ibc-2021-floor`. ACI 318-19 profiles take their default sustained live fraction 1.0 (the conservative bound); a JSON schedule can set `profile.sustainedLiveFraction`.",
     { type: "string" },
   ),
   queryParameter("name", "CSV only: the schedule's name (default: the file name).", { type: "string", maxLength: 200 }),
@@ -25,7 +26,7 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
       operationId: "submitSchedule",
       tags: ["Schedules"],
       summary: "Submit a member schedule",
-      description: `A whole schedule of up to ${limits.maxMembers.toLocaleString("en-US")} members and ${bodyMb} MB, as JSON (sagline.schedule/v1), CSV (template: /api/templates/schedule.csv) or multipart/form-data with a \`file\` part. Everything is validated before anything is stored; one bad row rejects the whole schedule with its row, line and column. Checking runs in the background: poll the schedule or register a webhook. Send an Idempotency-Key to retry safely; keys expire after ${limits.idempotencyHours} hours.`,
+      description: `A whole schedule of up to ${limits.maxMembers.toLocaleString("en-US")} members and ${bodyMb} MB, as JSON (${SCHEDULE_FORMAT}), CSV (template: /api/templates/schedule.csv) or multipart/form-data with a \`file\` part. Everything is validated before anything is stored; one bad row rejects the whole schedule with its row, line and column. Checking runs in the background: poll the schedule or register a webhook. Send an Idempotency-Key to retry safely; keys expire after ${limits.idempotencyHours} hours.`,
       parameters: [
         {
           name: "Idempotency-Key",
@@ -49,7 +50,7 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
                 file: { type: "string", contentMediaType: "text/csv", description: "The CSV (or a .json schedule document)." },
                 delimiter: { type: "string" },
                 units: { type: "string" },
-                limits: { type: "string" },
+                profile: { type: "string" },
                 name: { type: "string" },
                 reference: { type: "string" },
               },

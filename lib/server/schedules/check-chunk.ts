@@ -1,16 +1,17 @@
 import { checkMember } from "@/lib/engine/check-member";
-import { getCheckKey } from "@/lib/engine/checks/evaluate-checks";
 import { parseSchedule } from "@/lib/engine/intake";
 import type { MemberResult } from "@/lib/engine/model";
 import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
 import { getSql } from "@/db/client";
 import { copyRows } from "@/lib/server/copy-rows";
+import { FREQUENCY_CHECK_NAME, nameDeflectionCheck } from "@/lib/vocabulary";
 
 import { completeScheduleIfDone, failSchedule } from "./finish-schedule";
 
 export const MAX_CHUNK_ATTEMPTS = 10;
 
-export type Outcome = { index: number; mark: string; category: string; result: MemberResult | null; error: string | null };
+/** spanOrigins: the public path of each engine span, so checks are named as the user wrote the spans. */
+export type Outcome = { index: number; mark: string; category: string; result: MemberResult | null; error: string | null; spanOrigins?: readonly string[] };
 
 /** Parses one chunk's stored members with the schedule's header and checks each one; an engine input error becomes that member's error. */
 export function checkMembers(header: Record<string, unknown>, firstMember: number, inputs: unknown[]): Outcome[] {
@@ -19,8 +20,9 @@ export function checkMembers(header: Record<string, unknown>, firstMember: numbe
   if (!parsed.ok) throw new Error(`stored members no longer parse: ${parsed.issues[0]?.path}: ${parsed.issues[0]?.message}`);
   return parsed.schedule.members.map((member, i) => {
     const index = firstMember + i;
+    const spanOrigins = parsed.schedule.origins[i]?.spans;
     try {
-      return { index, mark: member.mark, category: member.category, result: checkMember(member, parsed.schedule.profile), error: null };
+      return { index, mark: member.mark, category: member.category, result: checkMember(member, parsed.schedule.profile), error: null, spanOrigins };
     } catch (error) {
       if (!(error instanceof EngineInputError)) throw error;
       return { index, mark: member.mark, category: member.category, result: null, error: error.issues.map((e) => `${e.path}: ${e.message}`).join("; ") };
@@ -88,8 +90,18 @@ export async function checkChunk(scheduleId: string, chunkIndex: number): Promis
   return wrote ? "checked" : "skipped";
 }
 
-export function checkKeyOf(combinationId: string, spanIndex: number): string {
-  return getCheckKey(combinationId, spanIndex);
+/** The stored and public name of a check: "live, span 1", "total, left overhang" (lib/vocabulary.ts). */
+export function checkKeyOf(combinationId: string, spanIndex: number, spanOrigins?: readonly string[]): string {
+  return nameDeflectionCheck(combinationId, spanIndex, spanOrigins);
+}
+
+/** The public name of what governs the member: the deflection check's name, or "frequency". */
+function nameGoverningCheck(o: Outcome): string | null {
+  const governing = o.result?.governingCheck ?? null;
+  if (governing === null) return null;
+  if (governing.kind === "frequency") return FREQUENCY_CHECK_NAME;
+  const deflection = o.result?.governing ?? null;
+  return deflection === null ? governing.key : checkKeyOf(deflection.combinationId, deflection.spanIndex, o.spanOrigins);
 }
 
 export function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
@@ -112,7 +124,7 @@ export function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
       o.mark,
       o.category,
       r?.pass ?? false,
-      governing?.key ?? null,
+      nameGoverningCheck(o),
       governing?.utilization ?? null,
       governing?.factorOfSafety ?? null,
       deflection?.limitRatio ?? null,
@@ -128,7 +140,7 @@ export function* checkRows(scheduleId: string, outcomes: Outcome[]) {
       yield [
         scheduleId,
         o.index,
-        checkKeyOf(c.combinationId, c.spanIndex),
+        checkKeyOf(c.combinationId, c.spanIndex, o.spanOrigins),
         c.combinationId,
         c.spanIndex,
         c.spanKind,

@@ -1,5 +1,6 @@
 import type { ResultRow, ScheduleRow } from "@/db/queries/schedules";
 import { SAFETY_CAUTION } from "@/lib/safety";
+import { createOutcomeCounts } from "@/lib/vocabulary";
 
 export function scheduleLinks(id: string) {
   return { self: `/api/v1/schedules/${id}`, results: `/api/v1/schedules/${id}/results` };
@@ -14,9 +15,9 @@ export function representSchedule(s: ScheduleRow) {
     status: s.status,
     failureReason: s.failureReason,
     source: s.source,
-    limits: s.profile,
+    profile: s.profile,
     progress: { members: s.memberCount, checked: s.checkedCount, fraction: s.memberCount === 0 ? 0 : s.checkedCount / s.memberCount },
-    counts: { passed: s.passCount, failed: s.failCount, errors: s.errorCount },
+    counts: createOutcomeCounts(s.passCount, s.failCount, s.errorCount),
     createdAt: s.createdAt.toISOString(),
     completedAt: s.completedAt?.toISOString() ?? null,
     links: scheduleLinks(s.id),
@@ -34,7 +35,6 @@ export function representResult(r: ResultRow) {
     factorOfSafety: r.factorOfSafety,
     limitRatio: r.limitRatio,
     achievedRatio: r.achievedRatio,
-    pass: r.status === "pass",
     notes: r.notes,
   };
 }

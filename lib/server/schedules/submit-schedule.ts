@@ -114,13 +114,13 @@ export async function submitSchedule(input: SubmitScheduleInput): Promise<Submit
   const chunkTexts = Array.from({ length: chunkCount }, (_, chunk) => JSON.stringify(members.slice(chunk * CHUNK_SIZE, (chunk + 1) * CHUNK_SIZE)));
   // PostgreSQL's text and jsonb cannot hold U+0000: refuse it by name instead of failing at the insert.
   const withNul = chunkTexts.some((text) => text.includes("\\u0000")) ? findMembersWithNul(members) : [];
-  const headerHasNul = JSON.stringify([doc.name, doc.reference, doc.units, doc.limits]).includes("\\u0000");
+  const headerHasNul = JSON.stringify([doc.name, doc.reference, doc.units, doc.profile]).includes("\\u0000");
   if (withNul.length > 0 || headerHasNul) {
-    const issues = withNul.length > 0 ? withNul : [{ path: "", message: "the schedule's name, reference, units or limits contain a NUL character (U+0000), which cannot be stored" }];
+    const issues = withNul.length > 0 ? withNul : [{ path: "", message: "the schedule's name, reference, units or profile contain a NUL character (U+0000), which cannot be stored" }];
     throwInvalidSchedule((input.toFieldErrors ?? issuesToFieldErrors)(issues).slice(0, MAX_LISTED_ERRORS), issues.length);
   }
   const id = createId("sch");
-  const header = { format: doc.format, name: doc.name, reference: doc.reference, units: doc.units, limits: doc.limits };
+  const header = { format: doc.format, name: doc.name, reference: doc.reference, units: doc.units, profile: doc.profile };
 
   const sql = getSql();
   if (input.callbackEndpointId) await assertCallbackEndpoint(input.organizationId, input.callbackEndpointId);

@@ -79,7 +79,7 @@ describe("dispatch", () => {
     });
     expect(received.processed).toEqual([eventId]);
     expect(received.deliveries.every((d) => d.verified)).toBe(true);
-    expect(JSON.parse(received.deliveries[0]!.body)).toMatchObject({ type: "schedule.failed", data: { status: "failed", reason: "The schedule has no members." } });
+    expect(JSON.parse(received.deliveries[0]!.body)).toMatchObject({ type: "schedule.failed", data: { status: "failed", failureReason: "The schedule has no members." } });
     for (const receiver of [unsubscribed.receiver, disabled.receiver, otherOrg.receiver]) expect((await readPartner(receiver)).deliveries).toEqual([]);
   });
 

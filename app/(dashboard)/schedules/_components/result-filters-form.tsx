@@ -1,5 +1,6 @@
 import type { ResultStatus } from "@/db/queries/schedules";
 import { MEMBER_CATEGORIES } from "@/lib/engine/intake";
+import { OUTCOME_LABELS } from "@/lib/vocabulary";
 
 import { categoryLabels } from "./format";
 import { RESULT_STATUSES } from "./result-filters";
@@ -7,7 +8,7 @@ import { RESULT_STATUSES } from "./result-filters";
 export type ResultFiltersFormProps = { action: string; status?: ResultStatus; category?: string };
 
 const selectClass = "rounded border border-rule bg-sheet px-2 py-1.5 text-sm";
-const statusLabels: Record<ResultStatus, string> = { pass: "Pass", fail: "Fail", error: "Error" };
+const statusLabels: Record<ResultStatus, string> = OUTCOME_LABELS;
 
 /** A plain GET form: filters live in the address, so a filtered table can be bookmarked or shared. */
 export function ResultFiltersForm({ action, status, category }: ResultFiltersFormProps) {

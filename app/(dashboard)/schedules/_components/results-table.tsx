@@ -1,6 +1,7 @@
 import Link from "next/link";
 
 import type { ResultRow } from "@/db/queries/schedules";
+import { TERMS } from "@/lib/vocabulary";
 
 import { categoryLabels, formatCheckKey, formatRatio, formatSignedMm, formatSpanRatio } from "./format";
 import { OutcomeLabel } from "./outcome-label";
@@ -29,7 +30,7 @@ export function ResultsTable({ scheduleId, rows }: ResultsTableProps) {
             </th>
             <th scope="col" className="px-3 py-2 text-right font-medium">Utilization</th>
             <th scope="col" className="px-3 py-2 text-right font-medium">Factor of safety</th>
-            <th scope="col" className="px-3 py-2 font-medium">Result</th>
+            <th scope="col" className="px-3 py-2 font-medium">{TERMS.outcome.label}</th>
           </tr>
         </thead>
         <tbody>

@@ -190,7 +190,7 @@ export function validateSchedule({ parsed, mapped, system, presetId, name, refer
       }
       return created.mapper.mapRow(mapped.keep.map((i) => record.fields[i] ?? ""), where);
     },
-    { name, reference: reference || undefined, units, limits: { preset: presetId } },
+    { name, reference: reference || undefined, units, profile: { preset: presetId } },
   );
   if (!built.ok) return { ok: false, errors: built.errors };
   const intake = parseSchedule(built.doc);
