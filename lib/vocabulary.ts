@@ -100,6 +100,12 @@ export function nameDeflectionCheck(combinationId: string, engineSpanIndex: numb
   return formatCheckName(combinationId, getSpanLabel(spanOrigins?.[engineSpanIndex], engineSpanIndex));
 }
 
+/** The span part of a check name ("left overhang" of "live, left overhang"); the whole name when it has none. */
+export function getSpanLabelOfCheck(checkName: string): string {
+  const comma = checkName.indexOf(", ");
+  return comma < 0 ? checkName : checkName.slice(comma + 2);
+}
+
 /** The governing check as shown: its name, or a dash when nothing was checked. */
 export function formatGoverningCheck(name: string | null | undefined, empty = "—"): string {
   return name === null || name === undefined || name === "" ? empty : name;

@@ -1,3 +1,5 @@
+import { SCHEDULE_FORMAT } from "@/lib/vocabulary";
+
 import { APP_URL } from "./app";
 
 /** A simply supported steel floor beam (invented mark), SI units, span in metres, loads in kN/m. */
@@ -19,7 +21,7 @@ export function createBeam(mark: string, spanM = 6, liveKnPerM = 7.5) {
 
 export function createScheduleDoc(members: unknown[], name = "Test schedule, Fenwick Quay") {
   return {
-    format: "sagline.schedule/v2",
+    format: SCHEDULE_FORMAT,
     name,
     units: { system: "SI", length: "m", sectionDimension: "mm", distributedLoad: "kN/m", force: "kN" },
     profile: { preset: "ibc-2021-floor" },

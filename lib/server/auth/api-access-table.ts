@@ -6,7 +6,8 @@ import type { ApiKeyScope } from "@/db/schema";
  * is missing here, fails when an entry here has no route file exporting that method, and checks
  * every listed route's 401/403 answers against this table.
  */
-export type ApiAccess = ApiKeyScope | "public";
+/** "signed-link": no API key; the path carries a signed, expiring token (result downloads). */
+export type ApiAccess = ApiKeyScope | "public" | "signed-link";
 
 export const apiRouteScopes = {
   "GET /api/v1/openapi.json": "public",
@@ -20,6 +21,7 @@ export const apiRouteScopes = {
   "GET /api/v1/schedules/[scheduleId]": "results:read",
   "GET /api/v1/schedules/[scheduleId]/results": "results:read",
   "GET /api/v1/schedules/[scheduleId]/members/[mark]": "results:read",
+  "GET /api/v1/result-downloads/[token]": "signed-link",
 
   "GET /api/v1/webhook-endpoints": "webhooks:manage",
   "POST /api/v1/webhook-endpoints": "webhooks:manage",

@@ -1,5 +1,7 @@
+import exampleSchedule from "@/examples/lumenbrook-depot-hall-b.json";
 import { IDEMPOTENCY_LEASE_SECONDS } from "@/lib/server/http/idempotency";
 import { RESULT_PAGE_DEFAULT, RESULT_PAGE_MAX, SCHEDULE_PAGE_DEFAULT, SCHEDULE_PAGE_MAX } from "@/lib/server/schedules/page-limits";
+import { RESULT_DOWNLOAD_TTL_SECONDS } from "@/lib/server/schedules/result-download-link";
 import { SCHEDULE_FORMAT } from "@/lib/vocabulary";
 
 import { jsonResponse, linkHeader, pageParameters, pathParameter, problemResponse, queryParameter, type Operation } from "./operations";
@@ -40,7 +42,8 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
       requestBody: {
         required: true,
         content: {
-          "application/json": { schema: { $ref: "#/components/schemas/Schedule" } },
+          // The invented example schedule of examples/, so the reference page's curl line runs as shown.
+          "application/json": { schema: { $ref: "#/components/schemas/Schedule" }, example: exampleSchedule },
           "text/csv": { schema: { type: "string", description: "RFC 4180 CSV, UTF-8 (a BOM is allowed), one member per row." } },
           "multipart/form-data": {
             schema: {
@@ -108,6 +111,20 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
       summary: "One member's checks in full",
       parameters: [scheduleId, pathParameter("mark", "The member's mark, URL-encoded.")],
       responses: { "200": jsonResponse("The member.", "MemberResult"), "404": notFound },
+    },
+    "GET /api/v1/result-downloads/[token]": {
+      operationId: "downloadResults",
+      tags: ["Schedules"],
+      summary: "Download the full result table from a signed link",
+      description: `The \`download.csv\` and \`download.ndjson\` addresses of a \`schedule.completed\` webhook: the whole result table of that one schedule, without an API key. The token names the schedule, the format and the expiry (${RESULT_DOWNLOAD_TTL_SECONDS / 86_400} days after the event) and is HMAC-signed for this one purpose; an altered token is 403, an expired one 410. CSV has the export's columns; NDJSON one results row per line.`,
+      parameters: [pathParameter("token", "The signed token, exactly as the webhook gave it.")],
+      responses: {
+        "200": {
+          description: "The full result table.",
+          content: { "text/csv": { schema: { type: "string" } }, "application/x-ndjson": { schema: { type: "string", description: "One JSON object per line, each like a results-page row." } } },
+        },
+        "404": notFound,
+      },
     },
   } satisfies Record<string, Operation>;
 }

@@ -1,4 +1,5 @@
 import type { MemberCheckRow } from "@/lib/server/schedules/get-member-report";
+import { TERMS, getSpanLabelOfCheck } from "@/lib/vocabulary";
 import { formatMm, formatNumber, formatRatio, formatSignedMm, formatSpanRatio } from "./format";
 import { OutcomeLabel } from "./outcome-label";
 
@@ -35,7 +36,7 @@ export function MemberChecksTable({ checks, governingKey }: MemberChecksTablePro
             </th>
             <th scope="col" className="px-2 py-2 text-right font-medium">Utilization</th>
             <th scope="col" className="px-2 py-2 text-right font-medium">Factor of safety</th>
-            <th scope="col" className="px-2 py-2 font-medium">Result</th>
+            <th scope="col" className="px-2 py-2 font-medium">{TERMS.outcome.label}</th>
           </tr>
         </thead>
         <tbody>
@@ -46,7 +47,7 @@ export function MemberChecksTable({ checks, governingKey }: MemberChecksTablePro
                 {c.checkKey === governingKey ? <span className="block text-xs font-normal text-ink-soft">governing</span> : null}
               </th>
               <td className="px-2 py-1.5">
-                {c.spanIndex + 1}
+                {getSpanLabelOfCheck(c.checkKey)}
                 {c.spanKind === "cantilever" ? <span className="text-ink-soft"> · cantilever</span> : null}
               </td>
               <td className="px-2 py-1.5 text-ink-soft">{describeLoadedSpans(c.loadedSpans)}</td>

@@ -1,10 +1,11 @@
 import { parseSchedule, type ParsedSchedule, type ParseScheduleOptions } from "@/lib/engine/intake";
+import { SCHEDULE_FORMAT } from "@/lib/engine/intake/schedule-format";
 import type { InputIssue } from "@/lib/engine/model";
 
 /** A small valid SI schedule with one steel beam; tests change one thing at a time. */
 export function createDoc(member: Record<string, unknown> = {}, root: Record<string, unknown> = {}): Record<string, unknown> {
   return {
-    format: "sagline.schedule/v2",
+    format: SCHEDULE_FORMAT,
     name: "Test schedule",
     units: { system: "SI" },
     profile: { preset: "ibc-2021-floor" },
