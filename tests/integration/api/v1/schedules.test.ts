@@ -80,7 +80,7 @@ describe("POST /api/v1/schedules", () => {
 
     const member = await api().get(`/api/v1/schedules/${response.body.id}/members/F-01`).set("authorization", `Bearer ${key}`);
     expect(member.body).toMatchObject({ governingCheck: "frequency", status: "fail" });
-    const live = member.body.checks.find((c: { check: string }) => c.check === "live@0");
+    const live = member.body.checks.find((c: { check: string }) => c.check === "live, span 1");
     expect(live).toMatchObject({ pass: true, limitRatio: 360 });
     expect(live.achievedRatio).toBeCloseTo(4000 / liveMm, 6);
   });
@@ -174,10 +174,34 @@ describe("POST /api/v1/schedules", () => {
     expect(typeof error.code).toBe("string");
   });
 
-  it("refuses a CSV without its limit preset naming the parameter", async () => {
+  it("refuses a CSV without its limit profile naming the parameter", async () => {
     const response = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send("mark\r\nx\r\n");
     expect(response.status).toBe(400);
-    expect(response.body.errors).toContainEqual({ pointer: "/query/limits", message: expect.stringContaining("limit preset") });
+    expect(response.body.errors).toContainEqual({ pointer: "/query/profile", message: expect.stringContaining("limit profile") });
+  });
+
+  it("refuses the retired limits parameter and a delimiter given as a character, naming each", async () => {
+    const response = await api().post("/api/v1/schedules?limits=ibc-2021-floor&delimiter=%3B").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send("mark\r\nx\r\n");
+    expect(response.status).toBe(400);
+    expect(response.body.errors).toEqual([
+      { pointer: "/query/delimiter", message: 'must be "comma", "semicolon" or "tab"' },
+      { pointer: "/query/limits", message: expect.stringContaining("profile=") },
+    ]);
+  });
+
+  it("refuses a sagline.schedule/v1 document with a problem that says what changed, storing nothing", async () => {
+    const v1 = { ...createScheduleDoc([createBeam("V1-1", 4)]), format: "sagline.schedule/v1", limits: { preset: "ibc-2021-floor" } };
+    const response = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).send(v1);
+    expect(response.status).toBe(422);
+    expect(response.headers["content-type"]).toMatch(/^application\/problem\+json/);
+    expect(response.body).toMatchObject({
+      type: "https://sagline.dev/problems/schedule-format-retired",
+      title: "Schedule format retired",
+      status: 422,
+      currentFormat: "sagline.schedule/v2",
+      errors: [{ pointer: "/format", message: expect.stringMatching(/"limits" block is now "profile".*OUTER width and depth/) }],
+    });
+    expect(response.body.detail).toContain("CHANGELOG.md");
   });
 });
 
