@@ -51,6 +51,11 @@ const corpus: Case[] = [
   { label: "a hostile mark", method: "get", path: "/api/v1/schedules/sch_abc/members/%3Cscript%3E" },
   { label: "an unknown status filter", method: "get", path: "/api/v1/schedules/sch_abc/results?status=maybe" },
   { label: "an unknown format", method: "get", path: "/api/v1/schedules/sch_abc/results?format=xlsx" },
+  // Signed download links take no key; whatever the token, the answer is a problem, never a 5xx.
+  { label: "a forged download token", method: "get", path: "/api/v1/result-downloads/eyJwIjoieCJ9.AAAA" },
+  { label: "a 5,000-character download token", method: "get", path: `/api/v1/result-downloads/${"x".repeat(5000)}` },
+  { label: "a NUL in a download token", method: "get", path: "/api/v1/result-downloads/a%00.b" },
+  { label: "a v1 schedule", method: "post", path: "/api/v1/schedules", type: "application/json", body: JSON.stringify({ format: "sagline.schedule/v1", limits: { preset: "ibc-2021-floor" } }) },
 ];
 
 /** Declares a body over the 64 MB cap and sends only its start: the answer must not wait for the rest. */

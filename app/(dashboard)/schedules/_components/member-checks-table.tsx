@@ -4,11 +4,12 @@ import { formatMm, formatNumber, formatRatio, formatSignedMm, formatSpanRatio } 
 import { OutcomeLabel } from "./outcome-label";
 
 /** Spans loaded per variable case, 1-based like the Span column: "live 1, 3; snow none". */
-function describeLoadedSpans(loadedSpans: Record<string, number[]> | undefined): string {
+/** loadedSpans holds the engine's span indices; each is named as its checks name it ("span 1", "left overhang"). */
+function describeLoadedSpans(loadedSpans: Record<string, number[]> | undefined, spanLabels: ReadonlyMap<number, string>): string {
   // no pattern applied (one clear span, patterns off, or no variable load): every load as given
   if (loadedSpans === undefined) return "all";
   return Object.entries(loadedSpans)
-    .map(([loadCase, spans]) => `${loadCase} ${spans.length === 0 ? "none" : spans.map((span) => span + 1).join(", ")}`)
+    .map(([loadCase, spans]) => `${loadCase} ${spans.length === 0 ? "none" : spans.map((span) => spanLabels.get(span) ?? `span ${span + 1}`).join(", ")}`)
     .join("; ");
 }
 
@@ -16,6 +17,7 @@ export type MemberChecksTableProps = { checks: MemberCheckRow[]; governingKey: s
 
 export function MemberChecksTable({ checks, governingKey }: MemberChecksTableProps) {
   if (checks.length === 0) return <p className="text-ink-soft">No checks were recorded for this member.</p>;
+  const spanLabels = new Map(checks.map((c) => [c.spanIndex, getSpanLabelOfCheck(c.checkKey)]));
   return (
     <div className="overflow-x-auto rounded border border-rule bg-sheet">
       <table className="w-full min-w-[52rem] border-collapse text-left">
@@ -50,7 +52,7 @@ export function MemberChecksTable({ checks, governingKey }: MemberChecksTablePro
                 {getSpanLabelOfCheck(c.checkKey)}
                 {c.spanKind === "cantilever" ? <span className="text-ink-soft"> · cantilever</span> : null}
               </td>
-              <td className="px-2 py-1.5 text-ink-soft">{describeLoadedSpans(c.loadedSpans)}</td>
+              <td className="px-2 py-1.5 text-ink-soft">{describeLoadedSpans(c.loadedSpans, spanLabels)}</td>
               <td className="px-2 py-1.5 text-right">
                 {formatSignedMm(c.deflectionMm)}
                 {c.deflectionBasis !== undefined ? (
