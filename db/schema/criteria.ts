@@ -54,7 +54,7 @@ export const catalogueSections = pgTable(
 export const limitProfiles = pgTable(
   "limit_profiles",
   {
-    /** Public id, `lp_...`; a schedule names it in `limits.profile`. */
+    /** Public id, `lp_...`; a schedule names it in `profile.id`. */
     id: text().primaryKey(),
     organizationId: text()
       .notNull()
@@ -81,7 +81,7 @@ export const limitProfileVersions = pgTable(
     version: integer().notNull(),
     label: text().notNull(),
     source: text().notNull(),
-    /** The definition as edited: the public `limits.custom` format (api-schemas/v1/schedule.schema.json). */
+    /** The definition as edited: the public `profile.custom` format (api-schemas/v1/schedule.schema.json). */
     definition: jsonb().notNull(),
     /** The engine profile it resolves to (lib/engine/model.ts LimitProfile). */
     resolved: jsonb().notNull(),

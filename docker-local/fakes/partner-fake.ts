@@ -7,6 +7,8 @@
 //   GET  /                            a page listing what arrived
 // Modes: ok (200), 500, 410, 429 (Retry-After), slow (answers after slowMs), redirect (302),
 // down (the connection is dropped without an answer). Never started unless fakes are on.
+// A processed schedule.completed is followed up as a partner would: each signed download link
+// (data.download.csv / .ndjson) is fetched without an API key and the answer recorded in `downloads`.
 import { readFileSync } from "node:fs";
 import { createServer, type IncomingMessage, type ServerResponse } from "node:http";
 import { join } from "node:path";
@@ -36,6 +38,44 @@ interface Received {
   mode: Mode;
   /** True only on the first verified, acknowledged delivery of this webhook-id. */
   processed: boolean;
+  /** The signed download links of a processed schedule.completed, as fetched after acknowledging it. */
+  downloads: Download[];
+}
+
+interface Download {
+  format: string;
+  status: number | null;
+  contentType: string | null;
+  /** Non-empty lines of the body (CSV: header + rows; NDJSON: rows). */
+  lines: number;
+  firstLine: string;
+  error: string | null;
+}
+
+const MAX_DOWNLOAD_BYTES = 20 * 1024 * 1024;
+
+/** Fetches one signed link as a partner would: no credentials, bounded in size and time. */
+async function fetchDownload(format: string, url: string): Promise<Download> {
+  try {
+    const response = await fetch(url, { redirect: "manual", signal: AbortSignal.timeout(30_000) });
+    const text = await response.text();
+    const body = text.length > MAX_DOWNLOAD_BYTES ? text.slice(0, MAX_DOWNLOAD_BYTES) : text;
+    const lines = body.split(/\r?\n/).filter((line) => line !== "");
+    return { format, status: response.status, contentType: response.headers.get("content-type"), lines: lines.length, firstLine: (lines[0] ?? "").slice(0, 500), error: null };
+  } catch (e) {
+    return { format, status: null, contentType: null, lines: 0, firstLine: "", error: (e as Error).message };
+  }
+}
+
+function readDownloadLinks(body: string): [string, string][] {
+  try {
+    const parsed = JSON.parse(body) as { type?: unknown; data?: { download?: Record<string, unknown> } };
+    if (parsed.type !== "schedule.completed") return [];
+    const download = parsed.data?.download ?? {};
+    return (["csv", "ndjson"] as const).flatMap((format) => (typeof download[format] === "string" ? [[format, download[format] as string] as [string, string]] : []));
+  } catch {
+    return [];
+  }
 }
 
 const port = Number(process.env.PARTNER_PORT ?? 3792);
@@ -113,6 +153,7 @@ async function handleDelivery(name: string, req: IncomingMessage, res: ServerRes
     answeredStatus: null,
     mode: receiver.mode,
     processed: false,
+    downloads: [],
   };
   received.push(record);
   if (received.length > MAX_RECORDS) received.shift();
@@ -145,6 +186,9 @@ async function handleDelivery(name: string, req: IncomingMessage, res: ServerRes
   record.processed = !seen.has(record.webhookId);
   seen.add(record.webhookId);
   answer(200, {}, record.processed ? "processed" : "duplicate, already processed");
+  if (record.processed) {
+    for (const [format, url] of readDownloadLinks(body)) record.downloads.push(await fetchDownload(format, url));
+  }
 }
 
 const escape = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);

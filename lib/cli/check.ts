@@ -1,5 +1,5 @@
 /**
- * Offline schedule check: `npm run check -- FILE [--json] [--delimiter ;] [--profile ID] [--catalogue FILE]`.
+ * Offline schedule check: `npm run check -- FILE [--json] [--delimiter semicolon] [--profile ID] [--catalogue FILE]`.
  * Reads a JSON or CSV schedule, checks every member, prints a pass/fail table (or results JSON).
  * Exit codes: 0 every member passes, 1 any member fails, 2 bad input (every issue printed,
  * one per line as `path: message`), 3 an internal error.
@@ -9,13 +9,14 @@ import { basename, extname } from "node:path";
 
 import { checkSchedule, type CheckScheduleResult } from "../engine/check-schedule";
 import { getDeflectionDirection } from "../engine/deflection-direction";
-import type { CatalogueSection, InputIssue, MemberResult } from "../engine/model";
+import type { CatalogueSection, CheckResult, InputIssue, MemberResult } from "../engine/model";
 import { listPresetIds } from "../engine/presets";
 import { convertFromInternal } from "../engine/units";
-import { CSV_DELIMITER_CHARS, isCsvDelimiter, mapIssueToCsvRow, parseScheduleCsv, stripBom, type CsvDelimiter, type CsvRowError, type CsvRowPlace } from "../schedule-csv";
+import { DELIMITERS, isDelimiterName, nameDeflectionCheck, FREQUENCY_CHECK_NAME, TERMS } from "../vocabulary";
+import { mapIssueToCsvRow, parseScheduleCsv, stripBom, type CsvDelimiter, type CsvRowError, type CsvRowPlace } from "../schedule-csv";
 
 const CAUTION = "Screening and review aid: the engineer of record and the governing local codes decide.";
-const RESULTS_FORMAT = "sagline.results/v1";
+const RESULTS_FORMAT = "sagline.results/v2";
 
 class UsageError extends Error {}
 
@@ -27,7 +28,7 @@ interface CliArgs {
   catalogue: string | null;
 }
 
-const USAGE = "usage: npm run check -- FILE [--json] [--delimiter , | ; | tab] [--profile PRESET_ID] [--catalogue FILE.json]";
+const USAGE = "usage: npm run check -- FILE [--json] [--delimiter comma | semicolon | tab] [--profile PROFILE_ID] [--catalogue FILE.json]";
 
 function parseArgs(argv: string[]): CliArgs {
   const args: CliArgs = { file: "", json: false, delimiter: null, profile: null, catalogue: null };
@@ -41,10 +42,9 @@ function parseArgs(argv: string[]): CliArgs {
     if (arg === "--json") args.json = true;
     else if (arg === "--delimiter") {
       const value = next();
-      // Only "tab" is spelled out: "comma" and "semicolon" are not CLI spellings.
-      const delimiter = value === "tab" || value === "\\t" ? CSV_DELIMITER_CHARS.tab : value;
-      if (!isCsvDelimiter(delimiter)) throw new UsageError('--delimiter must be ",", ";" or tab');
-      args.delimiter = delimiter;
+      // By name, as the API's delimiter query takes it (docs/glossary.md).
+      if (!isDelimiterName(value)) throw new UsageError("--delimiter must be comma, semicolon or tab");
+      args.delimiter = DELIMITERS[value];
     } else if (arg === "--profile") args.profile = next();
     else if (arg === "--catalogue") args.catalogue = next();
     else if (arg.startsWith("--")) throw new UsageError(`unknown option ${arg}`);
@@ -125,28 +125,38 @@ function formatTable(outcome: Extract<CheckScheduleResult, { ok: true }>): strin
     return converted.ok ? converted.value : mm;
   };
   const digits = deflectionUnit === "in" ? 3 : 2;
-  const header = ["mark", "governing check", `deflection [${deflectionUnit}]`, `allowed [${deflectionUnit}]`, "achieved", "limit", "utilization", "FoS", "pass"];
-  const rows = results.map((r: MemberResult) => {
+  const header = [
+    "mark",
+    TERMS.governingCheck.label.toLowerCase(),
+    `deflection [${deflectionUnit}]`,
+    `allowed [${deflectionUnit}]`,
+    TERMS.achievedRatio.label.toLowerCase(),
+    TERMS.limitRatio.label.toLowerCase(),
+    TERMS.utilization.label.toLowerCase(),
+    TERMS.factorOfSafety.label.toLowerCase(),
+    TERMS.outcome.label.toLowerCase(),
+  ];
+  const rows = results.map((r: MemberResult, index) => {
     const g = r.governing;
     const overall = r.governingCheck ?? null;
     const byFrequency = overall?.kind === "frequency" && r.frequency !== null;
     return [
       r.mark,
-      byFrequency ? "frequency" : g ? `${g.combinationId} span ${g.spanIndex + 1}${g.spanKind === "cantilever" ? " (cantilever)" : ""}` : "-",
+      byFrequency ? FREQUENCY_CHECK_NAME : g ? nameDeflectionCheck(g.combinationId, g.spanIndex, schedule.origins[index]?.spans) : "-",
       !byFrequency && g ? formatSignedDeflection(g.deflectionMm, toUnit, digits) : "-",
       !byFrequency && g ? formatNumber(toUnit(g.allowedMm), digits) : "-",
       byFrequency ? `${formatNumber(r.frequency!.hz, 2)} Hz` : formatSpanRatio(g?.achievedRatio),
       byFrequency ? `>= ${r.frequency!.minHz} Hz` : formatSpanRatio(g?.limitRatio),
       overall ? formatNumber(overall.utilization, 3) : "-",
       overall ? formatNumber(overall.factorOfSafety, 2) : "-",
-      r.pass ? "PASS" : "FAIL",
+      r.pass ? "pass" : "fail",
     ];
   });
   const widths = header.map((h, c) => Math.max(h.length, ...rows.map((row) => (row[c] ?? "").length)));
   const line = (cells: string[]) => cells.map((cell, c) => (c >= 2 && c <= 7 ? cell.padStart(widths[c] ?? 0) : cell.padEnd(widths[c] ?? 0))).join("  ").trimEnd();
   const out = [
     `${schedule.name}${schedule.reference ? ` (${schedule.reference})` : ""}`,
-    `Limits: ${schedule.profile.label} - ${schedule.profile.source}`,
+    `${TERMS.profile.label}: ${schedule.profile.label} - ${schedule.profile.source}`,
     "",
     line(header),
     line(widths.map((w) => "-".repeat(w))),
@@ -175,19 +185,24 @@ function createResultsDocument(outcome: Extract<CheckScheduleResult, { ok: true 
     caution: CAUTION,
     schedule: { name: schedule.name, reference: schedule.reference, profile: { id: schedule.profile.id, label: schedule.profile.label, source: schedule.profile.source } },
     units: { length: "mm", deflection: "mm", rotation: "rad", frequency: "Hz", secondMoment: "mm^4" },
-    summary,
-    members: results.map((r) => ({
+    counts: { members: summary.members, pass: summary.passed, fail: summary.failed, error: 0 },
+    members: results.map((r, index) => {
+      const spans = schedule.origins[index]?.spans;
+      const name = (c: CheckResult) => nameDeflectionCheck(c.combinationId, c.spanIndex, spans);
+      const overall = r.governingCheck ?? null;
+      return {
       mark: r.mark,
       category: r.category,
-      pass: r.pass,
-      governing: r.governing,
-      governingCheck: r.governingCheck ?? null,
-      checks: r.checks,
+      status: r.pass ? "pass" : "fail",
+      governing: r.governing === null ? null : { check: name(r.governing), ...r.governing },
+      governingCheck: overall === null ? null : { ...overall, key: overall.kind === "frequency" || r.governing === null ? FREQUENCY_CHECK_NAME : name(r.governing) },
+      checks: r.checks.map((c) => ({ check: name(c), ...c })),
       rotations: r.rotations,
       frequency: r.frequency,
       suggestion: r.suggestion,
       ...(r.notes ? { notes: r.notes } : {}),
-    })),
+      };
+    }),
   };
 }
 
@@ -204,10 +219,10 @@ function run(argv: string[]): { code: number; stdout: string; stderr: string } {
   let places: CsvRowPlace[] | null = null;
   if (isJsonFile(args.file, text)) {
     doc = parseJson(text, args.file);
-    if (args.profile !== null && typeof doc === "object" && doc !== null) doc = { ...doc, limits: { preset: args.profile } };
+    if (args.profile !== null && typeof doc === "object" && doc !== null) doc = { ...doc, profile: { preset: args.profile } };
   } else {
     if (args.profile === null) throw new UsageError(`a CSV schedule needs --profile ID; presets: ${listPresetIds().join(", ")}`);
-    const csv = parseScheduleCsv(text, { delimiter: args.delimiter ?? ",", name: basename(args.file), limits: { preset: args.profile } });
+    const csv = parseScheduleCsv(text, { delimiter: args.delimiter ?? ",", name: basename(args.file), profile: { preset: args.profile } });
     if (!csv.ok) return { code: 2, stdout: "", stderr: `${csv.errors.map(formatCsvError).join("\n")}\n` };
     doc = csv.doc;
     places = csv.places;

@@ -59,7 +59,7 @@ export function checkParsedSchedule(schedule: ParsedSchedule, catalogue: Catalog
  * `profile.combinations[0]`); put them back on the public field they came from.
  */
 export function mapEnginePath(enginePath: string, memberPath: string, origins: MemberOrigins | undefined): string {
-  if (enginePath.startsWith("profile")) return `limits${enginePath.slice("profile".length)}`;
+  if (enginePath.startsWith("profile")) return enginePath;
   if (enginePath.startsWith("catalogue")) return enginePath;
   const indexed = /^(spans|supports)\[(\d+)\](.*)$/.exec(enginePath);
   const origin = indexed && origins ? origins[indexed[1] as "spans" | "supports"][Number(indexed[2])] : undefined;

@@ -124,7 +124,7 @@ function createEn1995Profile(variant: "characteristic" | "variable_only"): Limit
   };
 }
 
-/** Options that change how a preset is built (intake reads them from `limits`). */
+/** Options that change how a preset is built (intake reads them from `profile`). */
 export interface PresetOptions {
   /**
    * ACI presets: the part of each combination's live (or roof) load that is sustained, 0 to 1.

@@ -27,7 +27,7 @@ const CUSTOM_MATERIAL_COLUMNS = ["e", "g", "density"];
 
 /** CSV section column -> public section field, per shape (columns not listed keep their name). */
 export const SECTION_FIELD_NAMES: Record<string, Record<string, string>> = {
-  hollow_rectangle: { b: "B", h: "H", t: "t" },
+  hollow_rectangle: { b: "b", h: "h", t: "t" },
   tube: { d: "D", t: "t" },
   explicit: { second_moment: "I", area: "A", shear_area: "shearArea" },
 };

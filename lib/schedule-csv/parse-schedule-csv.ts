@@ -12,8 +12,8 @@ export interface ParseScheduleCsvOptions extends CsvMapperOptions {
   /** Schedule-level fields a CSV cannot carry. */
   name: string;
   reference?: string;
-  /** The public `limits` block, e.g. { preset: "ibc-2021-floor" }. */
-  limits: unknown;
+  /** The public `profile` block, e.g. { preset: "ibc-2021-floor" }. */
+  profile: unknown;
 }
 
 export interface CsvRowPlace {
@@ -70,7 +70,7 @@ export function createScheduleCsvReader(options: ParseScheduleCsvOptions, keep: 
         return false;
       }
       const mapper = created.mapper;
-      collector = createScheduleCollector((r, where) => mapper.mapRow(r.fields, where), { name: options.name, reference: options.reference, units: options.units ?? {}, limits: options.limits }, keep);
+      collector = createScheduleCollector((r, where) => mapper.mapRow(r.fields, where), { name: options.name, reference: options.reference, units: options.units ?? {}, profile: options.profile }, keep);
       return true;
     }
     collector?.add(record);
@@ -99,7 +99,7 @@ export interface CsvScheduleFields {
   /** Left out of the document when undefined. */
   reference?: string;
   units: NonNullable<CsvMapperOptions["units"]>;
-  limits: unknown;
+  profile: unknown;
 }
 
 /**
@@ -158,7 +158,7 @@ export function createScheduleCollector(mapRecord: MapCsvRecord, schedule: CsvSc
         name: schedule.name,
         ...(schedule.reference === undefined ? {} : { reference: schedule.reference }),
         units: schedule.units,
-        limits: schedule.limits,
+        profile: schedule.profile,
         members: compact ? createLazyCsvMembers(compact, places, mapRecord) : members,
       };
       return { ok: true, doc, places };
@@ -192,7 +192,7 @@ export function mapCsvRecordsToSchedule(records: Iterable<CsvMemberRecord>, mapR
 
 /**
  * Re-addresses an intake issue on `members[i]...` to the CSV row the member came from; issues
- * outside the members (limits, units) keep row 0.
+ * outside the members (profile, units) keep row 0.
  */
 export function mapIssueToCsvRow(issue: InputIssue, places: readonly CsvRowPlace[]): CsvRowError {
   const match = /^members\[(\d+)\]\.?(.*)$/.exec(issue.path);

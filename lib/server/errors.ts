@@ -19,6 +19,11 @@ export const domainErrorCodes = {
   // Idempotency-Key (IETF draft): same key, other payload; same key while the first still runs.
   idempotency_key_reused: { status: 422, title: "Idempotency key reused with another request" },
   idempotency_in_flight: { status: 409, title: "Request with this idempotency key still in progress" },
+  // A retired schedule format (CHANGELOG.md): refused before its fields are read with another meaning.
+  schedule_format_retired: { status: 422, title: "Schedule format retired" },
+  // Signed result-download links (webhooks): tampered or for another purpose, and past their expiry.
+  download_link_invalid: { status: 403, title: "Download link refused" },
+  download_link_expired: { status: 410, title: "Download link expired" },
 } as const;
 
 export type DomainErrorCode = keyof typeof domainErrorCodes;

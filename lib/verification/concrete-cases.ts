@@ -84,10 +84,10 @@ function getDeflection(combinationId: string): number {
 
 function getParsedCreepFactor(): number {
   const parsed = parseSchedule({
-    format: "sagline.schedule/v1",
+    format: "sagline.schedule/v2",
     name: "Verification RC beam (invented)",
     units: { system: "SI" },
-    limits: { preset: "aci-318-19-floor" },
+    profile: { preset: "aci-318-19-floor" },
     members: [
       {
         mark: "V-RC",

@@ -32,10 +32,10 @@ function createMembers(count: number): unknown[] {
 
 function createDocument(count: number): unknown {
   return {
-    format: "sagline.schedule/v1",
+    format: "sagline.schedule/v2",
     name: "Bench",
     units: { system: "SI", length: "m", sectionDimension: "mm", distributedLoad: "kN/m", force: "kN" },
-    limits: { preset: "ibc-2021-floor" },
+    profile: { preset: "ibc-2021-floor" },
     members: createMembers(count),
   };
 }

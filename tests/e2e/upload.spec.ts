@@ -33,7 +33,7 @@ async function mapTheFixture(page: Page) {
   await page.getByLabel("Unit for Span").selectOption("m");
   await page.getByLabel("Sagline column for Comment").selectOption({ label: "Ignore this column" });
   await page.getByLabel("Unit system").selectOption("SI");
-  await page.getByLabel("Limit preset").selectOption("ibc-2021-floor");
+  await page.getByLabel("Limit profile").selectOption("ibc-2021-floor");
 }
 
 describe("uploading a CSV schedule", () => {

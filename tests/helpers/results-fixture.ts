@@ -80,7 +80,7 @@ export async function insertResultsFixture(members: FixtureMember[], options: { 
   const memberCount = options.memberCount ?? members.length;
   const running = memberCount > members.length;
   const counts = countOutcomes(members);
-  const header = { format: "sagline.schedule/v1", name, units: { system: "SI" }, limits: { preset: "ibc-2021-floor" } };
+  const header = { format: "sagline.schedule/v2", name, units: { system: "SI" }, profile: { preset: "ibc-2021-floor" } };
   await sql.begin(async (tx) => {
     await tx`
       insert into schedules (id, organization_id, name, status, source, profile, header, member_count, chunk_count, chunks_done, checked_count, pass_count, fail_count, error_count, completed_at)

@@ -1,3 +1,5 @@
+import { SCHEDULE_FORMAT } from "@/lib/vocabulary";
+
 import { APP_URL } from "./app";
 
 /** A simply supported steel floor beam (invented mark), SI units, span in metres, loads in kN/m. */
@@ -19,10 +21,10 @@ export function createBeam(mark: string, spanM = 6, liveKnPerM = 7.5) {
 
 export function createScheduleDoc(members: unknown[], name = "Test schedule, Fenwick Quay") {
   return {
-    format: "sagline.schedule/v1",
+    format: SCHEDULE_FORMAT,
     name,
     units: { system: "SI", length: "m", sectionDimension: "mm", distributedLoad: "kN/m", force: "kN" },
-    limits: { preset: "ibc-2021-floor" },
+    profile: { preset: "ibc-2021-floor" },
     members,
   };
 }

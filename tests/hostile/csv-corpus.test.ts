@@ -24,7 +24,7 @@ beforeAll(async () => {
 
 function post(body: string | Buffer, query = "", type = "text/csv") {
   return request(APP_URL)
-    .post(`/api/v1/schedules?limits=en1995-timber-floor&name=Invented%20corpus${query}`)
+    .post(`/api/v1/schedules?profile=en1995-timber-floor&name=Invented%20corpus${query}`)
     .set("authorization", `Bearer ${key}`)
     .set("content-type", type)
     .send(body);
@@ -111,7 +111,7 @@ describe("the stall inputs are refused quickly and the service stays up", () => 
   });
 
   it("100,000 invalid JSON members: 1,000 listed, every one counted", async () => {
-    const doc = { format: "sagline.schedule/v1", name: "Invented stall", units: { system: "SI" }, limits: { preset: "ibc-2021-floor" }, members: Array.from({ length: 100_000 }, () => ({})) };
+    const doc = { format: "sagline.schedule/v2", name: "Invented stall", units: { system: "SI" }, profile: { preset: "ibc-2021-floor" }, members: Array.from({ length: 100_000 }, () => ({})) };
     const response = await post(JSON.stringify(doc), "", "application/json");
     assertSafeProblem(response, [key]);
     expect(response.status).toBe(422);

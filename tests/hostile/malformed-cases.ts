@@ -118,7 +118,7 @@ export function buildOperationCases(operation: Operation): MalformedCase[] {
   }
   if (operation.bodyTypes.length > 0) {
     // CSV parameters, so a CSV body is read rather than refused for a missing preset.
-    const withQuery = operation.bodyTypes.includes("text/csv") ? `${path}?limits=ibc-2021-floor` : path;
+    const withQuery = operation.bodyTypes.includes("text/csv") ? `${path}?profile=ibc-2021-floor` : path;
     for (const c of jsonBodyCases()) cases.push({ label: c.label, method, path: withQuery, headers: c.type ? { "content-type": c.type } : {}, body: c.body });
   }
   return cases;

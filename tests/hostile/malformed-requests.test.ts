@@ -38,10 +38,10 @@ const corpus: Case[] = [
   { label: "a script tag and formula in a mark", method: "post", path: "/api/v1/schedules", type: "application/json", body: doc([createBeam("<script>alert(1)</script>"), { ...createBeam("=cmd|' /C calc'!A0"), spans: [-1] }]) },
   { label: "numbers as huge exponents", method: "post", path: "/api/v1/schedules", type: "application/json", body: doc([{ ...createBeam("E-1"), spans: [1e308 * 10] }]).replace("null", "1e999") },
   { label: "invalid UTF-8", method: "post", path: "/api/v1/schedules", type: "application/json", body: Buffer.from([0x7b, 0xff, 0xfe, 0x7d]) },
-  { label: "CSV with an unterminated quote", method: "post", path: "/api/v1/schedules?limits=ibc-2021-floor", type: "text/csv", body: 'mark,category\r\n"A,floor_beam\r\n' },
-  { label: "CSV with duplicate headers", method: "post", path: "/api/v1/schedules?limits=ibc-2021-floor", type: "text/csv", body: "mark,mark\r\nA,B\r\n" },
-  { label: "CSV with an unknown delimiter", method: "post", path: "/api/v1/schedules?limits=ibc-2021-floor&delimiter=pipe", type: "text/csv", body: "mark|category\r\n" },
-  { label: "CSV with an unknown preset", method: "post", path: "/api/v1/schedules?limits=%3Cscript%3E", type: "text/csv", body: "mark\r\nA\r\n" },
+  { label: "CSV with an unterminated quote", method: "post", path: "/api/v1/schedules?profile=ibc-2021-floor", type: "text/csv", body: 'mark,category\r\n"A,floor_beam\r\n' },
+  { label: "CSV with duplicate headers", method: "post", path: "/api/v1/schedules?profile=ibc-2021-floor", type: "text/csv", body: "mark,mark\r\nA,B\r\n" },
+  { label: "CSV with an unknown delimiter", method: "post", path: "/api/v1/schedules?profile=ibc-2021-floor&delimiter=pipe", type: "text/csv", body: "mark|category\r\n" },
+  { label: "CSV with an unknown preset", method: "post", path: "/api/v1/schedules?profile=%3Cscript%3E", type: "text/csv", body: "mark\r\nA\r\n" },
   { label: "multipart without a file", method: "post", path: "/api/v1/schedules", type: "multipart/form-data; boundary=x", body: "--x\r\nContent-Disposition: form-data; name=\"name\"\r\n\r\nA\r\n--x--\r\n" },
   { label: "a broken multipart body", method: "post", path: "/api/v1/schedules", type: "multipart/form-data; boundary=x", body: "garbage" },
   { label: "a forged cursor", method: "get", path: "/api/v1/schedules?cursor=eyJjcmVhdGVkQXQiOiJub3BlIn0" },
@@ -51,6 +51,11 @@ const corpus: Case[] = [
   { label: "a hostile mark", method: "get", path: "/api/v1/schedules/sch_abc/members/%3Cscript%3E" },
   { label: "an unknown status filter", method: "get", path: "/api/v1/schedules/sch_abc/results?status=maybe" },
   { label: "an unknown format", method: "get", path: "/api/v1/schedules/sch_abc/results?format=xlsx" },
+  // Signed download links take no key; whatever the token, the answer is a problem, never a 5xx.
+  { label: "a forged download token", method: "get", path: "/api/v1/result-downloads/eyJwIjoieCJ9.AAAA" },
+  { label: "a 5,000-character download token", method: "get", path: `/api/v1/result-downloads/${"x".repeat(5000)}` },
+  { label: "a NUL in a download token", method: "get", path: "/api/v1/result-downloads/a%00.b" },
+  { label: "a v1 schedule", method: "post", path: "/api/v1/schedules", type: "application/json", body: JSON.stringify({ format: "sagline.schedule/v1", limits: { preset: "ibc-2021-floor" } }) },
 ];
 
 /** Declares a body over the 64 MB cap and sends only its start: the answer must not wait for the rest. */

@@ -81,7 +81,8 @@ export default function ApiDocsPage() {
             <a className="text-action underline" href="/api/templates/schedule.csv">
               /api/templates/schedule.csv
             </a>
-            ; pass the separator as <code>delimiter</code> (it is never guessed).
+            ; pass the separator by name as <code>delimiter</code> (<code>comma</code>, <code>semicolon</code> or <code>tab</code>, as the command line takes it; never guessed)
+            and the limit profile as <code>profile</code>. The names used throughout are those of the glossary (<code>docs/glossary.md</code>).
           </li>
         </ul>
       </section>

@@ -4,6 +4,7 @@ import Link from "next/link";
 import { Notice } from "@/components/ui/notice";
 import { SafetyCaution } from "@/components/ui/safety-caution";
 import { listSchedules } from "@/db/queries/schedules";
+import { OUTCOME_LABELS } from "@/lib/vocabulary";
 import { requirePage } from "@/lib/server/auth/guards";
 import { can } from "@/lib/server/auth/request-context";
 
@@ -63,9 +64,9 @@ export default async function SchedulesPage({ searchParams }: SchedulesPageProps
                 <th scope="col" className="px-3 py-2 font-medium">Schedule</th>
                 <th scope="col" className="px-3 py-2 font-medium">Status</th>
                 <th scope="col" className="px-3 py-2 font-medium">Progress</th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">Passed</th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">Failed</th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">Errors</th>
+                <th scope="col" className="px-3 py-2 text-right font-medium">{OUTCOME_LABELS.pass}</th>
+                <th scope="col" className="px-3 py-2 text-right font-medium">{OUTCOME_LABELS.fail}</th>
+                <th scope="col" className="px-3 py-2 text-right font-medium">{OUTCOME_LABELS.error}</th>
                 <th scope="col" className="px-3 py-2 font-medium">Submitted</th>
               </tr>
             </thead>

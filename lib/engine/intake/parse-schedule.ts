@@ -8,11 +8,12 @@ import { readLimits } from "./read-profile";
 import { readUnits } from "./read-units";
 import { childPath, createFieldSpec, IssueCollector, joinPath, readObject, readString, type OrganizationLookup, type ReadContext } from "./read-values";
 
-/** The public format's identifier; a breaking change gets a new one. */
-export const SCHEDULE_FORMAT = "sagline.schedule/v1";
+import { RETIRED_SCHEDULE_FORMATS, SCHEDULE_FORMAT } from "./schedule-format";
+
+export { SCHEDULE_FORMAT };
 export const MAX_MEMBERS = 100_000;
 const DEFAULT_MAX_ISSUES = 1000;
-const ROOT_SPEC = createFieldSpec(["format", "name", "reference", "notes", "units", "limits", "members"], ["format", "name", "units", "limits", "members"]);
+const ROOT_SPEC = createFieldSpec(["format", "name", "reference", "notes", "units", "profile", "members"], ["format", "name", "units", "profile", "members"]);
 
 export interface ParseScheduleOptions {
   /** Sections that `section: "name"` may refer to. */
@@ -66,6 +67,11 @@ export function parseSchedule(doc: unknown, options: ParseScheduleOptions = {}):
   const ctx: ReadContext = { issues, units: { system: null, byKind: {} } };
   if (options.organizationMaterials) ctx.organizationMaterials = options.organizationMaterials;
   if (options.organizationProfiles) ctx.organizationProfiles = options.organizationProfiles;
+  const retired = getRetiredFormatMessage(doc);
+  if (retired !== null) {
+    issues.add("format", retired);
+    return fail(issues);
+  }
   const root = readObject(ctx, doc, "", ROOT_SPEC);
   if (!root) return fail(issues);
   if (root.format !== undefined && root.format !== SCHEDULE_FORMAT) issues.add("format", `must be "${SCHEDULE_FORMAT}"`);
@@ -73,7 +79,7 @@ export function parseSchedule(doc: unknown, options: ParseScheduleOptions = {}):
   const reference = root.reference === undefined ? null : readString(ctx, root.reference, "reference", 200);
   if (root.notes !== undefined) readString(ctx, root.notes, "notes", 5000);
   if (root.units !== undefined) ctx.units = readUnits(ctx, root.units, "units");
-  const profile = root.limits === undefined ? null : readLimits(ctx, root.limits, "limits");
+  const profile = root.profile === undefined ? null : readLimits(ctx, root.profile, "profile");
 
   const members: Member[] = [];
   const origins: MemberOrigins[] = [];
@@ -127,6 +133,12 @@ export function parseSchedule(doc: unknown, options: ParseScheduleOptions = {}):
       origins,
     },
   };
+}
+
+/** What changed, when the document names a retired format (checked first: its other fields mean other things). */
+export function getRetiredFormatMessage(doc: unknown): string | null {
+  const format = typeof doc === "object" && doc !== null && !Array.isArray(doc) ? (doc as { format?: unknown }).format : undefined;
+  return typeof format === "string" && Object.hasOwn(RETIRED_SCHEDULE_FORMATS, format) ? (RETIRED_SCHEDULE_FORMATS[format] ?? null) : null;
 }
 
 function fail(issues: IssueCollector): Extract<ParseScheduleResult, { ok: false }> {

@@ -64,7 +64,7 @@ const CUSTOM_PROFILE_SPEC = createFieldSpec(
 );
 const OVERRIDES_SPEC = createFieldSpec(["combinations", "cantileverSpanMultiplier", "frequency", "patternLoads", "variableCases"]);
 const MAX_VARIABLE_CASES = 20;
-const LIMITS_SPEC = createFieldSpec(["preset", "overrides", "custom", "sustainedLiveFraction", "profile"]);
+const LIMITS_SPEC = createFieldSpec(["preset", "overrides", "custom", "sustainedLiveFraction", "id"]);
 
 /** Reads the editable parts of a combination onto `target` (used by custom profiles and overrides). */
 function readCombinationFields(ctx: ReadContext, source: JsonObject, path: FieldPath, target: Partial<Combination>): boolean {
@@ -231,7 +231,7 @@ function applyOverrides(ctx: ReadContext, preset: LimitProfile, value: unknown, 
   return ok ? profile : null;
 }
 
-/** `limits.sustainedLiveFraction`: a number from 0 to 1, only for presets that read it (ACI). */
+/** `profile.sustainedLiveFraction`: a number from 0 to 1, only for presets that read it (ACI). */
 function readSustainedLiveFraction(ctx: ReadContext, value: unknown, path: FieldPath, presetId: string): number | undefined | null {
   if (value === undefined) return undefined;
   const fractionPath = childPath(path, "sustainedLiveFraction");
@@ -247,14 +247,14 @@ function readSustainedLiveFraction(ctx: ReadContext, value: unknown, path: Field
   return fraction;
 }
 
-/** `limits: { "profile": id }`: one of the organization's own profiles, as resolved by the caller. */
+/** `profile: { "id": id }`: one of the organization's own profiles, as resolved by the caller. */
 function readOrganizationProfile(ctx: ReadContext, block: JsonObject, path: FieldPath): LimitProfile | null {
-  const profilePath = childPath(path, "profile");
+  const profilePath = childPath(path, "id");
   if (Object.keys(block).length > 1) {
-    ctx.issues.add(path, "give profile alone: an organization profile cannot be combined with preset, overrides, custom or sustainedLiveFraction");
+    ctx.issues.add(path, "give id alone: an organization profile cannot be combined with preset, overrides, custom or sustainedLiveFraction");
     return null;
   }
-  const id = readString(ctx, block.profile, profilePath, 64);
+  const id = readString(ctx, block.id, profilePath, 64);
   if (id === null) return null;
   const found = ctx.organizationProfiles?.get(id);
   if (found === undefined) {
@@ -265,15 +265,15 @@ function readOrganizationProfile(ctx: ReadContext, block: JsonObject, path: Fiel
 }
 
 /**
- * Reads `limits`: `{ "preset": id }`, `{ "preset": id, "overrides": {...} }` or
- * `{ "custom": profile }`; an ACI preset may add `sustainedLiveFraction`; `{ "profile": id }` names
+ * Reads `profile`: `{ "preset": id }`, `{ "preset": id, "overrides": {...} }` or
+ * `{ "custom": profile }`; an ACI preset may add `sustainedLiveFraction`; `{ "id": "lp_..." }` names
  * an organization profile (ParseScheduleOptions.organizationProfiles). Unknown preset ids
  * list the known ones.
  */
 export function readLimits(ctx: ReadContext, value: unknown, path: FieldPath): LimitProfile | null {
   const block = readObject(ctx, value, path, LIMITS_SPEC);
   if (!block) return null;
-  if (block.profile !== undefined) return readOrganizationProfile(ctx, block, path);
+  if (block.id !== undefined) return readOrganizationProfile(ctx, block, path);
   if (block.custom !== undefined) {
     if (block.preset !== undefined || block.overrides !== undefined || block.sustainedLiveFraction !== undefined) {
       ctx.issues.add(path, "give either custom, or preset with optional overrides (and sustainedLiveFraction), not both");

@@ -60,7 +60,8 @@ function isSameDimensions(a: Dimensions, b: Dimensions): boolean {
 // A Map, not an object literal, so that a shape such as "constructor" is unknown, not inherited.
 const SHAPE_SPECS = new Map<string, ShapeSpec>([
   ["rectangle", createShapeSpec(["b", "h"], ["b", "h"])],
-  ["hollow_rectangle", createShapeSpec(["B", "H", "t", "b", "h"], ["B", "H"])],
+  // b and h are the OUTER size (common practice for hollow sections), as in the CSV; t the wall.
+  ["hollow_rectangle", createShapeSpec(["b", "h", "t"], ["b", "h", "t"])],
   ["round", createShapeSpec(["d"], ["d"])],
   ["tube", createShapeSpec(["D", "t"], ["D", "t"])],
   ["i_plate", createShapeSpec(["bf", "tf", "d", "tw"], ["bf", "tf", "d", "tw"])],
@@ -192,21 +193,14 @@ function createShape(ctx: ReadContext, shape: string, dims: Record<string, numbe
       return { shape, iMm4: getDim(dims, "I"), areaMm2: dims.A ?? null, shearAreaMm2: dims.shearArea ?? null };
     }
     case "hollow_rectangle": {
-      const hasWall = "t" in dims;
-      const hasInner = "b" in dims || "h" in dims;
-      if (hasWall === hasInner || (hasInner && !("b" in dims && "h" in dims))) {
-        ctx.issues.add(path, "hollow_rectangle needs B, H and either the wall t or the inner b and h");
+      const wall = getDim(dims, "t");
+      const outerBMm = getDim(dims, "b");
+      const outerHMm = getDim(dims, "h");
+      if (2 * wall >= outerBMm || 2 * wall >= outerHMm) {
+        ctx.issues.add(childPath(path, "t"), "wall thickness must be less than half of the outer width b and of the outer depth h");
         return null;
       }
-      if (dims.t === null || dims.b === null || dims.h === null) return null;
-      const wall = dims.t;
-      if (wall !== undefined && (2 * wall >= getDim(dims, "B") || 2 * wall >= getDim(dims, "H"))) {
-        ctx.issues.add(childPath(path, "t"), "wall thickness must be less than half of B and of H");
-        return null;
-      }
-      return wall !== undefined
-        ? { shape, outerBMm: getDim(dims, "B"), outerHMm: getDim(dims, "H"), innerBMm: getDim(dims, "B") - 2 * wall, innerHMm: getDim(dims, "H") - 2 * wall }
-        : { shape, outerBMm: getDim(dims, "B"), outerHMm: getDim(dims, "H"), innerBMm: getDim(dims, "b"), innerHMm: getDim(dims, "h") };
+      return { shape, outerBMm, outerHMm, innerBMm: outerBMm - 2 * wall, innerHMm: outerHMm - 2 * wall };
     }
     default:
       return null;

@@ -6,7 +6,8 @@ import type { ApiKeyScope } from "@/db/schema";
  * is missing here, fails when an entry here has no route file exporting that method, and checks
  * every listed route's 401/403 answers against this table.
  */
-export type ApiAccess = ApiKeyScope | "public";
+/** "signed-link": no API key; the path carries a signed, expiring token (result downloads). */
+export type ApiAccess = ApiKeyScope | "public" | "signed-link";
 
 export const apiRouteScopes = {
   "GET /api/v1/openapi.json": "public",
@@ -38,6 +39,7 @@ export const apiRouteScopes = {
   "GET /api/v1/section-catalogues/[catalogueId]": "results:read",
   "PATCH /api/v1/section-catalogues/[catalogueId]": "criteria:manage",
   "DELETE /api/v1/section-catalogues/[catalogueId]": "criteria:manage",
+  "GET /api/v1/result-downloads/[token]": "signed-link",
 
   "GET /api/v1/webhook-endpoints": "webhooks:manage",
   "POST /api/v1/webhook-endpoints": "webhooks:manage",

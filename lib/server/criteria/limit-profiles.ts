@@ -11,7 +11,7 @@ export const MAX_LIMIT_PROFILES = 200;
 /**
  * What a person or a key writes (api-schemas/v1/limit-profile-write.schema.json; the settings
  * screen's form schema): a label and a source, and either a preset to copy or the definition (the
- * public `limits.custom` format without id, label and source, which Sagline sets).
+ * public `profile.custom` format without id, label and source, which Sagline sets).
  */
 export interface LimitProfileInput {
   label: string;
@@ -40,7 +40,7 @@ export interface LimitProfileVersionView {
   createdAt: string;
 }
 
-/** The public `limits.custom` form of an engine profile: quantities carry their units. */
+/** The public `profile.custom` form of an engine profile: quantities carry their units. */
 export function describeProfileDefinition(profile: LimitProfile): Record<string, unknown> {
   return {
     combinations: profile.combinations.map((c) => ({

@@ -68,7 +68,7 @@ export async function recheckSchedule(input: RecheckInput): Promise<SubmittedSch
   return submitSchedule({
     organizationId: input.organizationId,
     source: row.source as "api-json" | "api-csv" | "upload",
-    doc: { ...header, limits: { profile: profileId }, members },
+    doc: { ...header, profile: { id: profileId }, members },
     submittedByUserId: input.submittedByUserId ?? null,
     apiKeyId: input.apiKeyId ?? null,
     projectId: (row.project_id as string | null) ?? null,

@@ -17,7 +17,7 @@ import { loadCataloguesInUse } from "./section-catalogues";
 export interface ScheduleCriteria {
   catalogue: CatalogueSection[];
   materials: Material[];
-  /** The organization profile `limits.profile` named, resolved at its exact version. */
+  /** The organization profile `profile.id` named, resolved at its exact version. */
   profile: { id: string; version: number; profile: LimitProfile } | null;
 }
 
@@ -51,10 +51,10 @@ export interface SubmissionCriteria {
 
 function readNamedProfileId(doc: unknown): string | null {
   if (typeof doc !== "object" || doc === null) return null;
-  const limits = (doc as Record<string, unknown>).limits;
-  if (typeof limits !== "object" || limits === null) return null;
-  const profile = (limits as Record<string, unknown>).profile;
-  return typeof profile === "string" ? profile.trim() : null;
+  const profile = (doc as Record<string, unknown>).profile;
+  if (typeof profile !== "object" || profile === null) return null;
+  const id = (profile as Record<string, unknown>).id;
+  return typeof id === "string" ? id.trim() : null;
 }
 
 /** Loads the organization's live criteria for a submission (three queries, whatever the schedule's size). */

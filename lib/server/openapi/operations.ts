@@ -44,6 +44,19 @@ export function describeOperation(key: ApiRouteKey, operation: Operation): Opera
   const scope = apiRouteScopes[key];
   const responses = (operation.responses ?? {}) as Record<string, unknown>;
   if (scope === "public") return { ...operation, security: [], "x-sagline-scope": "public", responses };
+  if (scope === "signed-link") {
+    return {
+      ...operation,
+      security: [],
+      "x-sagline-scope": "signed-link",
+      responses: {
+        ...responses,
+        "403": problemResponse("The link was altered or is not a result-download link (download-link-invalid)."),
+        "410": problemResponse("The link is past its expiry (download-link-expired)."),
+        "500": problemResponse("Internal error; the body carries a requestId."),
+      },
+    };
+  }
   return {
     ...operation,
     description: `${operation.description ? `${String(operation.description)}\n\n` : ""}Scope: \`${scope}\`.`,

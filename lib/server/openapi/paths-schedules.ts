@@ -1,6 +1,9 @@
 import { MEMBER_CATEGORIES } from "@/lib/engine/intake";
+import exampleSchedule from "@/examples/lumenbrook-depot-hall-b.json";
 import { IDEMPOTENCY_LEASE_SECONDS } from "@/lib/server/http/idempotency";
 import { RESULT_PAGE_DEFAULT, RESULT_PAGE_MAX, SCHEDULE_PAGE_DEFAULT, SCHEDULE_PAGE_MAX } from "@/lib/server/schedules/page-limits";
+import { RESULT_DOWNLOAD_TTL_SECONDS } from "@/lib/server/schedules/result-download-link";
+import { SCHEDULE_FORMAT } from "@/lib/vocabulary";
 
 import { jsonResponse, linkHeader, pageParameters, pathParameter, problemResponse, queryParameter, type Operation } from "./operations";
 
@@ -10,8 +13,8 @@ const csvParameters = [
   queryParameter("delimiter", "CSV field separator, taken as given and never guessed.", { enum: ["comma", "semicolon", "tab"], default: "comma" }),
   queryParameter("units", "Default unit system of the CSV's bare numbers.", { enum: ["SI", "US"] }),
   queryParameter(
-    "limits",
-    "CSV only: the limit preset every member is checked against, e.g. `ibc-2021-floor`. ACI 318-19 presets take their default sustained live fraction 1.0 (the conservative bound); a JSON schedule can set `limits.sustainedLiveFraction`.",
+    "profile",
+    "CSV only: the limit profile every member is checked against, e.g. `ibc-2021-floor`. ACI 318-19 profiles take their default sustained live fraction 1.0 (the conservative bound); a JSON schedule can set `profile.sustainedLiveFraction`.",
     { type: "string" },
   ),
   queryParameter("name", "CSV only: the schedule's name (default: the file name).", { type: "string", maxLength: 200 }),
@@ -26,7 +29,7 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
       operationId: "submitSchedule",
       tags: ["Schedules"],
       summary: "Submit a member schedule",
-      description: `A whole schedule of up to ${limits.maxMembers.toLocaleString("en-US")} members and ${bodyMb} MB, as JSON (sagline.schedule/v1), CSV (template: /api/templates/schedule.csv) or multipart/form-data with a \`file\` part. Everything is validated before anything is stored; one bad row rejects the whole schedule with its row, line and column. Checking runs in the background: poll the schedule or register a webhook. Send an Idempotency-Key to retry safely; keys expire after ${limits.idempotencyHours} hours.`,
+      description: `A whole schedule of up to ${limits.maxMembers.toLocaleString("en-US")} members and ${bodyMb} MB, as JSON (${SCHEDULE_FORMAT}), CSV (template: /api/templates/schedule.csv) or multipart/form-data with a \`file\` part. Everything is validated before anything is stored; one bad row rejects the whole schedule with its row, line and column. Checking runs in the background: poll the schedule or register a webhook. Send an Idempotency-Key to retry safely; keys expire after ${limits.idempotencyHours} hours.`,
       parameters: [
         {
           name: "Idempotency-Key",
@@ -40,7 +43,8 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
       requestBody: {
         required: true,
         content: {
-          "application/json": { schema: { $ref: "#/components/schemas/Schedule" } },
+          // The invented example schedule of examples/, so the reference page's curl line runs as shown.
+          "application/json": { schema: { $ref: "#/components/schemas/Schedule" }, example: exampleSchedule },
           "text/csv": { schema: { type: "string", description: "RFC 4180 CSV, UTF-8 (a BOM is allowed), one member per row." } },
           "multipart/form-data": {
             schema: {
@@ -50,7 +54,7 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
                 file: { type: "string", contentMediaType: "text/csv", description: "The CSV (or a .json schedule document)." },
                 delimiter: { type: "string" },
                 units: { type: "string" },
-                limits: { type: "string" },
+                profile: { type: "string" },
                 name: { type: "string" },
                 reference: { type: "string" },
               },
@@ -117,6 +121,20 @@ export function buildScheduleOperations(limits: { maxMembers: number; maxBodyByt
       summary: "One member's checks in full",
       parameters: [scheduleId, pathParameter("mark", "The member's mark, URL-encoded.")],
       responses: { "200": jsonResponse("The member.", "MemberResult"), "404": notFound },
+    },
+    "GET /api/v1/result-downloads/[token]": {
+      operationId: "downloadResults",
+      tags: ["Schedules"],
+      summary: "Download the full result table from a signed link",
+      description: `The \`download.csv\` and \`download.ndjson\` addresses of a \`schedule.completed\` webhook: the whole result table of that one schedule, without an API key. The token names the schedule, the format and the expiry (${RESULT_DOWNLOAD_TTL_SECONDS / 86_400} days after the event) and is HMAC-signed for this one purpose; an altered token is 403, an expired one 410. CSV has the export's columns; NDJSON one results row per line.`,
+      parameters: [pathParameter("token", "The signed token, exactly as the webhook gave it.")],
+      responses: {
+        "200": {
+          description: "The full result table.",
+          content: { "text/csv": { schema: { type: "string" } }, "application/x-ndjson": { schema: { type: "string", description: "One JSON object per line, each like a results-page row." } } },
+        },
+        "404": notFound,
+      },
     },
   } satisfies Record<string, Operation>;
 }

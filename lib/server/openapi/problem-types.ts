@@ -26,6 +26,9 @@ const descriptions: Partial<Record<DomainErrorCode | "internal", string>> = {
   api_key_required: 'No "Authorization: Bearer <key>" header.',
   invalid_api_key: "The key is malformed (checksum), unknown, revoked or expired; detail says which.",
   insufficient_scope: "The key is valid but lacks the scope this route needs.",
+  schedule_format_retired: 'The schedule names a format Sagline no longer reads (e.g. "sagline.schedule/v1"); detail says what changed and which format to send.',
+  download_link_invalid: "The result-download link was altered, is not a download link, or names another format; ask for a fresh one (the schedule.completed webhook carries it).",
+  download_link_expired: "The result-download link is past its expiry; read the results with an API key, or resend the webhook for a fresh link.",
   internal: "Our fault. The body carries a requestId to quote; no internals are ever included.",
 };
 

@@ -1,6 +1,6 @@
 import type { TransactionSql } from "postgres";
 
-import type { Outcome } from "@/lib/server/schedules/check-chunk";
+import { nameGoverningCheck, type Outcome } from "@/lib/server/schedules/check-chunk";
 
 /**
  * Puts every member of a checked chunk that did not pass (failed or errored) in the review queue,
@@ -19,7 +19,7 @@ export async function insertMemberReviews(tx: TransactionSql, scheduleId: string
       mark: o.mark,
       category: o.category,
       outcome: o.error !== null || !o.result ? "error" : "fail",
-      governing_check: o.result?.governingCheck?.key ?? null,
+      governing_check: nameGoverningCheck(o),
       // JSON has no Infinity; a non-finite utilization is stored as null (sorted last, like errors).
       utilization: Number.isFinite(o.result?.governingCheck?.utilization) ? o.result!.governingCheck!.utilization : null,
       input: inputs[o.index - firstMember] ?? null,

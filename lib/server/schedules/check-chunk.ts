@@ -1,5 +1,4 @@
 import { checkMember } from "@/lib/engine/check-member";
-import { getCheckKey } from "@/lib/engine/checks/evaluate-checks";
 import { parseSchedule } from "@/lib/engine/intake";
 import type { MemberResult } from "@/lib/engine/model";
 import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
@@ -7,6 +6,7 @@ import { getSql } from "@/db/client";
 import { copyRows } from "@/lib/server/copy-rows";
 import { loadScheduleCriteria, toParseOptions, type ScheduleCriteria } from "@/lib/server/criteria/schedule-criteria";
 import { insertMemberReviews } from "@/lib/server/review/insert-member-reviews";
+import { FREQUENCY_CHECK_NAME, nameDeflectionCheck } from "@/lib/vocabulary";
 
 import { completeScheduleIfDone, failSchedule } from "./finish-schedule";
 
@@ -14,7 +14,16 @@ export const MAX_CHUNK_ATTEMPTS = 10;
 
 /** What the results table shows of a member's input beside its outcome (stored with it, so a page never re-reads the chunk). */
 export type OutcomeInput = { section: string | null; material: string | null; quantity: number; spansMm: number[] };
-export type Outcome = { index: number; mark: string; category: string; input?: OutcomeInput; result: MemberResult | null; error: string | null };
+/** spanOrigins: the public path of each engine span, so checks are named as the user wrote the spans. */
+export type Outcome = {
+  index: number;
+  mark: string;
+  category: string;
+  input?: OutcomeInput;
+  result: MemberResult | null;
+  error: string | null;
+  spanOrigins?: readonly string[];
+};
 
 function describeInput(member: { sectionName?: string; materialName?: string; quantity: number; spans: { lengthMm: number }[] }): OutcomeInput {
   return { section: member.sectionName ?? null, material: member.materialName ?? null, quantity: member.quantity, spansMm: member.spans.map((s) => s.lengthMm) };
@@ -34,8 +43,9 @@ export function checkMembers(header: Record<string, unknown>, firstMember: numbe
   return parsed.schedule.members.map((member, i) => {
     const index = firstMember + i;
     const input = describeInput(member);
+    const spanOrigins = parsed.schedule.origins[i]?.spans;
     try {
-      return { index, mark: member.mark, category: member.category, input, result: checkMember(member, parsed.schedule.profile, criteria?.catalogue), error: null };
+      return { index, mark: member.mark, category: member.category, input, result: checkMember(member, parsed.schedule.profile, criteria?.catalogue), error: null, spanOrigins };
     } catch (error) {
       if (!(error instanceof EngineInputError)) throw error;
       return { index, mark: member.mark, category: member.category, input, result: null, error: error.issues.map((e) => `${e.path}: ${e.message}`).join("; ") };
@@ -119,8 +129,18 @@ export async function checkChunk(scheduleId: string, chunkIndex: number, runChec
   return wrote ? "checked" : "skipped";
 }
 
-export function checkKeyOf(combinationId: string, spanIndex: number): string {
-  return getCheckKey(combinationId, spanIndex);
+/** The stored and public name of a check: "live, span 1", "total, left overhang" (lib/vocabulary.ts). */
+export function checkKeyOf(combinationId: string, spanIndex: number, spanOrigins?: readonly string[]): string {
+  return nameDeflectionCheck(combinationId, spanIndex, spanOrigins);
+}
+
+/** The public name of what governs the member: the deflection check's name, or "frequency". */
+export function nameGoverningCheck(o: Outcome): string | null {
+  const governing = o.result?.governingCheck ?? null;
+  if (governing === null) return null;
+  if (governing.kind === "frequency") return FREQUENCY_CHECK_NAME;
+  const deflection = o.result?.governing ?? null;
+  return deflection === null ? governing.key : checkKeyOf(deflection.combinationId, deflection.spanIndex, o.spanOrigins);
 }
 
 export const OUTCOME_INPUT_COLUMNS = ["section", "material", "quantity", "spans_mm"] as const;
@@ -145,7 +165,7 @@ export function* outcomeRows(scheduleId: string, outcomes: Outcome[]) {
       o.mark,
       o.category,
       r?.pass ?? false,
-      governing?.key ?? null,
+      nameGoverningCheck(o),
       governing?.utilization ?? null,
       governing?.factorOfSafety ?? null,
       deflection?.limitRatio ?? null,
@@ -165,7 +185,7 @@ export function* checkRows(scheduleId: string, outcomes: Outcome[]) {
       yield [
         scheduleId,
         o.index,
-        checkKeyOf(c.combinationId, c.spanIndex),
+        checkKeyOf(c.combinationId, c.spanIndex, o.spanOrigins),
         c.combinationId,
         c.spanIndex,
         c.spanKind,

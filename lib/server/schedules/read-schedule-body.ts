@@ -1,9 +1,11 @@
-import { CSV_DELIMITER_CHARS, CSV_DELIMITERS, mapIssueToCsvRow, type CsvDelimiter } from "@/lib/schedule-csv";
+import { mapIssueToCsvRow, type CsvDelimiter } from "@/lib/schedule-csv";
 import { CsvEncodingError, parseScheduleCsvBytes } from "@/lib/schedule-csv/parse-schedule-csv-stream";
 import type { InputIssue } from "@/lib/engine/model";
 import { MAX_MEMBERS } from "@/lib/engine/intake";
 import { DomainError, type FieldError } from "@/lib/server/errors";
 import { decodeUtf8 } from "@/lib/server/http/read-body";
+import { getRetiredFormatMessage } from "@/lib/engine/intake";
+import { DELIMITERS, SCHEDULE_FORMAT, isDelimiterName } from "@/lib/vocabulary";
 
 import { MAX_LISTED_ERRORS } from "./issue-pointers";
 import { MemberTextError, scanScheduleJson } from "./scan-schedule-json";
@@ -12,6 +14,9 @@ import { findScheduleSchemaErrors } from "./validate-schedule-schema";
 
 /** Checks a JSON document against the public JSON Schema; 422 listing the problems with their JSON pointers. */
 export function assertMatchesScheduleSchema(doc: unknown): void {
+  // A retired format is named as such, before its fields are read with the current meanings.
+  const retired = getRetiredFormatMessage(doc);
+  if (retired !== null) throw new DomainError("schedule_format_retired", retired, [{ pointer: "/format", message: retired }], undefined, { currentFormat: SCHEDULE_FORMAT });
   const found = findScheduleSchemaErrors(doc);
   if (found) throwInvalidSchedule(found.listed, found.total);
 }
@@ -47,22 +52,22 @@ export function parseJsonBody(text: string): unknown {
 export interface CsvParameters {
   name: string;
   reference?: string;
-  limits: unknown;
+  profile: unknown;
   delimiter: CsvDelimiter;
   units?: { system?: "SI" | "US" };
 }
 
-// Each delimiter by its name and as itself.
-const delimiterNames: Record<string, CsvDelimiter> = { ...Object.fromEntries(CSV_DELIMITERS.map((d) => [d, d])), ...CSV_DELIMITER_CHARS };
 
 /** Reads CSV options from query parameters or form fields, naming the parameter that is wrong. */
 export function readCsvParameters(get: (name: string) => string | null, fallbackName: string): CsvParameters {
   const errors: FieldError[] = [];
-  const delimiterText = get("delimiter") ?? ",";
-  const delimiter = delimiterNames[delimiterText];
-  if (!delimiter || !(CSV_DELIMITERS as readonly string[]).includes(delimiter)) errors.push({ pointer: "/query/delimiter", message: 'must be "comma", "semicolon" or "tab"' });
-  const limits = get("limits");
-  if (!limits) errors.push({ pointer: "/query/limits", message: "name the limit preset or the organization profile for the CSV schedule, e.g. limits=ibc-2021-floor or limits=lp_..." });
+  // The delimiter by its name only, as the CLI's --delimiter takes it (docs/glossary.md).
+  const delimiterText = get("delimiter") ?? "comma";
+  const delimiter = isDelimiterName(delimiterText) ? DELIMITERS[delimiterText] : null;
+  if (delimiter === null) errors.push({ pointer: "/query/delimiter", message: 'must be "comma", "semicolon" or "tab"' });
+  const profile = get("profile");
+  if (get("limits") !== null) errors.push({ pointer: "/query/limits", message: "was renamed: name the limit profile with profile=..., e.g. profile=ibc-2021-floor (CHANGELOG.md)" });
+  else if (!profile) errors.push({ pointer: "/query/profile", message: "name the limit profile for the CSV schedule, e.g. profile=ibc-2021-floor, or an organization profile, profile=lp_..." });
   const system = get("units");
   if (system !== null && system !== "SI" && system !== "US") errors.push({ pointer: "/query/units", message: 'must be "SI" or "US"' });
   const name = (get("name") ?? fallbackName).trim();
@@ -70,8 +75,8 @@ export function readCsvParameters(get: (name: string) => string | null, fallback
   if (errors.length > 0) throw new DomainError("bad_request", "Some CSV parameters are missing or wrong.", errors);
   const reference = get("reference") ?? undefined;
   // an organization profile's id (lp_...) or a preset's
-  const named = limits!.startsWith("lp_") ? { profile: limits } : { preset: limits };
-  return { name, reference, limits: named, delimiter: delimiter!, units: system ? { system: system as "SI" | "US" } : undefined };
+  const named = profile!.startsWith("lp_") ? { id: profile! } : { preset: profile! };
+  return { name, reference, profile: named, delimiter: delimiter!, units: system ? { system: system as "SI" | "US" } : undefined };
 }
 
 /**

@@ -1,6 +1,7 @@
 import type { ResultPageRow } from "@/db/queries/results";
 import type { ScheduleRow } from "@/db/queries/schedules";
 import { SAFETY_CAUTION } from "@/lib/safety";
+import { createOutcomeCounts } from "@/lib/vocabulary";
 
 export function scheduleLinks(id: string) {
   return { self: `/api/v1/schedules/${id}`, results: `/api/v1/schedules/${id}/results` };
@@ -15,9 +16,9 @@ export function representSchedule(s: ScheduleRow) {
     status: s.status,
     failureReason: s.failureReason,
     source: s.source,
-    limits: s.profile,
+    profile: s.profile,
     progress: { members: s.memberCount, checked: s.checkedCount, fraction: s.memberCount === 0 ? 0 : s.checkedCount / s.memberCount },
-    counts: { passed: s.passCount, failed: s.failCount, errors: s.errorCount },
+    counts: createOutcomeCounts(s.passCount, s.failCount, s.errorCount),
     createdAt: s.createdAt.toISOString(),
     completedAt: s.completedAt?.toISOString() ?? null,
     links: scheduleLinks(s.id),
@@ -43,7 +44,6 @@ export function representResult(r: ResultPageRow) {
     quantity: r.quantity,
     spansMm: r.spansMm,
     review: r.review ? { state: r.review.state } : null,
-    pass: r.status === "pass",
     notes: r.notes,
   };
 }

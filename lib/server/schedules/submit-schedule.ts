@@ -151,12 +151,12 @@ export function prepareSchedule(input: Pick<SubmitScheduleInput, "doc" | "toFiel
   const members = readMemberSource(doc.members as unknown[]);
   // PostgreSQL's text and jsonb cannot hold U+0000: refuse it by name instead of failing at the insert.
   const withNul = members.mayHoldNulEscape() ? findMembersWithNul(doc.members as unknown[]) : [];
-  const headerHasNul = JSON.stringify([doc.name, doc.reference, doc.units, doc.limits]).includes("\\u0000");
+  const headerHasNul = JSON.stringify([doc.name, doc.reference, doc.units, doc.profile]).includes("\\u0000");
   if (withNul.length > 0 || headerHasNul) {
-    const issues = withNul.length > 0 ? withNul : [{ path: "", message: "the schedule's name, reference, units or limits contain a NUL character (U+0000), which cannot be stored" }];
+    const issues = withNul.length > 0 ? withNul : [{ path: "", message: "the schedule's name, reference, units or profile contain a NUL character (U+0000), which cannot be stored" }];
     throwInvalidSchedule((input.toFieldErrors ?? issuesToFieldErrors)(issues).slice(0, MAX_LISTED_ERRORS), issues.length);
   }
-  const header = { format: doc.format, name: doc.name, reference: doc.reference, units: doc.units, limits: doc.limits };
+  const header = { format: doc.format, name: doc.name, reference: doc.reference, units: doc.units, profile: doc.profile };
   return { parsed: checked.schedule, marks: checked.marks, header, members, chunkCount: Math.ceil(members.count / CHUNK_SIZE) };
 }
 

@@ -1,4 +1,5 @@
 import { encodeCsvLine } from "@/lib/server/copy-rows";
+import { SCHEDULE_FORMAT } from "@/lib/vocabulary";
 
 import { checkMembers, checkRows, outcomeRows } from "./check-chunk";
 import { assertMatchesScheduleSchema } from "./read-schedule-body";
@@ -21,7 +22,7 @@ function createWarmUpDoc() {
       { case: "live", type: "uniform", w: 1 + (i % 3) },
     ],
   }));
-  return { format: "sagline.schedule/v1", name: "warm-up", units: { system: "SI", length: "m", sectionDimension: "mm", distributedLoad: "kN/m", force: "kN" }, limits: { preset: "ibc-2021-floor" }, members };
+  return { format: SCHEDULE_FORMAT, name: "warm-up", units: { system: "SI", length: "m", sectionDimension: "mm", distributedLoad: "kN/m", force: "kN" }, profile: { preset: "ibc-2021-floor" }, members };
 }
 
 /**

@@ -7,7 +7,7 @@
 import { parseScheduleCsvBytes } from "@/lib/schedule-csv/parse-schedule-csv-stream";
 
 const HEADER = "mark,category,quantity,material,section,b [mm],h [mm],span_1 [m],supports,live_uniform [kN/m]";
-const options = { delimiter: "," as const, name: "Invented growth test", limits: { preset: "ibc-2021-floor" }, units: {} };
+const options = { delimiter: "," as const, name: "Invented growth test", profile: { preset: "ibc-2021-floor" }, units: {} };
 
 function buildCsv(rows: number, span: string): Uint8Array {
   const lines = [HEADER];

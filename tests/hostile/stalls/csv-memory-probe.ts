@@ -34,7 +34,7 @@ const baseline = used();
 let peak = 0;
 const sample = () => (peak = Math.max(peak, used() - baseline));
 const timer = setInterval(sample, 1);
-const result = await parseScheduleCsvBytes(body, { delimiter: ",", name: "Invented probe", limits: { preset: "ibc-2021-floor" }, units: {} });
+const result = await parseScheduleCsvBytes(body, { delimiter: ",", name: "Invented probe", profile: { preset: "ibc-2021-floor" }, units: {} });
 sample();
 clearInterval(timer);
 const firstError = result.ok ? null : result.errors[0];

@@ -67,7 +67,7 @@ if (kind === "json") {
   doc = { ...scanned, members: sampled(scanned.members as unknown[]) };
   assertMatchesScheduleSchema(doc);
 } else {
-  const csv = await readScheduleCsv(body, { name: "Harrowvale Sheds (invented)", limits: { preset: "ibc-2021-floor" }, delimiter: "," });
+  const csv = await readScheduleCsv(body, { name: "Harrowvale Sheds (invented)", profile: { preset: "ibc-2021-floor" }, delimiter: "," });
   doc = { ...csv.doc, members: sampled(csv.doc.members as unknown[]) };
   toFieldErrors = csv.toFieldErrors;
 }

@@ -7,10 +7,10 @@ import { findScheduleSchemaErrors } from "@/lib/server/schedules/validate-schedu
 import { growthRatio, measureCpuMs } from "@/tests/hostile/growth";
 
 const createBadDoc = (count: number) => ({
-  format: "sagline.schedule/v1",
+  format: "sagline.schedule/v2",
   name: "Invented stall test",
   units: { system: "SI" },
-  limits: { preset: "ibc-2021-floor" },
+  profile: { preset: "ibc-2021-floor" },
   members: Array.from({ length: count }, () => ({})),
 });
 

@@ -39,8 +39,8 @@ describe("organization materials", () => {
   });
 
   it("reads an organization material id and profile id from a CSV schedule", async () => {
-    const params = readCsvParameters((name) => ({ limits: "lp_abc123", name: "CSV with own criteria" })[name] ?? null, "x");
-    expect(params.limits).toEqual({ profile: "lp_abc123" });
+    const params = readCsvParameters((name) => ({ profile: "lp_abc123", name: "CSV with own criteria" })[name] ?? null, "x");
+    expect(params.profile).toEqual({ id: "lp_abc123" });
     const csv = ["mark,category,quantity,material,section,span_1 [m],supports", "B-1,floor_beam,1,mat_abc123,KPG 240x120,8,pinned roller"].join("\n");
     const { doc } = await readScheduleCsv(new TextEncoder().encode(csv), { ...params, units: { system: "SI" } });
     expect((doc as { members: { material: string; section: unknown }[] }).members[0]).toMatchObject({ material: "mat_abc123", section: "KPG 240x120" });

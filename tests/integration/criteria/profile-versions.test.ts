@@ -33,7 +33,7 @@ describe("organization limit profiles and their versions", () => {
     const profile = await createLimitProfile(organizationId, { label: "Floors, in-house copy of the IBC 2021 floor rows", source: "IBC 2021 Table 1604.3, copied", basedOnPreset: "ibc-2021-floor" });
     expect(profile.version).toBe(1);
     const { submitSchedule } = await import("@/lib/server/schedules/submit-schedule");
-    const doc = { ...createScheduleDoc([createBeam("B-1", 6, 7.5), createBeam("B-2", 4, 5)]), limits: { profile: profile.id } };
+    const doc = { ...createScheduleDoc([createBeam("B-1", 6, 7.5), createBeam("B-2", 4, 5)]), profile: { id: profile.id } };
     const first = await submitSchedule({ organizationId, source: "api-json", doc });
     await check(first.id);
     const before = await readStored(first.id);
@@ -94,8 +94,8 @@ describe("organization limit profiles and their versions", () => {
     const other = await createTestOrganization("profile owner");
     const foreign = await createLimitProfile(other, { label: "Theirs", source: "test", basedOnPreset: "ibc-2021-floor" });
     const { submitSchedule } = await import("@/lib/server/schedules/submit-schedule");
-    const doc = { ...createScheduleDoc([createBeam("B-1")]), limits: { profile: foreign.id } };
+    const doc = { ...createScheduleDoc([createBeam("B-1")]), profile: { id: foreign.id } };
     const wrong = await submitSchedule({ organizationId, source: "api-json", doc }).catch((e: unknown) => e);
-    expect((wrong as DomainError).errors).toEqual([{ pointer: "/limits/profile", message: `unknown limit profile "${foreign.id}": not one of this organization's profiles (Settings, Limit profiles)` }]);
+    expect((wrong as DomainError).errors).toEqual([{ pointer: "/profile/id", message: `unknown limit profile "${foreign.id}": not one of this organization's profiles (Settings, Limit profiles)` }]);
   });
 });

@@ -111,7 +111,7 @@ describe("checking every row", () => {
       [3, 4, "quantity", "invalid_number"],
       [3, 4, "span_1 [m]", "invalid_number"],
     ]);
-    const server = parseScheduleCsv(writeMappedCsv(parsed, mapped, "semicolon"), { delimiter: ";", name: "x", limits: { preset: "ibc-2021-floor" }, units: { system: "SI" } });
+    const server = parseScheduleCsv(writeMappedCsv(parsed, mapped, "semicolon"), { delimiter: ";", name: "x", profile: { preset: "ibc-2021-floor" }, units: { system: "SI" } });
     // The sent file lacks the ignored column and its quoted line break; lines are mapped back by row.
     expect(server.ok ? [] : relineErrors(server.errors, parsed).map((e) => [e.row, e.line, e.column, e.code])).toEqual(browser);
   });
@@ -136,7 +136,7 @@ describe("checking every row", () => {
   it("writes a CSV the server reads to the same members", () => {
     const parsed = parseOk(fixture("two-beams-semicolon.csv"), "semicolon");
     const mapped = buildMappedHeader(describeHeaders(parsed.header.fields), fixtureChoices);
-    const server = parseScheduleCsv(writeMappedCsv(parsed, mapped, "semicolon"), { delimiter: ";", name: "x", limits: { preset: "ibc-2021-floor" }, units: { system: "SI" } });
+    const server = parseScheduleCsv(writeMappedCsv(parsed, mapped, "semicolon"), { delimiter: ";", name: "x", profile: { preset: "ibc-2021-floor" }, units: { system: "SI" } });
     expect(server.ok).toBe(true);
     if (server.ok) {
       const members = server.doc.members as { mark: string; spans: unknown[] }[];

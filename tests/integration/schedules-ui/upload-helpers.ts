@@ -2,13 +2,13 @@ import { expect } from "vitest";
 
 import { APP_URL, type Agent } from "@/tests/helpers/app";
 
-export type UploadFields = { name?: string; reference?: string; limits?: string; delimiter?: string; units?: string };
+export type UploadFields = { name?: string; reference?: string; profile?: string; delimiter?: string; units?: string };
 
 /** POSTs a CSV to the dashboard's upload route the way the upload page does (multipart, same origin). */
 export function uploadCsv(agent: Agent, csv: string, fields: UploadFields = {}, origin: string | null = APP_URL) {
   let req = agent.post("/api/schedules/upload");
   if (origin !== null) req = req.set("Origin", origin);
-  const values = { name: "UI upload test", limits: "ibc-2021-floor", delimiter: "comma", units: "SI", ...fields };
+  const values = { name: "UI upload test", profile: "ibc-2021-floor", delimiter: "comma", units: "SI", ...fields };
   for (const [key, value] of Object.entries(values)) if (value !== undefined) req = req.field(key, value);
   return req.attach("file", Buffer.from(csv, "utf8"), { filename: "schedule.csv", contentType: "text/csv" });
 }

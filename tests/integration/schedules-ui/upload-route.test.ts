@@ -30,7 +30,7 @@ describe("a good CSV", () => {
     expect(response.status).toBe(202);
     expect(response.body).toMatchObject({ id: expect.stringMatching(/^sch_[0-9a-z]+$/), status: "queued", memberCount: 2 });
     const done = await waitForSchedule(submitter, response.body.id);
-    expect(done).toMatchObject({ status: "completed", progress: { members: 2, checked: 2 }, counts: { passed: 1, failed: 1, errors: 0 } });
+    expect(done).toMatchObject({ status: "completed", progress: { members: 2, checked: 2 }, counts: { pass: 1, fail: 1, error: 0 } });
 
     const [stored] = await getSql()`select name, reference, source, submitted_by_user_id from schedules where id = ${response.body.id}`;
     expect(stored).toMatchObject({ name: "Upload route good CSV", reference: "T-UP-1", source: "upload", submitted_by_user_id: "usr_demosubmitter" });
@@ -57,7 +57,7 @@ describe("a good CSV", () => {
       .set("Origin", process.env.APP_URL!)
       .field("padding", padding)
       .field("name", "Large body")
-      .field("limits", "ibc-2021-floor")
+      .field("profile", "ibc-2021-floor")
       .field("units", "SI")
       .attach("file", Buffer.from(csv), { filename: "big.csv", contentType: "text/csv" });
     expect(response.status).toBe(202);
@@ -95,9 +95,9 @@ describe("a bad CSV", () => {
   });
 
   it("names a missing parameter", async () => {
-    const response = await uploadCsv(submitter, toCsv([BEAM_HEADER, beamRow("M1", 100, 300)]), { limits: undefined });
+    const response = await uploadCsv(submitter, toCsv([BEAM_HEADER, beamRow("M1", 100, 300)]), { profile: undefined });
     expect(response.status).toBe(400);
-    expect(response.body.errors).toEqual([expect.objectContaining({ pointer: "/query/limits" })]);
+    expect(response.body.errors).toEqual([expect.objectContaining({ pointer: "/query/profile" })]);
   });
 
   it("refuses a body declared over 64 MB with 413 problem+json, before reading it", async () => {

@@ -7,7 +7,9 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { getDb } from "@/db/client";
 import { memberOutcomes, outboxEvents, schedules, webhookAttempts, webhookDeliveries, webhookEndpoints } from "@/db/schema";
+import { getEnv } from "@/lib/env";
 import { createId } from "@/lib/server/ids";
+import { createResultDownloadToken } from "@/lib/server/schedules/result-download-link";
 import { dispatchOutbox, reconcileDeliveries } from "@/lib/server/webhooks/dispatch-outbox";
 import { setEndpointEnabled } from "@/lib/server/webhooks/endpoints";
 import { resendDelivery, resendFailedSince } from "@/lib/server/webhooks/resend";
@@ -79,7 +81,7 @@ describe("dispatch", () => {
     });
     expect(received.processed).toEqual([eventId]);
     expect(received.deliveries.every((d) => d.verified)).toBe(true);
-    expect(JSON.parse(received.deliveries[0]!.body)).toMatchObject({ type: "schedule.failed", data: { status: "failed", reason: "The schedule has no members." } });
+    expect(JSON.parse(received.deliveries[0]!.body)).toMatchObject({ type: "schedule.failed", data: { status: "failed", failureReason: "The schedule has no members." } });
     for (const receiver of [unsubscribed.receiver, disabled.receiver, otherOrg.receiver]) expect((await readPartner(receiver)).deliveries).toEqual([]);
   });
 
@@ -98,14 +100,14 @@ describe("dispatch", () => {
     expect((await readPartner(foreign.receiver)).deliveries).toEqual([]);
   });
 
-  it("sends schedule.completed with the pass/fail table, conforming to its JSON Schema", async () => {
+  it("sends schedule.completed with failing rows first, conforming to its JSON Schema", async () => {
     const { receiver } = await partnerEndpoint(org.organizationId, ["schedule.completed"]);
     const scheduleId = await insertSchedule(org.organizationId, { memberCount: 2, checkedCount: 2, passCount: 1, failCount: 1, completedAt: new Date() });
     await getDb()
       .insert(memberOutcomes)
       .values([
         { scheduleId, memberIndex: 1, mark: "R-02", category: "roof_beam", pass: false, governingCheck: "frequency", utilization: 1.2, factorOfSafety: 0.83, detail: {} },
-        { scheduleId, memberIndex: 0, mark: "R-01", category: "roof_beam", pass: true, governingCheck: "live@0", utilization: 0.64, factorOfSafety: 1.56, limitRatio: 240, achievedRatio: 375, detail: {} },
+        { scheduleId, memberIndex: 0, mark: "R-01", category: "roof_beam", pass: true, governingCheck: "live, span 1", utilization: 0.64, factorOfSafety: 1.56, limitRatio: 240, achievedRatio: 375, detail: {} },
       ]);
     const eventId = await insertOutboxEvent(org.organizationId, "schedule.completed", { scheduleId, status: "completed" });
     const state = await waitFor("delivery", async () => {
@@ -116,11 +118,11 @@ describe("dispatch", () => {
     const validate = compileApiSchema("events/schedule.completed", { strict: true, allowUnionTypes: true });
     expect(validate(body), JSON.stringify(validate.errors)).toBe(true);
     expect(body.data.rows).toEqual([
-      { mark: "R-01", governingCheck: "live@0", utilization: 0.64, factorOfSafety: 1.56, limitRatio: 240, achievedRatio: 375, pass: true },
       // a member that fails on frequency alone: the frequency governs and has no deflection figures
-      { mark: "R-02", governingCheck: "frequency", utilization: 1.2, factorOfSafety: 0.83, limitRatio: null, achievedRatio: null, pass: false },
+      { mark: "R-02", status: "fail", governingCheck: "frequency", utilization: 1.2, factorOfSafety: 0.83, limitRatio: null, achievedRatio: null },
+      { mark: "R-01", status: "pass", governingCheck: "live, span 1", utilization: 0.64, factorOfSafety: 1.56, limitRatio: 240, achievedRatio: 375 },
     ]);
-    expect(body.data).toMatchObject({ scheduleId, counts: { members: 2, passed: 1, failed: 1 }, truncated: false, resultsUrl: expect.stringContaining(`/api/v1/schedules/${scheduleId}/results`) });
+    expect(body.data).toMatchObject({ scheduleId, counts: { members: 2, pass: 1, fail: 1 }, truncated: false, resultsUrl: expect.stringContaining(`/api/v1/schedules/${scheduleId}/results`) });
   });
 });
 
@@ -141,11 +143,52 @@ describe("a schedule submitted through the API", () => {
     const delivery = state.deliveries.find((d) => d.processed)!;
     expect(delivery.verified).toBe(true);
     const body = JSON.parse(delivery.body);
-    expect(body).toMatchObject({ type: "schedule.completed", data: { scheduleId, name: "Webhook drill, Fenwick Quay", counts: { members: 2, passed: 1, failed: 1 }, truncated: false } });
-    expect(body.data.rows.map((r: { mark: string; pass: boolean }) => [r.mark, r.pass])).toEqual([
-      ["W-01", true],
-      ["W-02", false],
+    expect(body).toMatchObject({ type: "schedule.completed", data: { scheduleId, name: "Webhook drill, Fenwick Quay", counts: { members: 2, pass: 1, fail: 1, error: 0 }, truncated: false } });
+    // the failing member first, then the passing one
+    expect(body.data.rows.map((r: { mark: string; status: string; governingCheck: string }) => [r.mark, r.status, r.governingCheck])).toEqual([
+      ["W-02", "fail", "live, span 1"],
+      ["W-01", "pass", "live, span 1"],
     ]);
+
+    // The partner followed both signed links without an API key.
+    const downloads = await waitFor("the partner's downloads", async () => {
+      const s = await readPartner(receiver);
+      const d = s.deliveries.find((x) => x.processed)?.downloads ?? [];
+      return d.length === 2 ? d : null;
+    });
+    expect(downloads.map(({ format, status, lines }) => ({ format, status, lines }))).toEqual([
+      { format: "csv", status: 200, lines: 3 },
+      { format: "ndjson", status: 200, lines: 2 },
+    ]);
+    expect(downloads[0]!.firstLine).toBe("mark,category,status,governing_check,utilization,factor_of_safety,limit_ratio,achieved_ratio,notes");
+    expect(downloads[1]!.contentType).toMatch(/^application\/x-ndjson/);
+    expect(JSON.parse(downloads[1]!.firstLine)).toMatchObject({ mark: "W-01", status: "pass" });
+
+    // The same table the API serves with a key.
+    const csvLink = new URL(body.data.download.csv as string);
+    const viaLink = await request(APP_URL).get(csvLink.pathname);
+    const viaKey = await request(APP_URL).get(`/api/v1/schedules/${scheduleId}/results?format=csv`).set("authorization", `Bearer ${key}`);
+    expect(viaLink.status).toBe(200);
+    expect(viaLink.text).toBe(viaKey.text);
+
+    // Tampered, foreign and expired links are refused with a problem, never a 500.
+    const token = csvLink.pathname.split("/").pop()!;
+    const [payload, signature] = token.split(".") as [string, string];
+    const asNdjson = Buffer.from(JSON.stringify({ ...JSON.parse(Buffer.from(payload, "base64url").toString()), f: "ndjson" })).toString("base64url");
+    for (const bad of [`${asNdjson}.${signature}`, `${payload}.${signature.slice(0, -2)}`, "not-a-token", createResultDownloadToken({ organizationId: other.organizationId, scheduleId, format: "csv", expiresAt: 4_000_000_000 }, `${getEnv().NEXTAUTH_SECRET}-other`)]) {
+      const refused = await request(APP_URL).get(`/api/v1/result-downloads/${bad}`);
+      expect(refused.status, bad).toBe(403);
+      expect(refused.headers["content-type"]).toMatch(/^application\/problem\+json/);
+      expect(refused.body).toMatchObject({ type: "https://sagline.dev/problems/download-link-invalid", status: 403 });
+      expect(JSON.stringify(refused.body)).not.toContain(bad.slice(0, 20));
+    }
+    const expired = createResultDownloadToken({ organizationId: org.organizationId, scheduleId, format: "csv", expiresAt: Math.floor(Date.now() / 1000) - 1 }, getEnv().NEXTAUTH_SECRET);
+    const gone = await request(APP_URL).get(`/api/v1/result-downloads/${expired}`);
+    expect(gone.status).toBe(410);
+    expect(gone.body).toMatchObject({ type: "https://sagline.dev/problems/download-link-expired", status: 410 });
+    // A genuine link for a schedule of the wrong organization finds nothing.
+    const crossed = createResultDownloadToken({ organizationId: other.organizationId, scheduleId, format: "csv", expiresAt: 4_000_000_000 }, getEnv().NEXTAUTH_SECRET);
+    expect((await request(APP_URL).get(`/api/v1/result-downloads/${crossed}`)).status).toBe(404);
   });
 });
 

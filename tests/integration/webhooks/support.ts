@@ -110,6 +110,8 @@ export interface PartnerDelivery {
   verifyError: string | null;
   answeredStatus: number | null;
   processed: boolean;
+  /** What the fake partner fetched from the event's signed download links (schedule.completed only). */
+  downloads: { format: string; status: number | null; contentType: string | null; lines: number; firstLine: string; error: string | null }[];
 }
 
 export async function configurePartner(receiver: string, config: { secrets?: string[]; mode?: string; retryAfterSeconds?: number; slowMs?: number }) {

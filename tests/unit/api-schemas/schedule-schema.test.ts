@@ -30,10 +30,10 @@ const goodDocuments: [string, unknown][] = [
     supports: ["pinned", { kind: "spring", stiffness: 3 }, { kind: "roller" }],
     shearDeformation: true,
   })],
-  ["an ACI preset with a sustained live fraction", createDoc({ material: "concrete-fc30", creep: { method: "aci", durationMonths: 60, compressionRatio: 0 } }, { limits: { preset: "aci-318-19-floor", sustainedLiveFraction: 0.25 } })],
+  ["an ACI preset with a sustained live fraction", createDoc({ material: "concrete-fc30", creep: { method: "aci", durationMonths: 60, compressionRatio: 0 } }, { profile: { preset: "aci-318-19-floor", sustainedLiveFraction: 0.25 } })],
   ["wood with its moisture condition", createDoc({ material: "timber-c24", moistureCondition: "seasoned_dry" })],
   ["a custom combination with its own cantilever ratio and the IBC creep component", createDoc({}, {
-    limits: {
+    profile: {
       custom: {
         id: "spec", label: "Spec", source: "project specification", cantileverSpanMultiplier: 2,
         combinations: [{ id: "total", label: "total", factors: { live: 1 }, sustainedFactors: { dead: 1 }, creep: "ibc_creep_component", limitRatio: 240, cantileverLimitRatio: 180 }],
@@ -41,7 +41,7 @@ const goodDocuments: [string, unknown][] = [
     },
   })],
   ["a custom profile with cap and frequency", createDoc({}, {
-    limits: {
+    profile: {
       custom: {
         id: "spec", label: "Spec", source: "project specification", cantileverSpanMultiplier: 2,
         combinations: [{ id: "live", label: "live", factors: { live: 1 }, limitRatio: 500, cap: { value: 0.5, unit: "in" } }],
@@ -56,14 +56,14 @@ const goodDocuments: [string, unknown][] = [
     spans: [6, { length: 5, reinforcement: { tensionSteel: { value: 2.5, unit: "in^2" }, effectiveDepth: 540, steelE: { value: 200, unit: "GPa" } } }],
     supports: ["pinned", "pinned", "roller"],
     creep: { method: "aci", durationMonths: 12 },
-  }, { limits: { preset: "aci-318-19-floor" } })],
-  ["a preset with overrides", createDoc({}, { limits: { preset: "ibc-2021-floor", overrides: { combinations: { live: { limitRatio: 480 } }, frequency: { min: 4, massFactors: { dead: 1 } } } } })],
+  }, { profile: { preset: "aci-318-19-floor" } })],
+  ["a preset with overrides", createDoc({}, { profile: { preset: "ibc-2021-floor", overrides: { combinations: { live: { limitRatio: 480 } }, frequency: { min: 4, massFactors: { dead: 1 } } } } })],
 ];
 
 const badDocuments: [string, unknown][] = [
   ["no format", (() => { const d = createDoc(); delete d.format; return d; })()],
   ["another format", createDoc({}, { format: "other/v1" })],
-  ["a sustained live fraction given as a percentage", createDoc({ material: "concrete-fc30", creep: { method: "aci", durationMonths: 60, compressionRatio: 0 } }, { limits: { preset: "aci-318-19-floor", sustainedLiveFraction: 25 } })],
+  ["a sustained live fraction given as a percentage", createDoc({ material: "concrete-fc30", creep: { method: "aci", durationMonths: 60, compressionRatio: 0 } }, { profile: { preset: "aci-318-19-floor", sustainedLiveFraction: 25 } })],
   ["an unknown moisture condition", createDoc({ material: "timber-c24", moistureCondition: "damp" })],
   ["an unknown root field", createDoc({}, { colour: "red" })],
   ["an unknown member field", withMember({ colour: "red" })],
@@ -77,15 +77,15 @@ const badDocuments: [string, unknown][] = [
   ["a uniform load with pressure but no width", withMember({ loads: [{ case: "live", type: "uniform", pressure: 1 }] })],
   ["a capitalised case name", withMember({ loads: [{ case: "Live", type: "uniform", w: 1 }] })],
   ["an unknown shape", withMember({ section: { shape: "hexagon", s: 5 } })],
-  ["a hollow rectangle with both wall and inner size", withMember({ section: { shape: "hollow_rectangle", B: 100, H: 200, t: 5, b: 90, h: 190 } })],
+  ["a hollow rectangle in the retired v1 form (outer B and H)", withMember({ section: { shape: "hollow_rectangle", B: 100, H: 200, t: 5 } })],
   ["service class 4", withMember({ material: "timber-c24", creep: { method: "en1995", serviceClass: 4 } })],
-  ["an unknown preset", createDoc({}, { limits: { preset: "ibc-1997" } })],
-  ["both custom and preset", createDoc({}, { limits: { preset: "ibc-2021-floor", custom: {} } })],
+  ["an unknown preset", createDoc({}, { profile: { preset: "ibc-1997" } })],
+  ["both custom and preset", createDoc({}, { profile: { preset: "ibc-2021-floor", custom: {} } })],
   ["no members", createDoc({}, { members: [] })],
   ["a custom material without E", withMember({ material: { name: "x", G: 1 } })],
   ["a blank mark", withMember({ mark: "   " })],
   ["a negative load position", withMember({ loads: [{ case: "live", type: "point", at: -1, P: 1 }] })],
-  ["a negative limit ratio override", createDoc({}, { limits: { preset: "ibc-2021-floor", overrides: { combinations: { live: { limitRatio: -1 } } } } })],
+  ["a negative limit ratio override", createDoc({}, { profile: { preset: "ibc-2021-floor", overrides: { combinations: { live: { limitRatio: -1 } } } } })],
   ["reinforcement without its effective depth", withMember({ material: "concrete-fc30", reinforcement: { tensionSteel: 1000 } })],
   ["compression steel without its depth", withMember({ material: "concrete-fc30", reinforcement: { tensionSteel: 1000, effectiveDepth: 150, compressionSteel: 200 } })],
   ["a string where a number belongs", withMember({ spans: ["5 m"] })],
@@ -99,7 +99,7 @@ describe("schedule.schema.json", () => {
   });
 
   it("lists exactly the engine's presets", () => {
-    expect(schema.$defs.limits.oneOf[0].properties.preset.enum).toEqual(listPresetIds());
+    expect(schema.$defs.profile.oneOf[0].properties.preset.enum).toEqual(listPresetIds());
   });
 
   it.each(goodDocuments)("accepts %s, and so does intake", (_name, doc) => {

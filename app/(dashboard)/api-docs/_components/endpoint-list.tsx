@@ -1,4 +1,7 @@
+import type { SchemaField } from "../read-schemas";
+
 export type EndpointParameter = { name: string; in: string; description: string; required: boolean };
+export type EndpointResponse = { status: string; description: string; contentTypes: string[]; fields: SchemaField[]; example: string | null };
 export type Endpoint = {
   method: string;
   path: string;
@@ -7,13 +10,46 @@ export type Endpoint = {
   scope: string;
   parameters: EndpointParameter[];
   requestTypes: string[];
+  requestFields: SchemaField[];
+  requestExample: string | null;
+  responses: EndpointResponse[];
   statuses: string[];
+  /** A runnable curl line ($KEY and ids to fill in). */
+  curl: string;
 };
 export type EndpointListProps = { tag: string; endpoints: Endpoint[] };
 
 /** Text with `code` spans, as the OpenAPI descriptions write them. */
 function renderInlineCode(text: string) {
   return text.split("`").map((part, i) => (i % 2 === 1 ? <code key={i}>{part}</code> : part));
+}
+
+function SchemaFields({ fields, label }: { fields: SchemaField[]; label: string }) {
+  if (fields.length === 0) return null;
+  return (
+    <table className="mt-1 w-full border-collapse text-left text-xs" aria-label={label}>
+      <tbody>
+        {fields.map((f) => (
+          <tr key={f.path} className="border-t border-rule align-top">
+            <td className="py-0.5 pr-2 font-mono break-all">
+              {f.path}
+              {f.required ? <span className="text-ink-soft"> (required)</span> : null}
+            </td>
+            <td className="py-0.5 pr-2 font-mono text-ink-soft break-all">{f.type}</td>
+            <td className="py-0.5 text-ink-soft">{renderInlineCode(f.description)}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+function CodeBlock({ text, label }: { text: string; label: string }) {
+  return (
+    <pre aria-label={label} className="mt-1 max-h-80 overflow-auto rounded border border-rule bg-paper p-2 text-xs">
+      {text}
+    </pre>
+  );
 }
 
 const methodTones: Record<string, string> = {
@@ -62,6 +98,30 @@ export function EndpointList({ tag, endpoints }: EndpointListProps) {
             ) : null}
             Answers: {e.statuses.join(", ")}.
           </p>
+          <div className="mt-2">
+            <p className="text-xs font-medium">Example (curl)</p>
+            <CodeBlock text={e.curl} label={`curl example for ${e.method} ${e.path}`} />
+          </div>
+          {e.requestFields.length || e.requestExample ? (
+            <details className="mt-2 text-xs">
+              <summary className="cursor-pointer font-medium">Request body schema and example</summary>
+              <SchemaFields fields={e.requestFields} label={`Request body of ${e.method} ${e.path}`} />
+              {e.requestExample ? <CodeBlock text={e.requestExample} label={`Request example for ${e.method} ${e.path}`} /> : null}
+            </details>
+          ) : null}
+          <details className="mt-2 text-xs">
+            <summary className="cursor-pointer font-medium">Responses</summary>
+            {e.responses.map((r) => (
+              <div key={r.status} className="mt-2">
+                <p>
+                  <span className="font-mono font-semibold">{r.status}</span> {renderInlineCode(r.description)}
+                  {r.contentTypes.length ? <span className="text-ink-soft"> ({r.contentTypes.join(", ")})</span> : null}
+                </p>
+                {r.status.startsWith("2") ? <SchemaFields fields={r.fields} label={`Response ${r.status} of ${e.method} ${e.path}`} /> : null}
+                {r.example ? <CodeBlock text={r.example} label={`Response ${r.status} example for ${e.method} ${e.path}`} /> : null}
+              </div>
+            ))}
+          </details>
         </article>
       ))}
     </section>

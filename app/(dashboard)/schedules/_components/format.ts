@@ -1,5 +1,6 @@
 /** Display formatting for the schedules screens: never prints NaN or Infinity. */
 import { getDeflectionDirection } from "@/lib/engine/deflection-direction";
+import { formatGoverningCheck } from "@/lib/vocabulary";
 
 export function formatNumber(value: number | null | undefined, digits = 2): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return "—";
@@ -38,19 +39,14 @@ export function splitPowerOfTen(value: number | null | undefined): { mantissa: s
   return { mantissa: (value / 10 ** exponent).toFixed(3), exponent };
 }
 
-/** Check keys are `combination@spanIndex` (lib/server/schedules/check-chunk.ts); spans count from 1 for people. */
 /** "l/523" for an engineer's span ratio (span / deflection, or a limit's N); "—" when there is none. */
 export function formatSpanRatio(ratio: number | null | undefined): string {
   return ratio === null || ratio === undefined || !Number.isFinite(ratio) ? "—" : `l/${Math.round(ratio)}`;
 }
 
+/** Stored check keys are already the public check names ("live, span 1", "frequency"; lib/vocabulary.ts). */
 export function formatCheckKey(key: string | null): string {
-  if (!key) return "—";
-  if (key === "frequency") return "first frequency";
-  const at = key.lastIndexOf("@");
-  if (at < 0) return key;
-  const span = Number(key.slice(at + 1));
-  return Number.isInteger(span) ? `${key.slice(0, at)}, span ${span + 1}` : key;
+  return formatGoverningCheck(key);
 }
 
 export function formatPercent(fraction: number): string {

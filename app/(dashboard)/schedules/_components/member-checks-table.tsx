@@ -1,17 +1,19 @@
 import type { CheckLimitUsed } from "@/lib/server/schedules/describe-member-model";
 import type { MemberCheckRow } from "@/lib/server/schedules/get-member-report";
 import { getDeflectionDirection } from "@/lib/engine/deflection-direction";
+import { TERMS, getSpanLabelOfCheck } from "@/lib/vocabulary";
 
 import { formatQuantity, formatSignificant, prettyUnit, toDisplay, type DisplayUnits } from "./display-units";
 import { formatRatio, formatSpanRatio } from "./format";
 import { OutcomeLabel } from "./outcome-label";
 
 /** Spans loaded per variable case, 1-based like the Span column: "live 1, 3; snow none". */
-function describeLoadedSpans(loadedSpans: Record<string, number[]> | undefined): string {
+/** loadedSpans holds the engine's span indices; each is named as its checks name it ("span 1", "left overhang"). */
+function describeLoadedSpans(loadedSpans: Record<string, number[]> | undefined, spanLabels: ReadonlyMap<number, string>): string {
   // no pattern applied (one clear span, patterns off, or no variable load): every load as given
   if (loadedSpans === undefined) return "all";
   return Object.entries(loadedSpans)
-    .map(([loadCase, spans]) => `${loadCase} ${spans.length === 0 ? "none" : spans.map((span) => span + 1).join(", ")}`)
+    .map(([loadCase, spans]) => `${loadCase} ${spans.length === 0 ? "none" : spans.map((span) => spanLabels.get(span) ?? `span ${span + 1}`).join(", ")}`)
     .join("; ");
 }
 
@@ -36,6 +38,7 @@ const th = "px-2 py-2 align-bottom font-medium";
 
 export function MemberChecksTable({ checks, governingKey, units, labels = {}, limits = [] }: MemberChecksTableProps) {
   if (checks.length === 0) return <p className="text-ink-soft">No checks were recorded for this member.</p>;
+  const spanLabels = new Map(checks.map((c) => [c.spanIndex, getSpanLabelOfCheck(c.checkKey)]));
   const limitOf = (c: MemberCheckRow) => limits.find((l) => l.combinationId === c.combinationId && l.spanIndex === c.spanIndex);
   return (
     <div className="overflow-x-auto rounded border border-rule bg-sheet">
@@ -54,7 +57,7 @@ export function MemberChecksTable({ checks, governingKey, units, labels = {}, li
             </th>
             <th scope="col" className={`${th} text-right`}>Utilization</th>
             <th scope="col" className={`${th} text-right`}>Factor of safety</th>
-            <th scope="col" className={th}>Result</th>
+            <th scope="col" className={th}>{TERMS.outcome.label}</th>
           </tr>
         </thead>
         <tbody>
@@ -68,10 +71,10 @@ export function MemberChecksTable({ checks, governingKey, units, labels = {}, li
                   {c.checkKey === governingKey ? <span className="block text-xs font-semibold">governing</span> : null}
                 </th>
                 <td className="px-2 py-1.5">
-                  {c.spanIndex + 1}
+                  {getSpanLabelOfCheck(c.checkKey)}
                   {c.spanKind === "cantilever" ? <span className="block text-xs text-ink-soft">cantilever</span> : null}
                 </td>
-                <td className="px-2 py-1.5 text-ink-soft [overflow-wrap:anywhere]">{describeLoadedSpans(c.loadedSpans)}</td>
+                <td className="px-2 py-1.5 text-ink-soft [overflow-wrap:anywhere]">{describeLoadedSpans(c.loadedSpans, spanLabels)}</td>
                 <td className="px-2 py-1.5 text-right">
                   <span className="whitespace-nowrap">{formatDeflection(c.deflectionMm, units)}</span>
                   {c.deflectionBasis !== undefined ? (

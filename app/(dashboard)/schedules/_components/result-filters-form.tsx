@@ -1,6 +1,7 @@
 import type { ResultSort } from "@/db/queries/results";
 import { MEMBER_CATEGORIES } from "@/lib/engine/intake";
 import type { ResultQueryFilters } from "@/db/queries/results";
+import { OUTCOME_LABELS, TERMS } from "@/lib/vocabulary";
 
 import { categoryLabels } from "./format";
 import { OPTIONAL_COLUMNS, optionalColumnLabels, type OptionalColumn } from "./result-columns";
@@ -21,12 +22,12 @@ export function ResultFiltersForm({ action, sort, filters, columns }: ResultFilt
           <input type="search" name="mark" defaultValue={filters.markPrefix ?? ""} maxLength={64} className={`${fieldClass} w-36`} />
         </label>
         <label className="text-xs">
-          <span className={labelClass}>Outcome</span>
+          <span className={labelClass}>{TERMS.outcome.label}</span>
           <select name="status" defaultValue={filters.status ?? ""} className={fieldClass}>
             <option value="">All</option>
-            <option value="fail">Failures only</option>
-            <option value="error">Errors only</option>
-            <option value="pass">Passes only</option>
+            <option value="fail">{OUTCOME_LABELS.fail} only</option>
+            <option value="error">{OUTCOME_LABELS.error} only</option>
+            <option value="pass">{OUTCOME_LABELS.pass} only</option>
           </select>
         </label>
         <label className="text-xs">

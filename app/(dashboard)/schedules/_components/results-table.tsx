@@ -2,6 +2,7 @@ import Link from "next/link";
 
 import type { ResultPageRow } from "@/db/queries/results";
 import { getDeflectionDirection } from "@/lib/engine/deflection-direction";
+import { TERMS } from "@/lib/vocabulary";
 
 import { categoryLabels, formatCheckKey, formatDeflection, formatRatio, formatSpanRatio, formatSpans } from "./format";
 import { OutcomeLabel } from "./outcome-label";
@@ -93,7 +94,7 @@ export function ResultsTable({ scheduleId, rows, columns, unitSystem }: ResultsT
             ))}
             <th scope="col" className={`${head} text-right`}>Utilization</th>
             <th scope="col" className={`${head} text-right`}>Factor of safety</th>
-            <th scope="col" className={head}>Result</th>
+            <th scope="col" className={head}>{TERMS.outcome.label}</th>
           </tr>
         </thead>
         <tbody>

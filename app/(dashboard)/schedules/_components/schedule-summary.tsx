@@ -1,6 +1,7 @@
 import type { ReactNode } from "react";
 
 import type { ScheduleRow } from "@/db/queries/schedules";
+import { TERMS, formatOutcomeCount } from "@/lib/vocabulary";
 
 import { formatDateTime } from "../../_components/format-date-time";
 import { isScheduleFinished } from "./format";
@@ -38,11 +39,11 @@ export function ScheduleSummary({ schedule: s }: ScheduleSummaryProps) {
           )}
         </Item>
         <Item term="Results">
-          <span className="text-pass">{s.passCount.toLocaleString("en-GB")} passed</span>
+          <span className="text-pass">{formatOutcomeCount(s.passCount, "pass")}</span>
           {" · "}
-          <span className={s.failCount > 0 ? "font-semibold text-fail" : ""}>{s.failCount.toLocaleString("en-GB")} failed</span>
+          <span className={s.failCount > 0 ? "font-semibold text-fail" : ""}>{formatOutcomeCount(s.failCount, "fail")}</span>
           {" · "}
-          <span className={s.errorCount > 0 ? "font-semibold text-caution" : ""}>{s.errorCount.toLocaleString("en-GB")} errors</span>
+          <span className={s.errorCount > 0 ? "font-semibold text-caution" : ""}>{formatOutcomeCount(s.errorCount, "error")}</span>
         </Item>
         <Item term="Submitted">
           {formatDateTime(s.createdAt)}
@@ -51,12 +52,12 @@ export function ScheduleSummary({ schedule: s }: ScheduleSummaryProps) {
             {s.completedAt ? ` · finished ${formatDateTime(s.completedAt)}` : ""}
           </span>
         </Item>
-        <Item term="Limit profile" className="sm:col-span-2 lg:col-span-4">
+        <Item term={TERMS.profile.label} className="sm:col-span-2 lg:col-span-4">
           <span className="font-medium">{s.profile.label}</span> <span className="text-ink-soft">({s.profile.id})</span>
           <span className="block text-xs text-ink-soft">Source: {s.profile.source}</span>
         </Item>
         {s.failureReason ? (
-          <Item term="Why the check stopped" className="sm:col-span-2 lg:col-span-4">
+          <Item term={TERMS.failureReason.label} className="sm:col-span-2 lg:col-span-4">
             <span className="text-fail">{s.failureReason}</span>
           </Item>
         ) : null}

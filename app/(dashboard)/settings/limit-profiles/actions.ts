@@ -45,7 +45,7 @@ export async function createLimitProfile(_prev: ActionResult | null, formData: F
     const preset = input.basedOnPreset === "" || definition !== undefined ? undefined : input.basedOnPreset;
     const profile = await create(getActionOrganizationId(context), { label: input.label, source: input.source, basedOnPreset: preset, definition }, context!.user.id).catch(toFormErrors);
     revalidatePath("/settings/limit-profiles");
-    return { ok: true, message: `Profile ${profile.id} saved as version 1. Name it in a schedule as limits: {"profile": "${profile.id}"}.` };
+    return { ok: true, message: `Profile ${profile.id} saved as version 1. Name it in a schedule as profile: {"id": "${profile.id}"}.` };
   });
 }
 

@@ -19,7 +19,7 @@ export default async function LimitProfilesPage() {
   const canEdit = can(context, "criteria:manage");
   return (
     <>
-      <PageHeader title="Limit profiles" lead='Deflection limits the firm checks against. A schedule names one as limits: {"profile": "lp_..."} (CSV: limits=lp_...) and records the version it was checked against.' />
+      <PageHeader title="Limit profiles" lead='Deflection limits the firm checks against. A schedule names one as profile: {"id": "lp_..."} (CSV: profile=lp_...) and records the version it was checked against.' />
       <CriteriaNav current="/settings/limit-profiles" canEdit={canEdit} />
       {profiles.length === 0 ? (
         <p className="mb-6 rounded border border-dashed border-rule bg-sheet p-4 text-sm text-ink-soft">No profiles yet. Schedules can still use the presets by name.</p>

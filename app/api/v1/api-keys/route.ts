@@ -25,7 +25,10 @@ export const GET = withApiKey("keys:manage", async (request, key) => {
   const nextCursor = next ? encodeCursor({ c: next.createdAt.toISOString(), i: next.id }) : null;
   const headers: Record<string, string> = { "cache-control": "no-store" };
   if (nextCursor) headers.link = buildNextLink(url, nextCursor);
-  return Response.json({ data: items, nextCursor }, { headers });
+  // links.next, as every list answers (docs/glossary.md): the same address as the Link header.
+  const nextUrl = new URL(url);
+  if (nextCursor) nextUrl.searchParams.set("cursor", nextCursor);
+  return Response.json({ data: items, links: { next: nextCursor ? `${nextUrl.pathname}?${nextUrl.searchParams.toString()}` : null } }, { headers });
 });
 
 // POST /api/v1/api-keys: creates a key (only with scopes the calling key holds); the secret appears once.

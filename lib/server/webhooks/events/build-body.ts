@@ -4,6 +4,8 @@ import { getDb } from "@/db/client";
 import { readStoredNotes } from "@/db/queries/schedules";
 import { memberOutcomes, schedules } from "@/db/schema";
 import { getEnv } from "@/lib/env";
+import { createResultDownloadLinks } from "@/lib/server/schedules/result-download-link";
+import { getOutcome } from "@/lib/vocabulary";
 
 import { allEventTypes, createEnvelope, type EventType } from "./event-types";
 import { buildScheduleCompletedEvent, RESULT_ROWS_CAP } from "./schedule-completed";
@@ -62,10 +64,17 @@ export async function buildEventBody(event: OutboxEventRow): Promise<string> {
         })
         .from(memberOutcomes)
         .where(eq(memberOutcomes.scheduleId, schedule.id))
-        .orderBy(asc(memberOutcomes.memberIndex))
+        // Failing and errored members (pass = false) before passing ones, each in member order.
+        .orderBy(asc(memberOutcomes.pass), asc(memberOutcomes.memberIndex))
         .limit(RESULT_ROWS_CAP + 1);
-      const withNotes = rows.map(({ detail, ...row }) => ({ ...row, notes: readStoredNotes((detail as { notes?: unknown } | null)?.notes) }));
-      return JSON.stringify(buildScheduleCompletedEvent({ schedule, rows: withNotes, appUrl: getEnv().APP_URL, occurredAt }));
+      const withNotes = rows.map(({ detail, pass, ...row }) => {
+        const stored = detail as { notes?: unknown; error?: unknown } | null;
+        const error = typeof stored?.error === "string" && stored.error !== "" ? stored.error : null;
+        return { ...row, status: getOutcome({ pass, error }), ...(error === null ? {} : { failureReason: error }), notes: readStoredNotes(stored?.notes) };
+      });
+      const env = getEnv();
+      const download = createResultDownloadLinks({ organizationId: schedule.organizationId, scheduleId: schedule.id, occurredAt, appUrl: env.APP_URL, secret: env.NEXTAUTH_SECRET });
+      return JSON.stringify(buildScheduleCompletedEvent({ schedule, rows: withNotes, appUrl: env.APP_URL, occurredAt, download }));
     }
     case "schedule.failed": {
       const scheduleId = readScheduleId(event.payload) ?? "";

@@ -8,11 +8,12 @@ export interface ScheduleFailedData {
   scheduleId: string;
   name: string | null;
   status: "failed";
-  reason: string;
+  /** Why the check stopped (docs/glossary.md, "Failure reason"). */
+  failureReason: string;
 }
 
 export function buildScheduleFailedEvent(input: { scheduleId: string; name: string | null; reason: string; occurredAt: Date }): WebhookEnvelope<ScheduleFailedData> {
-  return createEnvelope("schedule.failed", input.occurredAt, { scheduleId: input.scheduleId, name: input.name, status: "failed", reason: input.reason });
+  return createEnvelope("schedule.failed", input.occurredAt, { scheduleId: input.scheduleId, name: input.name, status: "failed", failureReason: input.reason });
 }
 
 /** What the review flow writes to the outbox for member.dispositioned (lib/server/review). */

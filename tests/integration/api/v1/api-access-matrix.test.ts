@@ -102,6 +102,18 @@ describe("every listed route against no key, bad keys and the wrong scope", () =
     const [method, path] = key.split(" ") as [string, string];
     const url = concrete(path);
 
+    if (scope === "signed-link") {
+      it(`${key} refuses a token it did not sign, without a key and with one`, async () => {
+        const want = { type: PROBLEMS + "download-link-invalid", title: "Download link refused", status: 403 };
+        for (const authorization of [undefined, `Bearer ${composeApiKey("UnknownKeyUnknownKeyUnknownKey00")}`]) {
+          const response = await send(method, url, authorization);
+          expect(response.status).toBe(403);
+          expect(response.body).toMatchObject(want);
+        }
+      });
+      continue;
+    }
+
     if (scope === "public") {
       it(`${key} answers without a key`, async () => {
         const response = await send(method, url);

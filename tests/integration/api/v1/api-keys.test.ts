@@ -126,7 +126,7 @@ describe("GET /api/v1/api-keys", () => {
       expect(validateList(response.body), JSON.stringify(validateList.errors)).toBe(true);
       seen.push(...response.body.data.map((k: { name: string }) => k.name));
       const link = response.headers.link as string | undefined;
-      if (response.body.nextCursor) {
+      if (response.body.links.next) {
         expect(link).toMatch(new RegExp(`^<${APP_URL}/api/v1/api-keys\\?limit=2&cursor=[A-Za-z0-9_-]+>; rel="next"$`));
         url = new URL(link!.slice(1, link!.indexOf(">"))).pathname + new URL(link!.slice(1, link!.indexOf(">"))).search;
       } else {

@@ -102,7 +102,7 @@ describe("a schedule through the API with the organization's catalogue and profi
 
     // 8 m, live 20 kN/m: I >= 2.29e8 mm^4 for live l/360 (AISC Manual Table 3-23 case 1; E 210,000 MPa,
     // EN 1993-1-1 3.2.6), so KPG 450x190 (3.21e8) is the lightest that passes and KPG 400x180 (2.19e8) fails.
-    const doc = { ...createScheduleDoc([createCatalogueBeam("G-1", "KPG 240x120", 8, 20)]), limits: { profile: created.body.id } };
+    const doc = { ...createScheduleDoc([createCatalogueBeam("G-1", "KPG 240x120", 8, 20)]), profile: { id: created.body.id } };
     const submitted = await api().post("/api/v1/schedules").set("authorization", `Bearer ${manager}`).send(doc);
     expect(submitted.status).toBe(202);
     expect((await waitForSchedule(manager, submitted.body.id)).status).toBe("completed");

@@ -21,7 +21,7 @@ describe("a 100,000-row CSV with one bad row", () => {
     }
     const [before] = await getDb().execute(sql`select (select count(*) from schedules)::int as s, (select count(*) from schedule_chunks)::int as m`);
     const response = await request(APP_URL)
-      .post("/api/v1/schedules?limits=ibc-2021-floor&name=Large")
+      .post("/api/v1/schedules?profile=ibc-2021-floor&name=Large")
       .set("authorization", `Bearer ${key}`)
       .set("content-type", "text/csv")
       .send(lines.join("\r\n") + "\r\n");

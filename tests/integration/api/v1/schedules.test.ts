@@ -29,7 +29,7 @@ describe("POST /api/v1/schedules", () => {
     expect(response.headers.location).toBe(`/api/v1/schedules/${response.body.id}`);
 
     const done = await waitForSchedule(key, response.body.id);
-    expect(done).toMatchObject({ status: "completed", progress: { members: 3, checked: 3, fraction: 1 }, counts: { passed: 2, failed: 1, errors: 0 } });
+    expect(done).toMatchObject({ status: "completed", progress: { members: 3, checked: 3, fraction: 1 }, counts: { pass: 2, fail: 1, error: 0 } });
 
     const results = await api().get(`/api/v1/schedules/${response.body.id}/results`).set("authorization", `Bearer ${key}`);
     expect(results.status).toBe(200);
@@ -67,10 +67,10 @@ describe("POST /api/v1/schedules", () => {
     const iMm4 = (150 * 300 ** 3 - (150 - 7.1) * (300 - 21.4) ** 3) / 12;
     const liveMm = (5 * 1 * 4000 ** 4) / (384 * 210000 * iMm4);
     const f1Hz = (Math.PI / (2 * 4 ** 2)) * Math.sqrt((210000 * iMm4 * 1e-6) / (3100 / 9.80665));
-    const doc = { ...createScheduleDoc([createBeam("F-01", 4, 1)]), limits: { preset: "ibc-2021-floor-vibration", overrides: { frequency: { min: 40 } } } };
+    const doc = { ...createScheduleDoc([createBeam("F-01", 4, 1)]), profile: { preset: "ibc-2021-floor-vibration", overrides: { frequency: { min: 40 } } } };
     const response = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).send(doc);
     expect(response.status).toBe(202);
-    expect(await waitForSchedule(key, response.body.id)).toMatchObject({ status: "completed", counts: { passed: 0, failed: 1 } });
+    expect(await waitForSchedule(key, response.body.id)).toMatchObject({ status: "completed", counts: { pass: 0, fail: 1 } });
 
     const results = await api().get(`/api/v1/schedules/${response.body.id}/results`).set("authorization", `Bearer ${key}`);
     expect(results.body.data).toEqual([expect.objectContaining({ mark: "F-01", status: "fail", governingCheck: "frequency", limitRatio: null, achievedRatio: null })]);
@@ -80,7 +80,7 @@ describe("POST /api/v1/schedules", () => {
 
     const member = await api().get(`/api/v1/schedules/${response.body.id}/members/F-01`).set("authorization", `Bearer ${key}`);
     expect(member.body).toMatchObject({ governingCheck: "frequency", status: "fail" });
-    const live = member.body.checks.find((c: { check: string }) => c.check === "live@0");
+    const live = member.body.checks.find((c: { check: string }) => c.check === "live, span 1");
     expect(live).toMatchObject({ pass: true, limitRatio: 360 });
     expect(live.achievedRatio).toBeCloseTo(4000 / liveMm, 6);
   });
@@ -120,7 +120,7 @@ describe("POST /api/v1/schedules", () => {
 
   it("accepts the same schedule as CSV with units in the headers", async () => {
     const csv = "mark,category,quantity,material,section,bf [mm],tf [mm],d [mm],tw [mm],span_1 [m],supports,dead_uniform [kN/m],live_uniform [kN/m]\r\nC-1,floor_beam,2,steel-s355,i_plate,150,10.7,300,7.1,4,pinned roller,3,7.5\r\n";
-    const response = await api().post("/api/v1/schedules?limits=ibc-2021-floor&name=CSV%20test").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send(csv);
+    const response = await api().post("/api/v1/schedules?profile=ibc-2021-floor&name=CSV%20test").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send(csv);
     expect(response.status).toBe(202);
     expect((await waitForSchedule(key, response.body.id)).status).toBe("completed");
   });
@@ -158,7 +158,7 @@ describe("POST /api/v1/schedules", () => {
 
   it("refuses the same out-of-range span in CSV on its row and column", async () => {
     const csv = "mark,category,quantity,material,section,bf [mm],tf [mm],d [mm],tw [mm],span_1 [mm],supports,dead_uniform [kN/m],live_uniform [kN/m]\r\nC-1,floor_beam,1,steel-s355,i_plate,150,10.7,300,7.1,1e308,pinned roller,3,7.5\r\n";
-    const response = await api().post("/api/v1/schedules?limits=ibc-2021-floor").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send(csv);
+    const response = await api().post("/api/v1/schedules?profile=ibc-2021-floor").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send(csv);
     expect(response.status).toBe(422);
     expect(response.body.errors).toHaveLength(1);
     expect(response.body.errors[0]).toMatchObject({ row: 2, column: "span_1 [mm]", message: expect.stringMatching(/at most 1,000,000 mm/) });
@@ -166,7 +166,7 @@ describe("POST /api/v1/schedules", () => {
 
   it("reports CSV row errors with row, line, column and code", async () => {
     const csv = 'mark,category,quantity,material,section,bf [mm],tf [mm],d [mm],tw [mm],span_1 [m],supports,dead_uniform [kN/m],live_uniform [kN/m],notes\r\nC-1,floor_beam,1,steel-s355,i_plate,150,10.7,300,7.1,4,pinned roller,3,7.5,"two\r\nlines"\r\nC-2,floor_beam,1,steel-s355,i_plate,150,10.7,300,7.1,abc,pinned roller,3,7.5,\r\n';
-    const response = await api().post("/api/v1/schedules?limits=ibc-2021-floor").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send(csv);
+    const response = await api().post("/api/v1/schedules?profile=ibc-2021-floor").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send(csv);
     expect(response.status).toBe(422);
     const error = response.body.errors.find((e: { column: string }) => e.column.startsWith("span_1"));
     // The quoted newline in row 2 puts row 3 on line 4.
@@ -174,10 +174,34 @@ describe("POST /api/v1/schedules", () => {
     expect(typeof error.code).toBe("string");
   });
 
-  it("refuses a CSV without its limit preset naming the parameter", async () => {
+  it("refuses a CSV without its limit profile naming the parameter", async () => {
     const response = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send("mark\r\nx\r\n");
     expect(response.status).toBe(400);
-    expect(response.body.errors).toContainEqual({ pointer: "/query/limits", message: expect.stringContaining("limit preset") });
+    expect(response.body.errors).toContainEqual({ pointer: "/query/profile", message: expect.stringContaining("limit profile") });
+  });
+
+  it("refuses the retired limits parameter and a delimiter given as a character, naming each", async () => {
+    const response = await api().post("/api/v1/schedules?limits=ibc-2021-floor&delimiter=%3B").set("authorization", `Bearer ${key}`).set("content-type", "text/csv").send("mark\r\nx\r\n");
+    expect(response.status).toBe(400);
+    expect(response.body.errors).toEqual([
+      { pointer: "/query/delimiter", message: 'must be "comma", "semicolon" or "tab"' },
+      { pointer: "/query/limits", message: expect.stringContaining("profile=") },
+    ]);
+  });
+
+  it("refuses a sagline.schedule/v1 document with a problem that says what changed, storing nothing", async () => {
+    const v1 = { ...createScheduleDoc([createBeam("V1-1", 4)]), format: "sagline.schedule/v1", limits: { preset: "ibc-2021-floor" } };
+    const response = await api().post("/api/v1/schedules").set("authorization", `Bearer ${key}`).send(v1);
+    expect(response.status).toBe(422);
+    expect(response.headers["content-type"]).toMatch(/^application\/problem\+json/);
+    expect(response.body).toMatchObject({
+      type: "https://sagline.dev/problems/schedule-format-retired",
+      title: "Schedule format retired",
+      status: 422,
+      currentFormat: "sagline.schedule/v2",
+      errors: [{ pointer: "/format", message: expect.stringMatching(/"limits" block is now "profile".*OUTER width and depth/) }],
+    });
+    expect(response.body.detail).toContain("CHANGELOG.md");
   });
 });
 

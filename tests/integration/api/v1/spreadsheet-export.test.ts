@@ -33,7 +33,7 @@ describe("a CSV exported by LibreOffice Calc", () => {
     const csv = exportCsv(code);
     expect(csv).toContain('"Stair trimmer\nsee sketch SK-12"');
     const response = await request(APP_URL)
-      .post(`/api/v1/schedules?limits=ibc-2021-floor&name=Lumenbrook%20Yard%20L3&delimiter=${delimiter}`)
+      .post(`/api/v1/schedules?profile=ibc-2021-floor&name=Lumenbrook%20Yard%20L3&delimiter=${delimiter}`)
       .set("authorization", `Bearer ${key}`)
       .set("content-type", "text/csv")
       .send(csv);

@@ -10,7 +10,7 @@ import { resolveDisplayUnits } from "@/app/(dashboard)/schedules/_components/dis
 import type { MemberCheckRow } from "@/lib/server/schedules/get-member-report";
 import { runStoredMember } from "@/lib/server/schedules/run-stored-member";
 
-const header = { format: "sagline.schedule/v1", name: "Invented diagram test", units: { system: "US" }, limits: { preset: "ibc-2021-floor" } };
+const header = { format: "sagline.schedule/v2", name: "Invented diagram test", units: { system: "US" }, profile: { preset: "ibc-2021-floor" } };
 
 function render(member: Record<string, unknown>) {
   const run = runStoredMember(header, member);

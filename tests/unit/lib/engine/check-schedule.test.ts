@@ -88,7 +88,7 @@ describe("engine errors per member", () => {
     const profileIssue = checkParsedSchedule(twoMembers, undefined, () => {
       throw new EngineInputError([{ path: "profile.combinations[0].limitRatio", message: "must be positive" }]);
     });
-    expect(profileIssue).toEqual({ ok: false, issues: [{ path: "limits.combinations[0].limitRatio", message: "must be positive" }] });
+    expect(profileIssue).toEqual({ ok: false, issues: [{ path: "profile.combinations[0].limitRatio", message: "must be positive" }] });
   });
 
   it("lets any other error propagate (a defect, not bad input)", () => {

@@ -5,7 +5,7 @@ import { parseSchedule } from "@/lib/engine/intake";
 import { parseScheduleCsv } from "@/lib/schedule-csv";
 
 const HEADER = "mark,category,quantity,material,section,b [mm],h [mm],span_1 [m],span_2 [m],supports,dead_uniform [kN/m],live_uniform [kN/m],fixed_cases";
-const options = { name: "Fixed loads (invented)", limits: { preset: "ibc-2021-floor" } };
+const options = { name: "Fixed loads (invented)", profile: { preset: "ibc-2021-floor" } };
 
 describe("fixed_cases", () => {
   it("marks the row's loads of the named cases fixed, and intake keeps the mark", () => {

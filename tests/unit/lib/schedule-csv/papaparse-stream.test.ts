@@ -23,14 +23,14 @@ function mapWithPapaparse(text: string, delimiter: string): PublicMember[] {
 
 describe("the row mapper fed by papaparse (an independent CSV reader)", () => {
   it("gives the same members as parseScheduleCsv, BOM included", () => {
-    const ours = parseScheduleCsv(`\uFEFF${exampleCsv}`, { name: "x", limits: { preset: "en1995-timber-floor" } });
+    const ours = parseScheduleCsv(`\uFEFF${exampleCsv}`, { name: "x", profile: { preset: "en1995-timber-floor" } });
     if (!ours.ok) throw new Error(JSON.stringify(ours.errors));
     expect(mapWithPapaparse(`\uFEFF${exampleCsv}`, ",")).toEqual(ours.doc.members);
   });
 
   it("agrees on quoted newlines in a semicolon file", () => {
     const text = 'mark;category;quantity;material;section;b [mm];h [mm];span_1 [m];supports;live_uniform [kN/m];notes\r\nB1;floor_beam;1;steel-s355;rectangle;100;200;3;pinned roller;1;"a;b\r\nc ""d"""\r\n';
-    const ours = parseScheduleCsv(text, { delimiter: ";", name: "x", limits: { preset: "ibc-2021-floor" } });
+    const ours = parseScheduleCsv(text, { delimiter: ";", name: "x", profile: { preset: "ibc-2021-floor" } });
     if (!ours.ok) throw new Error(JSON.stringify(ours.errors));
     // Line ends are made uniform before reading (a quoted CRLF is kept as LF), as on the upload page.
     const theirs = mapWithPapaparse(text.replace(/\r\n?/g, "\n"), ";");

@@ -7,18 +7,18 @@ import { buildCsvTemplate, createCsvRowMapper, mapIssueToCsvRow, parseScheduleCs
 
 const exampleCsv = readFileSync(new URL("../../../../examples/lumenbrook-depot-hall-b-joists.csv", import.meta.url), "utf8");
 const exampleJson = JSON.parse(readFileSync(new URL("../../../../examples/lumenbrook-depot-hall-b.json", import.meta.url), "utf8"));
-const options: ParseScheduleCsvOptions = { name: "Lumenbrook Depot joists", limits: { preset: "en1995-timber-floor" } };
+const options: ParseScheduleCsvOptions = { name: "Lumenbrook Depot joists", profile: { preset: "en1995-timber-floor" } };
 
 const HEADER = "mark,category,quantity,material,section,b [mm],h [mm],span_1 [m],supports,live_uniform [kN/m],notes";
 
 function parseOk(text: string, extra: Partial<ParseScheduleCsvOptions> = {}) {
-  const result = parseScheduleCsv(text, { ...options, limits: { preset: "ibc-2021-floor" }, ...extra });
+  const result = parseScheduleCsv(text, { ...options, profile: { preset: "ibc-2021-floor" }, ...extra });
   if (!result.ok) throw new Error(JSON.stringify(result.errors));
   return result;
 }
 
 function parseErrors(text: string, extra: Partial<ParseScheduleCsvOptions> = {}) {
-  const result = parseScheduleCsv(text, { ...options, limits: { preset: "ibc-2021-floor" }, ...extra });
+  const result = parseScheduleCsv(text, { ...options, profile: { preset: "ibc-2021-floor" }, ...extra });
   if (result.ok) throw new Error("expected errors");
   return result.errors;
 }

@@ -7,7 +7,7 @@ import { mapIssueToCsvRow, parseScheduleCsv } from "@/lib/schedule-csv";
 const HEADER = "mark,category,quantity,material,creep,section,bf [mm],hf [mm],bw [mm],h [mm],tension_steel [mm^2],effective_depth [mm],compression_steel [mm^2],compression_depth [mm],span_1 [m],supports,dead_uniform [kN/m],live_uniform [kN/m]";
 
 function parse(rows: string[]) {
-  const result = parseScheduleCsv([HEADER, ...rows].join("\n"), { name: "Invented RC frame", limits: { preset: "aci-318-19-floor" } });
+  const result = parseScheduleCsv([HEADER, ...rows].join("\n"), { name: "Invented RC frame", profile: { preset: "aci-318-19-floor" } });
   if (!result.ok) throw new Error(JSON.stringify(result.errors));
   return { result, parsed: parseSchedule(result.doc) };
 }
@@ -27,7 +27,7 @@ describe("reinforced concrete columns", () => {
 
   it("top_steel and top_depth give the steel for hogging regions", () => {
     const header = `${HEADER},top_steel [mm^2],top_depth [mm]`;
-    const result = parseScheduleCsv([header, "RB1,floor_beam,1,concrete-fc30,,tee,1200,100,300,600,2000,530,,,7.5,roller fixed,18,12,2454,545"].join("\n"), { name: "Invented RC frame", limits: { preset: "aci-318-19-floor" } });
+    const result = parseScheduleCsv([header, "RB1,floor_beam,1,concrete-fc30,,tee,1200,100,300,600,2000,530,,,7.5,roller fixed,18,12,2454,545"].join("\n"), { name: "Invented RC frame", profile: { preset: "aci-318-19-floor" } });
     if (!result.ok) throw new Error(JSON.stringify(result.errors));
     const parsed = parseSchedule(result.doc);
     if (!parsed.ok) throw new Error(JSON.stringify(parsed.issues));

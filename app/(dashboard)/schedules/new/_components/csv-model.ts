@@ -200,8 +200,8 @@ export function validateSchedule({ criteria, parsed, mapped, system, presetId, n
       }
       return created.mapper.mapRow(mapped.keep.map((i) => record.fields[i] ?? ""), where);
     },
-    // an organization profile (lp_...) or a preset, as the server reads the limits parameter
-    { name, reference: reference || undefined, units, limits: presetId.startsWith("lp_") ? { profile: presetId } : { preset: presetId } },
+    // an organization profile (lp_...) or a preset, as the server reads the profile parameter
+    { name, reference: reference || undefined, units, profile: presetId.startsWith("lp_") ? { id: presetId } : { preset: presetId } },
   );
   if (!built.ok) return { ok: false, errors: built.errors };
   const intake = parseSchedule(

@@ -1,6 +1,7 @@
 "use client";
 
 import { Field, SELECT_CLASS, SelectField } from "@/components/ui/field";
+import { TERMS } from "@/lib/vocabulary";
 
 export type PresetOption = { id: string; label: string; source: string };
 export type UnitsChoice = "" | "SI" | "US" | "none";
@@ -36,7 +37,7 @@ export function UploadOptions({ presets, unitsChoice, presetId, name, reference,
         <option value="none">None: every quantity column names its unit</option>
       </SelectField>
       <SelectField
-        label="Limit preset"
+        label={TERMS.profile.label}
         value={presetId}
         onChange={(e) => onPreset(e.currentTarget.value)}
         className={selectClass}

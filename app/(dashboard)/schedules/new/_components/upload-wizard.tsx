@@ -108,7 +108,7 @@ export function UploadWizard({ presets, maxBytes, criteria }: UploadWizardProps)
     if (!parsed) return null;
     const missing: RowError[] = [];
     if (unitsChoice === "") missing.push({ message: "choose a unit system (or None, when every quantity column names its unit)", pointer: "units" });
-    if (presetId === "") missing.push({ message: "choose a limit preset", pointer: "limits" });
+    if (presetId === "") missing.push({ message: "choose a limit profile", pointer: "profile" });
     if (name.trim() === "" || name.trim().length > 200) missing.push({ message: "give the schedule a name of 1 to 200 characters", pointer: "name" });
     const result: CheckOutcome = !parsed.ok
       ? parsed
@@ -127,7 +127,7 @@ export function UploadWizard({ presets, maxBytes, criteria }: UploadWizardProps)
     form.set("file", new Blob([writeMappedCsv(parsed, mapped, delimiter)], { type: "text/csv" }), file.name);
     form.set("name", name.trim());
     if (reference.trim()) form.set("reference", reference.trim());
-    form.set("limits", presetId);
+    form.set("profile", presetId);
     form.set("delimiter", delimiter);
     if (system) form.set("units", system);
     const outcome = await sendUpload(form);

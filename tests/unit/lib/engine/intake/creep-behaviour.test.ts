@@ -53,15 +53,15 @@ describe("IBC D + L creep component at intake", () => {
 });
 
 describe("ACI sustained live fraction", () => {
-  const aci = (extra: Record<string, unknown>) => createDoc({ material: "concrete-fc30", section: { shape: "rectangle", b: 300, h: 500 }, creep: { method: "aci", durationMonths: 60, compressionRatio: 0 } }, { limits: { preset: "aci-318-19-floor", ...extra } });
-  it("is read from limits and reaches the after-attachment combination", () => {
+  const aci = (extra: Record<string, unknown>) => createDoc({ material: "concrete-fc30", section: { shape: "rectangle", b: 300, h: 500 }, creep: { method: "aci", durationMonths: 60, compressionRatio: 0 } }, { profile: { preset: "aci-318-19-floor", ...extra } });
+  it("is read from profile and reaches the after-attachment combination", () => {
     expect(parseOk(aci({ sustainedLiveFraction: 0.3 })).profile.combinations[1]?.sustainedFactors).toEqual({ dead: 1, live: 0.3 });
     expect(parseOk(aci({})).profile.combinations[1]?.sustainedFactors).toEqual({ dead: 1, live: 1 });
   });
   it("is refused above 1 and on presets that do not read it", () => {
-    expect(formatIssues(parseIssues(aci({ sustainedLiveFraction: 25 })))).toEqual(["limits.sustainedLiveFraction: is the sustained part of the live load, from 0 to 1 (e.g. 0.25), not a percentage"]);
-    expect(formatIssues(parseIssues(createDoc({}, { limits: { preset: "ibc-2021-floor", sustainedLiveFraction: 0.3 } })))).toEqual([
-      "limits.sustainedLiveFraction: applies only to the ACI 318-19 presets, not ibc-2021-floor",
+    expect(formatIssues(parseIssues(aci({ sustainedLiveFraction: 25 })))).toEqual(["profile.sustainedLiveFraction: is the sustained part of the live load, from 0 to 1 (e.g. 0.25), not a percentage"]);
+    expect(formatIssues(parseIssues(createDoc({}, { profile: { preset: "ibc-2021-floor", sustainedLiveFraction: 0.3 } })))).toEqual([
+      "profile.sustainedLiveFraction: applies only to the ACI 318-19 presets, not ibc-2021-floor",
     ]);
   });
 });
@@ -74,7 +74,7 @@ it("a custom profile may give a cantilever its own ratio and use the IBC creep c
     cantileverSpanMultiplier: 2,
     combinations: [{ id: "total", label: "total", factors: { live: 1 }, sustainedFactors: { dead: 1 }, creep: "ibc_creep_component", limitRatio: 240, cantileverLimitRatio: 180 }],
   };
-  const parsed = parseOk(createDoc({ loads: [{ case: "dead", type: "uniform", w: 1 }, { case: "live", type: "uniform", w: 2 }] }, { limits: { custom } }));
+  const parsed = parseOk(createDoc({ loads: [{ case: "dead", type: "uniform", w: 1 }, { case: "live", type: "uniform", w: 2 }] }, { profile: { custom } }));
   expect(parsed.profile.combinations[0]).toMatchObject({ creep: "ibc_creep_component", cantileverLimitRatio: 180 });
   expect(parsed.members[0]?.ibcCreepComponentFactor).toBe(0);
 });

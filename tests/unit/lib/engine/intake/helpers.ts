@@ -1,13 +1,14 @@
 import { parseSchedule, type ParsedSchedule, type ParseScheduleOptions } from "@/lib/engine/intake";
+import { SCHEDULE_FORMAT } from "@/lib/engine/intake/schedule-format";
 import type { InputIssue } from "@/lib/engine/model";
 
 /** A small valid SI schedule with one steel beam; tests change one thing at a time. */
 export function createDoc(member: Record<string, unknown> = {}, root: Record<string, unknown> = {}): Record<string, unknown> {
   return {
-    format: "sagline.schedule/v1",
+    format: SCHEDULE_FORMAT,
     name: "Test schedule",
     units: { system: "SI" },
-    limits: { preset: "ibc-2021-floor" },
+    profile: { preset: "ibc-2021-floor" },
     members: [
       {
         mark: "B1",

@@ -147,7 +147,7 @@ describe("member problems", () => {
   });
 
   it("requires creep information for timber under a profile with creep combinations", () => {
-    const messages = getMessages({ material: "timber-c24" }, { limits: { preset: "en1995-timber-floor" } });
+    const messages = getMessages({ material: "timber-c24" }, { profile: { preset: "en1995-timber-floor" } });
     expect(messages).toHaveLength(1);
     expect(messages[0]).toMatch(/^members\[0\]\.creep: is required: the limit profile has long-term \(creep\) combinations and Softwood C24 creeps/);
   });
@@ -160,7 +160,7 @@ describe("member problems", () => {
 
   it("needs area and density for self-weight, and the dead case in the profile", () => {
     expect(getMessages({ section: { shape: "explicit", I: 1e8 }, selfWeight: true })).toEqual(["members[0].selfWeight: needs the section area A (members[0].spans[0])"]);
-    const wall = getMessages({ selfWeight: true, loads: [{ case: "wind", type: "uniform", w: 1 }] }, { limits: { preset: "ibc-2021-wall-flexible" } });
+    const wall = getMessages({ selfWeight: true, loads: [{ case: "wind", type: "uniform", w: 1 }] }, { profile: { preset: "ibc-2021-wall-flexible" } });
     expect(wall).toEqual(["members[0].selfWeight: self-weight goes to the dead case, which limit profile ibc-2021-wall-flexible does not use"]);
   });
 
@@ -176,29 +176,29 @@ describe("schedule-level problems", () => {
 
   it("checks the format id and required fields", () => {
     const issues = formatIssues(parseIssues({ format: "other/v9" }));
-    expect(issues).toEqual(["name: is required", "units: is required", "limits: is required", "members: is required", 'format: must be "sagline.schedule/v1"']);
+    expect(issues).toEqual(["name: is required", "units: is required", "profile: is required", "members: is required", 'format: must be "sagline.schedule/v2"']);
   });
 
   it("reports an unknown preset with the list", () => {
-    expect(getMessages({}, { limits: { preset: "ibc-1997" } })[0]).toMatch(/^limits\.preset: unknown preset "ibc-1997"; presets: ibc-2021-floor, /);
+    expect(getMessages({}, { profile: { preset: "ibc-1997" } })[0]).toMatch(/^profile\.preset: unknown preset "ibc-1997"; presets: ibc-2021-floor, /);
   });
 
   it("reports an override of a combination the preset does not have", () => {
-    expect(getMessages({}, { limits: { preset: "ibc-2021-floor", overrides: { combinations: { snow: { limitRatio: 300 } } } } })).toEqual([
-      'limits.overrides.combinations.snow: no combination "snow" in preset ibc-2021-floor; its combinations: live, dead+live',
+    expect(getMessages({}, { profile: { preset: "ibc-2021-floor", overrides: { combinations: { snow: { limitRatio: 300 } } } } })).toEqual([
+      'profile.overrides.combinations.snow: no combination "snow" in preset ibc-2021-floor; its combinations: live, dead+live',
     ]);
   });
 
   it("rejects a zero limit ratio in an override", () => {
-    expect(getMessages({}, { limits: { preset: "ibc-2021-floor", overrides: { combinations: { live: { limitRatio: 0 } } } } })).toEqual([
-      "limits.overrides.combinations.live.limitRatio: must be greater than 0",
+    expect(getMessages({}, { profile: { preset: "ibc-2021-floor", overrides: { combinations: { live: { limitRatio: 0 } } } } })).toEqual([
+      "profile.overrides.combinations.live.limitRatio: must be greater than 0",
     ]);
   });
 
   it("reports duplicate combination ids in a custom profile", () => {
     const combination = { id: "live", label: "live", factors: { live: 1 }, limitRatio: 360 };
-    const messages = getMessages({}, { limits: { custom: { id: "p", label: "P", source: "spec", cantileverSpanMultiplier: 2, combinations: [combination, combination] } } });
-    expect(messages).toEqual(['limits.custom.combinations[1].id: duplicate combination id "live"']);
+    const messages = getMessages({}, { profile: { custom: { id: "p", label: "P", source: "spec", cantileverSpanMultiplier: 2, combinations: [combination, combination] } } });
+    expect(messages).toEqual(['profile.custom.combinations[1].id: duplicate combination id "live"']);
   });
 
   it("caps the number of listed issues and says how many more there were", () => {
@@ -227,9 +227,9 @@ describe("hostile or broken input", () => {
   });
 
   it("treats __proto__ and constructor keys as unknown fields, never as data", () => {
-    const doc = JSON.parse('{"format":"sagline.schedule/v1","name":"x","units":{"system":"SI"},"limits":{"preset":"ibc-2021-floor","overrides":{"combinations":{"__proto__":{"limitRatio":1}}}},"members":[{"__proto__":{"mark":"evil"},"mark":"B1","category":"floor_beam","quantity":1,"material":"steel-s355","section":{"shape":"rectangle","b":100,"h":200},"spans":[5],"supports":["pinned","roller"],"loads":[{"case":"live","type":"uniform","w":2}]}]}');
+    const doc = JSON.parse('{"format":"sagline.schedule/v2","name":"x","units":{"system":"SI"},"profile":{"preset":"ibc-2021-floor","overrides":{"combinations":{"__proto__":{"limitRatio":1}}}},"members":[{"__proto__":{"mark":"evil"},"mark":"B1","category":"floor_beam","quantity":1,"material":"steel-s355","section":{"shape":"rectangle","b":100,"h":200},"spans":[5],"supports":["pinned","roller"],"loads":[{"case":"live","type":"uniform","w":2}]}]}');
     const paths = parseIssues(doc).map((i) => i.path);
-    expect(paths).toEqual(["limits.overrides.combinations.__proto__", "members[0].__proto__"]);
+    expect(paths).toEqual(["profile.overrides.combinations.__proto__", "members[0].__proto__"]);
     expect(({} as Record<string, unknown>).mark).toBeUndefined();
   });
 

@@ -18,31 +18,31 @@ const beam = (material: unknown) => ({
   loads: [{ case: "live", type: "uniform", w: 2 }],
 });
 
-const doc = (limits: unknown, material: unknown = "steel-s355") => ({
-  format: "sagline.schedule/v1",
+const doc = (profile: unknown, material: unknown = "steel-s355") => ({
+  format: "sagline.schedule/v2",
   name: "Organization criteria (invented)",
   units: { system: "SI", length: "m", sectionDimension: "mm", distributedLoad: "kN/m" },
-  limits,
+  profile,
   members: [beam(material)],
 });
 
-describe("limits.profile", () => {
+describe("profile.id", () => {
   const profile = { ...getPreset("ibc-2021-floor")!, id: "lp_test.v3" };
   const organizationProfiles = new Map([["lp_test", profile]]);
 
   it("resolves to the caller's profile", () => {
-    const parsed = parseSchedule(doc({ profile: "lp_test" }), { organizationProfiles });
+    const parsed = parseSchedule(doc({ id: "lp_test" }), { organizationProfiles });
     expect(parsed.ok && parsed.schedule.profile).toEqual(profile);
   });
 
   it("names an unknown id and refuses a mix with a preset", () => {
-    expect(parseSchedule(doc({ profile: "lp_other" }), { organizationProfiles })).toMatchObject({
+    expect(parseSchedule(doc({ id: "lp_other" }), { organizationProfiles })).toMatchObject({
       ok: false,
-      issues: [{ path: "limits.profile", message: 'unknown limit profile "lp_other": not one of this organization\'s profiles (Settings, Limit profiles)' }],
+      issues: [{ path: "profile.id", message: 'unknown limit profile "lp_other": not one of this organization\'s profiles (Settings, Limit profiles)' }],
     });
-    expect(parseSchedule(doc({ profile: "lp_test", preset: "ibc-2021-floor" }), { organizationProfiles })).toMatchObject({
+    expect(parseSchedule(doc({ id: "lp_test", preset: "ibc-2021-floor" }), { organizationProfiles })).toMatchObject({
       ok: false,
-      issues: [{ path: "limits", message: expect.stringContaining("give profile alone") }],
+      issues: [{ path: "profile", message: expect.stringContaining("give id alone") }],
     });
   });
 });

@@ -18,7 +18,7 @@ describe("moisture condition against the EN 1995 service class", () => {
 
 describe("overridden combinations", () => {
   it("an edited combination's label says it was edited; an untouched one keeps the preset's", () => {
-    const schedule = parseOk(createDoc({}, { limits: { preset: "ibc-2021-floor", overrides: { combinations: { live: { limitRatio: 480 } } } } }));
+    const schedule = parseOk(createDoc({}, { profile: { preset: "ibc-2021-floor", overrides: { combinations: { live: { limitRatio: 480 } } } } }));
     const [live, total] = schedule.profile.combinations;
     expect(live?.label.endsWith("(edited)")).toBe(true);
     expect(total?.label.endsWith("(edited)")).toBe(false);
@@ -26,7 +26,7 @@ describe("overridden combinations", () => {
 
   it("a governing cap is reported as its own l/N, so achieved below limit means a fail", () => {
     // live 2 kN/m on 5 m, b 100 h 200 steel: 5wL^4/(384EI) = 5 x 2 x 5000^4 / (384 x 210,000 x 6.67e7) = 1.16 mm (AISC Manual Table 3-23 case 1, from memory), above the 1 mm cap
-    const schedule = parseOk(createDoc({}, { limits: { preset: "ibc-2021-floor", overrides: { combinations: { live: { cap: 1 } } } } }));
+    const schedule = parseOk(createDoc({}, { profile: { preset: "ibc-2021-floor", overrides: { combinations: { live: { cap: 1 } } } } }));
     const check = checkMember(schedule.members[0]!, schedule.profile).checks.find((c) => c.combinationId === "live")!;
     expect(check.allowedMm).toBe(1);
     expect(check.limitRatio).toBeCloseTo(5000 / 1, 9);

@@ -2,6 +2,7 @@ import { readFileSync } from "node:fs";
 
 import { describe, expect, it } from "vitest";
 
+import { parseSchedule } from "@/lib/engine/intake";
 import type { Member } from "@/lib/engine/model";
 
 import { createDoc, parseOk } from "./helpers";
@@ -143,7 +144,7 @@ describe("supports and sections", () => {
   it("takes a custom material with its own creep factor", () => {
     const doc = createDoc(
       { material: { name: "LVL", E: 13.8, G: 0.66, density: 510, creepFactor: 0.6 } },
-      { units: { system: "SI", modulus: "GPa" }, limits: { preset: "en1995-timber-floor" } },
+      { units: { system: "SI", modulus: "GPa" }, profile: { preset: "en1995-timber-floor" } },
     );
     const member = parseOk(doc).members[0];
     expect(member?.spans[0]?.eMpa).toBeCloseTo(13800, 9);
@@ -152,13 +153,13 @@ describe("supports and sections", () => {
   });
 });
 
-describe("limits", () => {
+describe("profile", () => {
   it("accepts a custom profile with a cap and a frequency requirement", () => {
     const schedule = parseOk(
       createDoc(
         {},
         {
-          limits: {
+          profile: {
             custom: {
               id: "project-floor",
               label: "Project floor",
@@ -177,7 +178,7 @@ describe("limits", () => {
 
   it("overrides a preset's ratio, cap and cantilever multiplier", () => {
     const schedule = parseOk(
-      createDoc({}, { limits: { preset: "ibc-2021-floor", overrides: { combinations: { live: { limitRatio: 480, cap: { value: 0.5, unit: "in" } } }, cantileverSpanMultiplier: 1.5 } } }),
+      createDoc({}, { profile: { preset: "ibc-2021-floor", overrides: { combinations: { live: { limitRatio: 480, cap: { value: 0.5, unit: "in" } } }, cantileverSpanMultiplier: 1.5 } } }),
     );
     expect(schedule.profile.combinations[0]).toMatchObject({ limitRatio: 480, capMm: 12.7 });
     expect(schedule.profile.cantileverSpanMultiplier).toBe(1.5);
@@ -188,7 +189,7 @@ describe("creep methods through intake", () => {
   it("concrete under ACI 318-19: lambda = 2.0 / (1 + 50 x 0.005) = 1.6 (ACI 318-19 24.2.4.1, from memory)", () => {
     const doc = createDoc(
       { material: "concrete-fc30", creep: { method: "aci", durationMonths: 60, compressionRatio: 0.005 }, section: { shape: "rectangle", b: 1000, h: 200 } },
-      { limits: { preset: "aci-318-19-floor" } },
+      { profile: { preset: "aci-318-19-floor" } },
     );
     const member = parseOk(doc).members[0];
     expect(member?.materialCreepFactor).toBeCloseTo(1.6, 12);
@@ -196,7 +197,7 @@ describe("creep methods through intake", () => {
   });
 
   it("timber under NDS: K_cr 1.5 gives an added factor of 0.5 (NDS 3.5.2, from memory)", () => {
-    const doc = createDoc({ material: "timber-c24", creep: { method: "nds", condition: "seasoned_dry" } }, { limits: { preset: "en1995-timber-floor" } });
+    const doc = createDoc({ material: "timber-c24", creep: { method: "nds", condition: "seasoned_dry" } }, { profile: { preset: "en1995-timber-floor" } });
     expect(parseOk(doc).members[0]?.materialCreepFactor).toBeCloseTo(0.5, 12);
   });
 
@@ -205,8 +206,24 @@ describe("creep methods through intake", () => {
   });
 });
 
-it("reads a hollow rectangle given by outer and inner sizes", () => {
-  const member = parseOk(createDoc({ section: { shape: "hollow_rectangle", B: 100, H: 200, b: 90, h: 190 } })).members[0];
-  // (B H^3 - b h^3)/12 (Gere and Goodno, Mechanics of Materials, appendix of plane-area properties, from memory)
+it("reads a hollow rectangle's b and h as its OUTER size and t as its wall", () => {
+  const member = parseOk(createDoc({ section: { shape: "hollow_rectangle", b: 100, h: 200, t: 5 } })).members[0];
+  // (B H^3 - b_i h_i^3)/12 with the inner 90 x 190 (Gere and Goodno, Mechanics of Materials, appendix of plane-area properties, from memory)
   expect(member?.spans[0]?.iMm4).toBeCloseTo((100 * 200 ** 3 - 90 * 190 ** 3) / 12, 6);
+});
+
+it("refuses a hollow rectangle in the retired v1 form (outer B and H) on its fields", () => {
+  const result = parseSchedule(createDoc({ section: { shape: "hollow_rectangle", B: 100, H: 200, t: 5 } }));
+  expect(result.ok).toBe(false);
+  if (!result.ok) expect(result.issues.map((i) => i.path)).toEqual(expect.arrayContaining(["members[0].section.B"]));
+});
+
+it("refuses a sagline.schedule/v1 document, saying what changed", () => {
+  const result = parseSchedule({ ...createDoc({}), format: "sagline.schedule/v1" });
+  expect(result.ok).toBe(false);
+  if (!result.ok) {
+    expect(result.issues).toHaveLength(1);
+    expect(result.issues[0]?.path).toBe("format");
+    expect(result.issues[0]?.message).toMatch(/v1 is retired.*"limits" block is now "profile".*OUTER width and depth/);
+  }
 });

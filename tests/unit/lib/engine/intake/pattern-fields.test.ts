@@ -15,12 +15,12 @@ describe("pattern-loading fields", () => {
   });
 
   it("overrides and custom profiles take patternLoads and variableCases", () => {
-    const edited = parseOk(createDoc({}, { limits: { preset: "ibc-2021-floor", overrides: { patternLoads: false } } }));
+    const edited = parseOk(createDoc({}, { profile: { preset: "ibc-2021-floor", overrides: { patternLoads: false } } }));
     expect(edited.profile.patternLoads).toBe(false);
     const custom = parseOk(
       createDoc(
         { loads: [{ case: "crowd", type: "uniform", w: 2 }] },
-        { limits: { custom: { id: "stand", label: "Stand", source: "project brief (invented)", cantileverSpanMultiplier: 2, variableCases: ["crowd"], combinations: [{ id: "c", label: "Crowd", factors: { crowd: 1 }, limitRatio: 360 }] } } },
+        { profile: { custom: { id: "stand", label: "Stand", source: "project brief (invented)", cantileverSpanMultiplier: 2, variableCases: ["crowd"], combinations: [{ id: "c", label: "Crowd", factors: { crowd: 1 }, limitRatio: 360 }] } } },
       ),
     );
     expect(custom.profile.variableCases).toEqual(["crowd"]);
@@ -28,8 +28,8 @@ describe("pattern-loading fields", () => {
   });
 
   it("bad switches are refused on their own fields", () => {
-    const issues = formatIssues(parseIssues(createDoc({}, { limits: { preset: "ibc-2021-floor", overrides: { patternLoads: 1, variableCases: ["Crowd"] } } }))).join("\n");
-    expect(issues).toContain("limits.overrides.patternLoads");
-    expect(issues).toContain("limits.overrides.variableCases[0]");
+    const issues = formatIssues(parseIssues(createDoc({}, { profile: { preset: "ibc-2021-floor", overrides: { patternLoads: 1, variableCases: ["Crowd"] } } }))).join("\n");
+    expect(issues).toContain("profile.overrides.patternLoads");
+    expect(issues).toContain("profile.overrides.variableCases[0]");
   });
 });

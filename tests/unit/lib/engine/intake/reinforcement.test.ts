@@ -48,9 +48,9 @@ describe("reinforcement block", () => {
   });
 
   it("lambda_Delta from rho': xi = 2.0 by default, rho' = A's/(b d)", () => {
-    const member = parseOk(createDoc({ ...concrete, reinforcement: { ...reinforcement, compressionSteel: 660, compressionDepth: 60 } }, { limits: { preset: "aci-318-19-floor" } })).members[0]!;
+    const member = parseOk(createDoc({ ...concrete, reinforcement: { ...reinforcement, compressionSteel: 660, compressionDepth: 60 } }, { profile: { preset: "aci-318-19-floor" } })).members[0]!;
     expect(member.materialCreepFactor).toBeCloseTo(2 / (1 + 50 * (660 / (300 * 440))), 12);
-    const twelve = parseOk(createDoc({ ...concrete, reinforcement, creep: { method: "aci", durationMonths: 12 } }, { limits: { preset: "aci-318-19-floor" } })).members[0]!;
+    const twelve = parseOk(createDoc({ ...concrete, reinforcement, creep: { method: "aci", durationMonths: 12 } }, { profile: { preset: "aci-318-19-floor" } })).members[0]!;
     expect(twelve.materialCreepFactor).toBeCloseTo(1.4, 12);
   });
 

@@ -61,7 +61,7 @@ describe("GET /api/v1/openapi.json document", () => {
         described.push(key);
         const scope = apiRouteScopes[key as keyof typeof apiRouteScopes];
         expect(operation["x-sagline-scope"], key).toBe(scope);
-        expect(operation.security, key).toEqual(scope === "public" ? [] : [{ apiKey: [scope] }]);
+        expect(operation.security, key).toEqual(scope === "public" || scope === "signed-link" ? [] : [{ apiKey: [scope] }]);
         expect(Object.keys(operation.responses as object).length, key).toBeGreaterThan(0);
         expect(typeof operation.operationId, key).toBe("string");
       }
@@ -129,6 +129,6 @@ describe("GET /api/v1/openapi.json document", () => {
     expect(created({ apiKey, key: `sgl_${"A".repeat(38)}` }), JSON.stringify(created.errors)).toBe(true);
     expect(created({ apiKey: { ...apiKey, secretHash: "x" }, key: `sgl_${"A".repeat(38)}` })).toBe(false);
     const schedule = ajv.getSchema("https://sagline.example/openapi.json#/components/schemas/Schedule")!;
-    expect(schedule({ format: "sagline.schedule/v1" })).toBe(false);
+    expect(schedule({ format: "sagline.schedule/v2" })).toBe(false);
   });
 });

@@ -7,8 +7,8 @@ import { describe, expect, it } from "vitest";
 import { applyWhatIf, getScheduleUnit } from "@/lib/server/schedules/apply-what-if";
 import { runStoredMember } from "@/lib/server/schedules/run-stored-member";
 
-const siHeader = { format: "sagline.schedule/v1", name: "Invented test schedule", units: { system: "SI" }, limits: { preset: "ibc-2021-floor" } };
-const usHeader = { format: "sagline.schedule/v1", name: "Invented test schedule", units: { system: "US" }, limits: { preset: "ibc-2021-floor" } };
+const siHeader = { format: "sagline.schedule/v2", name: "Invented test schedule", units: { system: "SI" }, profile: { preset: "ibc-2021-floor" } };
+const usHeader = { format: "sagline.schedule/v2", name: "Invented test schedule", units: { system: "US" }, profile: { preset: "ibc-2021-floor" } };
 
 function beam(overrides: Record<string, unknown> = {}) {
   return {
