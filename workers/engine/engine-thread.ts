@@ -10,14 +10,18 @@ import type { EngineTask, EngineReply } from "./engine-messages";
 if (!parentPort) throw new Error("engine-thread.ts runs only as a worker thread");
 const port = parentPort;
 
-// Each thread warms its own copy of the engine (the main thread no longer runs it).
-try {
-  const started = performance.now();
-  warmUpScheduleChecks();
-  console.log(`[worker] engine thread warmed up in ${Math.round(performance.now() - started)} ms`);
-} catch (error) {
-  console.error("[worker] engine thread warm-up failed", error);
+// Each thread warms its own copy of the engine (the main thread no longer runs it). ENGINE_WARM_UP=0
+// skips it where start-up time matters more than the first chunk's speed (the kill drill).
+function warmUp() {
+  try {
+    const started = performance.now();
+    warmUpScheduleChecks();
+    console.log(`[worker] engine thread warmed up in ${Math.round(performance.now() - started)} ms`);
+  } catch (error) {
+    console.error("[worker] engine thread warm-up failed", error);
+  }
 }
+if (process.env.ENGINE_WARM_UP !== "0") warmUp();
 
 port.on("message", (task: EngineTask) => {
   let reply: EngineReply;
