@@ -36,7 +36,8 @@ afterAll(async () => {
 });
 
 async function signedIn(role: "engineer" | "viewer"): Promise<Page> {
-  const page = await browser.newPage();
+  // A context of its own per person (the accessibility scan needs one, and sessions stay apart).
+  const page = await (await browser.newContext()).newPage();
   await signInThroughForm(page, org.people[role].email, org.people[role].password);
   return page;
 }
@@ -46,8 +47,8 @@ describe("review in the browser", () => {
     const page = await signedIn("engineer");
     await page.goto(`${APP_URL}/review`);
     const filters = page.getByRole("form", { name: "Filter the review queue" });
-    await filters.getByLabel("Schedule").selectOption(scheduleId);
-    await filters.getByLabel("Sort").selectOption("utilization");
+    await filters.locator('select[name="scheduleId"]').selectOption(scheduleId);
+    await filters.locator('select[name="sort"]').selectOption("utilization");
     await filters.getByRole("button", { name: "Apply filters" }).click();
     await page.waitForURL((url) => url.searchParams.get("scheduleId") === scheduleId);
     const table = page.getByRole("table", { name: /Members in review/ });
@@ -61,7 +62,7 @@ describe("review in the browser", () => {
     // Too short: refused, with the reason under the field.
     await form.getByLabel("Justification (required)").fill("fine");
     await form.getByRole("button", { name: "Record disposition" }).click();
-    await expect(form.getByText(/needs a written justification/).first().isVisible()).resolves.toBe(true);
+    await form.getByText(/needs a written justification/).first().waitFor();
     const justification = "Invented site check: a prop under the annex stair halves this span; the propped beam passes.";
     await form.getByLabel("Justification (required)").fill(justification);
     await form.getByRole("button", { name: "Record disposition" }).click();
@@ -69,7 +70,7 @@ describe("review in the browser", () => {
     const history = page.getByRole("list", { name: "Disposition history" });
     await expect(history.textContent()).resolves.toContain(justification);
     await expect(page.getByTestId("review-state").textContent()).resolves.toBe("Accepted with justification");
-    await page.close();
+    await page.context().close();
   });
 
   it("a bulk disposition previews its count and records only after confirmation", async () => {
@@ -89,22 +90,22 @@ describe("review in the browser", () => {
     await confirm.getByRole("button", { name: "Confirm: record on 2 members" }).click();
     await expect(confirm.getByRole("status").textContent()).resolves.toMatch(/Recorded "Member to be revised" on 2 members \(bulk bulk_/);
     await page.goto(`${APP_URL}/review?scheduleId=${scheduleId}`);
-    await expect(page.getByText("Nothing matching these filters is waiting for review.").isVisible()).resolves.toBe(true);
+    await page.getByText("Nothing matching these filters is waiting for review.").waitFor();
     await page.goto(`${APP_URL}/review?scheduleId=${scheduleId}&state=member_to_be_revised`);
     await expect(page.getByRole("table", { name: /Members in review/ }).getByRole("rowheader").allInnerTexts()).resolves.toEqual(["A3", "A4"]);
-    await page.close();
+    await page.context().close();
   });
 
   it("a viewer reads the queue and the history but has no way to disposition", async () => {
     const page = await signedIn("viewer");
     await page.goto(`${APP_URL}/review?state=accepted_with_justification`);
-    await expect(page.getByText(/Engineers and administrators record dispositions/).first().isVisible()).resolves.toBe(true);
+    await page.getByText(/Engineers and administrators record dispositions/).first().waitFor();
     await expect(page.getByRole("heading", { name: "Bulk disposition" }).count()).resolves.toBe(0);
     await expect(page.getByRole("form", { name: "Digest e-mail" }).count()).resolves.toBe(0);
     await page.goto(`${APP_URL}/schedules/${scheduleId}/members/A2`);
     await expect(page.getByRole("list", { name: "Disposition history" }).textContent()).resolves.toContain("Invented site check");
     await expect(page.getByRole("form", { name: "Record a disposition" }).count()).resolves.toBe(0);
-    await page.close();
+    await page.context().close();
   });
 
   it("the digest e-mail arrives, and the engineer can change how often it comes", async () => {
@@ -114,13 +115,13 @@ describe("review in the browser", () => {
     const page = await signedIn("engineer");
     await page.goto(`${APP_URL}/review`);
     const form = page.getByRole("form", { name: "Digest e-mail" });
-    await form.getByLabel("Send me the digest").selectOption("daily");
+    await form.locator('select[name="frequency"]').selectOption("daily");
     await form.getByRole("button", { name: "Save" }).click();
     await expect(form.getByRole("status").textContent()).resolves.toContain("preference saved");
     await page.reload();
-    await expect(page.getByRole("form", { name: "Digest e-mail" }).getByLabel("Send me the digest").inputValue()).resolves.toBe("daily");
+    await expect(page.getByRole("form", { name: "Digest e-mail" }).locator('select[name="frequency"]').inputValue()).resolves.toBe("daily");
     const scan = await new AxeBuilder({ page: page as never }).analyze();
     expect(scan.violations.map((v) => `${v.id}: ${v.nodes.length}`)).toEqual([]);
-    await page.close();
+    await page.context().close();
   });
 });
