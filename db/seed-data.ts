@@ -12,6 +12,9 @@ export const demoProject = {
   reference: "BHS-2026-114",
 };
 
+/** The invented drawing reference both demo schedule submissions share (db/seed-schedules.ts). */
+export const demoScheduleReference = "LBD-HB-S-310";
+
 export const demoUsers: { role: Role; name: string; email: string; password: string }[] = [
   { role: "admin", name: "Ines Varga", email: "ines.varga@fernhollow.example", password: "admin-demo-Sagline-1" },
   { role: "engineer", name: "Tomasz Achebe", email: "tomasz.achebe@fernhollow.example", password: "engineer-demo-Sagline-1" },

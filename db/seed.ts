@@ -9,6 +9,9 @@ import { hashPassword } from "@/lib/server/auth/passwords";
 import { createId } from "@/lib/server/ids";
 import { seedDemoCatalogue } from "@/lib/server/criteria/seed-demo-catalogue";
 import { seedDemoEndpoint } from "@/lib/server/webhooks/seed-demo-endpoint";
+import { closeQueues } from "@/workers/queues";
+
+import { seedCheckedSchedules } from "./seed-schedules";
 
 const db = getDb();
 const [{ count }] = (await db.select({ count: sql<number>`count(*)::int` }).from(organizations)) as [{ count: number }];
@@ -38,6 +41,8 @@ if (count > 0) {
       createdByUserId: "usr_demoadmin",
     });
   });
+  // Checked by the real engine: one submission with dispositions on record, a revision awaiting review.
+  await seedCheckedSchedules();
   console.log("[sagline] demo data seeded");
 }
 
@@ -49,4 +54,8 @@ if (process.argv.includes("--print")) {
   for (const u of demoUsers) console.log(`  ${u.role.padEnd(10)} ${u.email.padEnd(38)} ${u.password}`);
   console.log(`\nDemo API key (${demoOrganizations.engineering.name}; ${demoApiKey.scopes.join(", ")}):\n  ${demoApiKey.secret}`);
 }
+await closeQueues();
 await closeDb();
+// The schedules' queue producer keeps its own Redis connection (BullMQ leaves a passed-in
+// connection open on close); everything is written and closed above, so end the process here.
+process.exit(0);

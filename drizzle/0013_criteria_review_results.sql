@@ -1,3 +1,12 @@
+CREATE TABLE "review_digest_sends" (
+	"user_id" text NOT NULL,
+	"organization_id" text NOT NULL,
+	"schedule_id" text NOT NULL,
+	"frequency" text NOT NULL,
+	"sent_at" timestamp with time zone DEFAULT now() NOT NULL,
+	CONSTRAINT "review_digest_sends_user_id_schedule_id_pk" PRIMARY KEY("user_id","schedule_id")
+);
+--> statement-breakpoint
 CREATE TABLE "catalogue_sections" (
 	"catalogue_id" text NOT NULL,
 	"position" integer NOT NULL,
@@ -78,6 +87,9 @@ ALTER TABLE "member_outcomes" ADD COLUMN "quantity" integer;--> statement-breakp
 ALTER TABLE "member_outcomes" ADD COLUMN "spans_mm" double precision[];--> statement-breakpoint
 ALTER TABLE "member_reviews" ADD COLUMN "reference" text;--> statement-breakpoint
 ALTER TABLE "member_reviews" ADD COLUMN "input_hash" text;--> statement-breakpoint
+ALTER TABLE "review_digest_sends" ADD CONSTRAINT "review_digest_sends_user_id_users_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."users"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "review_digest_sends" ADD CONSTRAINT "review_digest_sends_organization_id_organizations_id_fk" FOREIGN KEY ("organization_id") REFERENCES "public"."organizations"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "review_digest_sends" ADD CONSTRAINT "review_digest_sends_schedule_id_schedules_id_fk" FOREIGN KEY ("schedule_id") REFERENCES "public"."schedules"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "catalogue_sections" ADD CONSTRAINT "catalogue_sections_catalogue_id_section_catalogues_id_fk" FOREIGN KEY ("catalogue_id") REFERENCES "public"."section_catalogues"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "limit_profile_versions" ADD CONSTRAINT "limit_profile_versions_profile_id_limit_profiles_id_fk" FOREIGN KEY ("profile_id") REFERENCES "public"."limit_profiles"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "limit_profile_versions" ADD CONSTRAINT "limit_profile_versions_created_by_user_id_users_id_fk" FOREIGN KEY ("created_by_user_id") REFERENCES "public"."users"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
@@ -86,6 +98,7 @@ ALTER TABLE "organization_materials" ADD CONSTRAINT "organization_materials_orga
 ALTER TABLE "schedule_criteria" ADD CONSTRAINT "schedule_criteria_schedule_id_schedules_id_fk" FOREIGN KEY ("schedule_id") REFERENCES "public"."schedules"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "section_catalogues" ADD CONSTRAINT "section_catalogues_organization_id_organizations_id_fk" FOREIGN KEY ("organization_id") REFERENCES "public"."organizations"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "section_catalogues" ADD CONSTRAINT "section_catalogues_created_by_user_id_users_id_fk" FOREIGN KEY ("created_by_user_id") REFERENCES "public"."users"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+CREATE INDEX "review_digest_sends_user_id_sent_at_idx" ON "review_digest_sends" USING btree ("user_id","sent_at");--> statement-breakpoint
 CREATE UNIQUE INDEX "catalogue_sections_catalogue_id_name_key_idx" ON "catalogue_sections" USING btree ("catalogue_id","name_key");--> statement-breakpoint
 CREATE INDEX "limit_profiles_organization_id_idx" ON "limit_profiles" USING btree ("organization_id");--> statement-breakpoint
 CREATE UNIQUE INDEX "organization_materials_organization_id_name_idx" ON "organization_materials" USING btree ("organization_id",lower("name"));--> statement-breakpoint

@@ -112,3 +112,26 @@ export const reviewDigestPreferences = pgTable(
   },
   (t) => [primaryKey({ columns: [t.userId, t.organizationId] })],
 );
+
+/**
+ * Which schedule each person has had in a digest e-mail: one row per person and schedule, written
+ * in the transaction that sends, so a schedule is in exactly one of a person's digests (at least
+ * once: a crash between sending and committing can repeat one).
+ */
+export const reviewDigestSends = pgTable(
+  "review_digest_sends",
+  {
+    userId: text()
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    organizationId: text()
+      .notNull()
+      .references(() => organizations.id, { onDelete: "cascade" }),
+    scheduleId: text()
+      .notNull()
+      .references(() => schedules.id, { onDelete: "cascade" }),
+    frequency: text({ enum: digestFrequencies }).notNull(),
+    sentAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.scheduleId] }), index("review_digest_sends_user_id_sent_at_idx").on(t.userId, t.sentAt)],
+);

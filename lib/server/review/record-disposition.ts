@@ -19,6 +19,21 @@ export interface DispositionRecord {
 }
 
 const SCHEDULE_ID = /^sch_[0-9a-z]{1,40}$/;
+/** Marks are stored text: one PostgreSQL cannot hold (a NUL) or longer than intake allows cannot exist. */
+const isPossibleMark = (mark: string) => mark.length > 0 && mark.length <= 1_000 && !mark.includes("\u0000");
+
+/**
+ * 404 unless the organization has this schedule with this member: checked before a body is read,
+ * so another organization's ids answer exactly like missing ones whatever the body holds.
+ */
+export async function assertMemberExists(organizationId: string, scheduleId: string, mark: string): Promise<void> {
+  if (!SCHEDULE_ID.test(scheduleId)) throw new DomainError("not_found", "The schedule was not found.");
+  if (!isPossibleMark(mark)) throw new DomainError("not_found", "The member was not found.");
+  const [schedule] = await getSql()`select exists (select 1 from schedule_chunks c where c.schedule_id = s.id and ${mark} = any(c.marks)) as has_member
+    from schedules s where s.id = ${scheduleId} and s.organization_id = ${organizationId}`;
+  if (!schedule) throw new DomainError("not_found", "The schedule was not found.");
+  if (!schedule.has_member) throw new DomainError("not_found", `The schedule has no member "${mark.slice(0, 80)}".`);
+}
 
 /**
  * Records one disposition on a member of the organization's schedule: appends the decision (who,
@@ -28,6 +43,7 @@ const SCHEDULE_ID = /^sch_[0-9a-z]{1,40}$/;
  */
 export async function recordDisposition(organizationId: string, scheduleId: string, mark: string, input: DispositionInput, actor: DispositionActor): Promise<DispositionRecord> {
   if (!SCHEDULE_ID.test(scheduleId)) throw new DomainError("not_found", "The schedule was not found.");
+  if (!isPossibleMark(mark)) throw new DomainError("not_found", "The member was not found.");
   const decidedByName = describeActor(actor);
   return getSql().begin(async (tx) => {
     const [review] = await tx`

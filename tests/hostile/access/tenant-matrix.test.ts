@@ -24,7 +24,8 @@ async function createTenant(organizationId: string, mark: string): Promise<Tenan
   const { secret: key } = await createApiKey({ organizationId, name: `tenant matrix ${Date.now()}`, scopes: [...apiKeyScopes], createdBy: { commandLine: true } });
   const other = await createApiKey({ organizationId, name: `tenant matrix target ${Date.now()}`, scopes: ["results:read"], createdBy: { commandLine: true } });
   const auth = { authorization: `Bearer ${key}` };
-  const schedule = await request(APP_URL).post("/api/v1/schedules").set(auth).send(createScheduleDoc([createBeam(mark)], "Invented tenant matrix"));
+  // A 12 m beam under 20 kN/m live fails, so the disposition route has a member in review to decide.
+  const schedule = await request(APP_URL).post("/api/v1/schedules").set(auth).send(createScheduleDoc([createBeam(mark, 12, 20)], "Invented tenant matrix"));
   expect(schedule.status, schedule.text).toBe(202);
   await waitForSchedule(key, schedule.body.id);
   const endpoint = await request(APP_URL).post("/api/v1/webhook-endpoints").set(auth).send({ url: PARTNER_URL, eventTypes: ["schedule.completed"] });
@@ -35,6 +36,7 @@ async function createTenant(organizationId: string, mark: string): Promise<Tenan
 function call(operation: Operation, key: string, ids: Record<string, string>) {
   const path = operation.path.replace(/\{([^}]+)\}/g, (_, name: string) => encodeURIComponent(ids[name] ?? "x"));
   const req = request(APP_URL)[operation.method.toLowerCase() as "get" | "post" | "patch" | "delete"](path).set("authorization", `Bearer ${key}`);
+  if (operation.path.endsWith("/dispositions")) return req.send({ kind: "information_requested", justification: "Invented tenant matrix" });
   return operation.method === "PATCH" ? req.send({ description: "Invented tenant matrix" }) : req;
 }
 
