@@ -23,6 +23,7 @@ export const apiRouteScopes = {
   "GET /api/v1/schedules/[scheduleId]/members/[mark]": "results:read",
   "POST /api/v1/schedules/[scheduleId]/members/[mark]/dispositions": "review:write",
   "GET /api/v1/review": "results:read",
+  "POST /api/v1/schedules/[scheduleId]/recheck": "schedules:write",
 
   "GET /api/v1/limit-profiles": "results:read",
   "POST /api/v1/limit-profiles": "criteria:manage",

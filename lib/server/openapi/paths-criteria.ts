@@ -146,5 +146,21 @@ const catalogueOperations = {
   },
 } satisfies Record<string, Operation>;
 
-/** The organization's engineering criteria: limit profiles, materials, section catalogues. */
-export const criteriaOperations = { ...profileOperations, ...materialOperations, ...catalogueOperations };
+const recheckOperations = {
+  "POST /api/v1/schedules/[scheduleId]/recheck": {
+    operationId: "recheckSchedule",
+    tags: ["Criteria"],
+    summary: "Recheck a schedule with its profile's new version",
+    description:
+      "For a schedule checked against an organization limit profile that has a newer version since: submits the same members again, against the current version, as a new schedule linked to this one (`recheckOf`). The old schedule and its results never change.",
+    parameters: [pathParameter("scheduleId", "The schedule's id (`sch_...`).")],
+    responses: {
+      "202": jsonResponse("The new schedule, queued.", "ScheduleAccepted"),
+      "404": problemResponse("No such schedule in this organization."),
+      "409": problemResponse("Not checked against an organization profile, the profile was removed, or it was checked against the current version already."),
+    },
+  },
+} satisfies Record<string, Operation>;
+
+/** The organization's engineering criteria: limit profiles, materials, section catalogues, and the recheck. */
+export const criteriaOperations = { ...profileOperations, ...materialOperations, ...catalogueOperations, ...recheckOperations };

@@ -115,6 +115,29 @@ describe("a schedule through the API with the organization's catalogue and profi
       ["G-2", "pass"],
       ["G-3", "fail"],
     ]);
+
+    // A new version: the stored results stay; the recheck is a new schedule against version 3.
+    const stored = await api().get(`/api/v1/limit-profiles/${created.body.id}`).set("authorization", `Bearer ${reader}`);
+    expect(stored.body.versions.map((v: { version: number }) => v.version)).toEqual([2, 1]);
+    const definition = structuredClone(stored.body.versions[0].definition) as { combinations: { id: string; limitRatio: number }[] };
+    definition.combinations.find((c) => c.id === "live")!.limitRatio = 100;
+    await api().put(`/api/v1/limit-profiles/${created.body.id}`).set("authorization", `Bearer ${manager}`).send({ label: "Floors, live l/100", source: "in-house", definition });
+    const before = await api().get(`/api/v1/schedules/${submitted.body.id}/members/G-1`).set("authorization", `Bearer ${manager}`);
+    expect(before.body).toEqual(member.body);
+    // a submitting key without criteria:manage may recheck: it is a submission
+    const recheck = await api().post(`/api/v1/schedules/${submitted.body.id}/recheck`).set("authorization", `Bearer ${reader}`);
+    expect(recheck.status).toBe(202);
+    expect(recheck.body).toMatchObject({ id: expect.stringMatching(/^sch_/), status: "queued", memberCount: 1 });
+    const rechecked = await waitForSchedule(manager, recheck.body.id);
+    expect(rechecked).toMatchObject({ status: "completed", profile: { id: `${created.body.id}.v3` } });
+    // the live row of the new version: 8000 mm / 100 = 80 mm allowed, where version 2 allowed 8000 / 360
+    type Check = { combination: string; allowedMm: number; deflectionMm: number };
+    const liveOf = (body: { checks: Check[] }) => body.checks.find((c) => c.combination === "live")!;
+    const again = await api().get(`/api/v1/schedules/${recheck.body.id}/members/G-1`).set("authorization", `Bearer ${manager}`);
+    expect(liveOf(again.body).allowedMm).toBeCloseTo(80, 9);
+    expect(liveOf(member.body).allowedMm).toBeCloseTo(8000 / 360, 9);
+    expect(liveOf(again.body).deflectionMm).toBeCloseTo(liveOf(member.body).deflectionMm, 9);
+    expect((await api().post(`/api/v1/schedules/${recheck.body.id}/recheck`).set("authorization", `Bearer ${manager}`)).status).toBe(409);
   });
 });
 
