@@ -4,6 +4,7 @@
 import request from "supertest";
 import { beforeAll, describe, expect, it } from "vitest";
 
+import { getSql } from "@/db/client";
 import { demoOrganizations } from "@/db/seed-data";
 import { SAFETY_CAUTION } from "@/lib/safety";
 import { encodeResultCursor } from "@/lib/server/schedules/result-query";
@@ -142,5 +143,23 @@ describe("the dashboard's live route", () => {
 
   it("answers 401 without a session", async () => {
     expect((await request(APP_URL).get(`/api/schedules/${scheduleId}/results`)).status).toBe(401);
+  });
+});
+
+describe("the printable record", () => {
+  it("lists the members that did not pass with their decisions as text, and the caution", async () => {
+    const failed = members.find((m) => !m.pass && !m.error && !m.awaitingReview)!;
+    await getSql()`
+      insert into member_dispositions (organization_id, schedule_id, member_index, mark, kind, justification, decided_by_name)
+      values (${demoOrganizations.engineering.id}, ${scheduleId}, ${failed.memberIndex}, ${failed.mark}, 'member_to_be_revised', '<b>deepen</b> the section (invented)', 'Invented Engineer')`;
+    const response = await viewer.get(`/schedules/${scheduleId}/record`);
+    expect(response.status).toBe(200);
+    expect(response.text).toContain(SAFETY_CAUTION);
+    for (const m of members.filter((x) => !x.pass)) expect(response.text).toContain(`>${m.mark}<`);
+    expect(response.text).not.toContain(`>${members.find((x) => x.pass)!.mark}<`);
+    expect(response.text).toContain("&lt;b&gt;deepen&lt;/b&gt; the section (invented)");
+    expect(response.text).toContain("Invented Engineer");
+    expect(response.text).toContain("Awaiting review");
+    expect((await request(APP_URL).get(`/schedules/${scheduleId}/record`).redirects(0)).status).toBe(307);
   });
 });
