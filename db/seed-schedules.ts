@@ -2,6 +2,7 @@
 // real engine through the workers' own code path, with dispositions recorded on the first.
 import { demoOrganizations, demoProject, demoScheduleReference } from "./seed-data";
 import { recordDisposition } from "@/lib/server/review/record-disposition";
+import { SCHEDULE_FORMAT } from "@/lib/vocabulary";
 import { checkChunk } from "@/lib/server/schedules/check-chunk";
 import { submitSchedule } from "@/lib/server/schedules/submit-schedule";
 
@@ -25,12 +26,12 @@ function mezzanineBeam(mark: string, spanM: number, liveKnPerM: number, depthMm 
 
 function scheduleDoc(revision: string, members: unknown[]) {
   return {
-    format: "sagline.schedule/v1",
+    format: SCHEDULE_FORMAT,
     name: `${demoProject.name}: mezzanine beams, rev ${revision}`,
     reference: demoScheduleReference,
     notes: "Invented example for the demo: the firms, people, project and drawings do not exist.",
     units: { system: "SI", length: "m", sectionDimension: "mm", distributedLoad: "kN/m", force: "kN" },
-    limits: { preset: "ibc-2021-floor" },
+    profile: { preset: "ibc-2021-floor" },
     members,
   };
 }

@@ -15,7 +15,7 @@ const profileOperations = {
     operationId: "listLimitProfiles",
     tags: ["Criteria"],
     summary: "List limit profiles",
-    description: 'The organization\'s own limit profiles. A schedule names one as `limits: {"profile": "lp_..."}` (CSV: `limits=lp_...`) and records the version it was checked against.',
+    description: 'The organization\'s own limit profiles. A schedule names one as `profile: {"id": "lp_..."}` (CSV: `profile=lp_...`) and records the version it was checked against.',
     responses: { "200": jsonResponse("Each profile at its current version.", "LimitProfileList") },
   },
   "POST /api/v1/limit-profiles": {
