@@ -81,7 +81,7 @@ describe("API keys in the console", () => {
     expect(response?.status()).toBe(200);
     await expect(page.getByRole("complementary", { name: "Safety caution" }).isVisible()).resolves.toBe(true);
     await expect(page.getByRole("link", { name: "/api/templates/schedule.csv" }).isVisible()).resolves.toBe(true);
-    await expect(page.getByRole("article", { name: "POST /api/v1/schedules" }).isVisible()).resolves.toBe(true);
+    await expect(page.getByRole("article", { name: "POST /api/v1/schedules", exact: true }).isVisible()).resolves.toBe(true);
     await page.close();
   });
 });

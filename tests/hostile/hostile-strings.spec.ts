@@ -67,6 +67,8 @@ describe("hostile marks and notes in the dashboard", () => {
     for (const mark of hostileMarks.slice(0, 3)) {
       const response = await page.goto(`${APP_URL}/schedules/${scheduleId}/members/${encodeURIComponent(mark)}`);
       expect(response?.status(), mark).toBe(200);
+      // The page streams in after its loading state: wait for the record, then read.
+      await page.getByTestId("record-summary").waitFor({ timeout: 60_000 });
       expect(await page.getByText(mark, { exact: true }).count(), mark).toBeGreaterThan(0);
       expect(await page.locator("main").innerText()).toContain('<svg onload="window.__pwned=');
       await expectNothingRan();

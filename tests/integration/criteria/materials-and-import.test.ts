@@ -30,7 +30,7 @@ describe("organization materials", () => {
     const { id } = await submitSchedule({ organizationId, source: "api-json", doc: createScheduleDoc([steel, own]) });
     await updateOrganizationMaterial(organizationId, material.id, { ...input, eMpa: 1_000_000 });
     await checkChunk(id, 0);
-    const rows = await getSql()`select member_index, deflection_mm from member_checks where schedule_id = ${id} and check_key like 'live@%' order by member_index`;
+    const rows = await getSql()`select member_index, deflection_mm from member_checks where schedule_id = ${id} and check_key = 'live, span 1' order by member_index`;
     // deflection scales with 1/E (AISC Steel Construction Manual Table 3-23, case 1: 5wL^4/384EI):
     // S355 has E = 210,000 MPa (EN 1993-1-1 3.2.6), the material as submitted 100,000 MPa
     expect((rows[1]!.deflection_mm as number) / (rows[0]!.deflection_mm as number)).toBeCloseTo(210_000 / 100_000, 9);

@@ -40,7 +40,7 @@ describe("organization limit profiles and their versions", () => {
     expect(before.criteria).toEqual({ profile_id: profile.id, profile_version: 1, recheck_of_schedule_id: null });
     expect((before.schedule!.profile as { id: string }).id).toBe(`${profile.id}.v1`);
     // the live row of the copied preset: l/360 (IBC 2021 Table 1604.3, floor members)
-    const liveBefore = before.checks.find((c) => c.member_index === 0 && String(c.check_key).startsWith("live@"));
+    const liveBefore = before.checks.find((c) => c.member_index === 0 && c.check_key === "live, span 1");
     expect(liveBefore!.allowed_mm).toBeCloseTo(6000 / 360, 9);
 
     // The edit: the live row made stricter, l/1000.
@@ -69,7 +69,7 @@ describe("organization limit profiles and their versions", () => {
     const after = await readStored(recheck.id);
     expect(after.criteria).toEqual({ profile_id: profile.id, profile_version: 2, recheck_of_schedule_id: first.id });
     expect((after.schedule!.profile as { id: string }).id).toBe(`${profile.id}.v2`);
-    const liveAfter = after.checks.find((c) => c.member_index === 0 && String(c.check_key).startsWith("live@"));
+    const liveAfter = after.checks.find((c) => c.member_index === 0 && c.check_key === "live, span 1");
     expect(liveAfter!.allowed_mm).toBeCloseTo(6000 / 1000, 9);
     // same member, same loads: the same deflection judged against the new limit
     expect(liveAfter!.deflection_mm).toBeCloseTo(liveBefore!.deflection_mm as number, 9);

@@ -144,10 +144,20 @@ describe("event bodies", () => {
   it("sends member.dispositioned as the review flow wrote it", async () => {
     const receiver = await startReceiver();
     const endpoint = await insertEndpoint(org.organizationId, receiver.url);
-    const payload = { scheduleId: "sch_review1", mark: "B-07", disposition: "accepted-as-is", by: "Tomasz Achebe", note: "Checked against site survey." };
+    const payload = {
+      dispositionId: "dsp_1",
+      scheduleId: "sch_review1",
+      reference: null,
+      mark: "B-07",
+      disposition: "accepted_with_justification",
+      by: "Tomasz Achebe",
+      note: "Checked against site survey.",
+      decidedAt: "2026-12-02T07:00:00.000Z",
+      bulkId: null,
+    };
     const { deliveryId } = await insertDelivery(org.organizationId, endpoint.id, "member.dispositioned", payload);
     expect((await attemptDelivery({ deliveryId, attemptNumber: 1 }, depsFor(receiver.port))).kind).toBe("succeeded");
-    expect(verifyWith(endpoint.secret, receiver.received[0]!)).toEqual({ type: "member.dispositioned", timestamp: expect.any(String), data: payload });
+    expect(verifyWith(endpoint.secret, receiver.received[0]!)).toEqual({ type: "member.dispositioned", timestamp: expect.any(String), data: { ...payload, memberUrl: expect.stringMatching(/\/api\/v1\/schedules\/sch_review1\/members\/B-07$/) } });
     await receiver.close();
   });
 
@@ -156,7 +166,7 @@ describe("event bodies", () => {
     const endpoint = await insertEndpoint(org.organizationId, receiver.url);
     const { deliveryId } = await insertDelivery(org.organizationId, endpoint.id, "member.dispositioned", { scheduleId: "sch_x", mark: "" });
     const outcome = await attemptDelivery({ deliveryId, attemptNumber: 1 }, depsFor(receiver.port));
-    expect(outcome).toMatchObject({ kind: "retry", statusCode: null, error: expect.stringContaining("payload is malformed (mark, disposition, by)") });
+    expect(outcome).toMatchObject({ kind: "retry", statusCode: null, error: expect.stringContaining("payload is malformed (dispositionId, mark, disposition, by, decidedAt)") });
     expect(receiver.received).toHaveLength(0);
     await receiver.close();
   });

@@ -157,10 +157,11 @@ describe("a schedule submitted through the API", () => {
       return d.length === 2 ? d : null;
     });
     expect(downloads.map(({ format, status, lines }) => ({ format, status, lines }))).toEqual([
-      { format: "csv", status: 200, lines: 3 },
+      // the header, the two rows and the safety caution line
+      { format: "csv", status: 200, lines: 4 },
       { format: "ndjson", status: 200, lines: 2 },
     ]);
-    expect(downloads[0]!.firstLine).toBe("mark,category,status,governing_check,utilization,factor_of_safety,limit_ratio,achieved_ratio,notes");
+    expect(downloads[0]!.firstLine).toBe("mark,category,status,governing_check,utilization,factor_of_safety,limit_ratio,achieved_ratio,notes,deflection_mm,allowed_deflection_mm,section,material,quantity,spans_mm,review_state");
     expect(downloads[1]!.contentType).toMatch(/^application\/x-ndjson/);
     expect(JSON.parse(downloads[1]!.firstLine)).toMatchObject({ mark: "W-01", status: "pass" });
 

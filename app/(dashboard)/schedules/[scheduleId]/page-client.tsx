@@ -5,6 +5,7 @@ import { useQuery } from "@tanstack/react-query";
 import { fetchJson } from "@/components/data/fetch-json";
 import { QueryProvider } from "@/components/data/query-provider";
 import type { ResultsView } from "@/lib/server/schedules/results-view";
+import { formatOutcomeCount } from "@/lib/vocabulary";
 
 import { isScheduleFinished } from "../_components/format";
 import type { OptionalColumn } from "../_components/result-columns";
@@ -48,8 +49,8 @@ function ResultsLive(props: ResultsLiveViewProps) {
         </span>
         <span className="text-ink-soft">
           {" "}
-          · {s.checked.toLocaleString("en-GB")} of {s.members.toLocaleString("en-GB")} checked · {s.passed.toLocaleString("en-GB")} passed · {s.failed.toLocaleString("en-GB")} failed ·{" "}
-          {s.errors.toLocaleString("en-GB")} errors{running ? " · updating while the workers check" : ""}
+          · {s.checked.toLocaleString("en-GB")} of {s.members.toLocaleString("en-GB")} checked · {formatOutcomeCount(s.passed, "pass")} · {formatOutcomeCount(s.failed, "fail")} ·{" "}
+          {formatOutcomeCount(s.errors, "error")}{running ? " · updating while the workers check" : ""}
         </span>
       </p>
       {query.isError ? (

@@ -7,6 +7,7 @@ import { listFailureRecord } from "@/db/queries/results";
 import { getSchedule } from "@/db/queries/schedules";
 import { requirePage } from "@/lib/server/auth/guards";
 import { getRequestContext } from "@/lib/server/auth/request-context";
+import { formatOutcomeCount } from "@/lib/vocabulary";
 
 import { formatDateTime } from "../../../_components/format-date-time";
 import { categoryLabels, formatCheckKey, formatRatio, formatSpanRatio, scheduleStatusLabels } from "../../_components/format";
@@ -58,7 +59,7 @@ export default async function ScheduleRecordPage({ params }: RecordPageProps) {
         </dd>
         <dt className="font-medium">Outcomes</dt>
         <dd>
-          {schedule.passCount.toLocaleString("en-GB")} passed, {schedule.failCount.toLocaleString("en-GB")} failed, {schedule.errorCount.toLocaleString("en-GB")} errors
+          {formatOutcomeCount(schedule.passCount, "pass")} · {formatOutcomeCount(schedule.failCount, "fail")} · {formatOutcomeCount(schedule.errorCount, "error")}
         </dd>
         <dt className="font-medium">Limit profile</dt>
         <dd className="[overflow-wrap:anywhere]">
