@@ -24,8 +24,7 @@ import type { SpanJudgement } from "../checks/span-groups";
 import type { SpanExtreme } from "../solver/deflection-field";
 import { EngineInputError } from "../solver/engine-input-error";
 import { findCombinedSpanExtreme, getCombinedNodeDeflection, getCombinedNodeRotation, type DeflectionTerm } from "./combined-deflection";
-import { needsHoggingAssumption } from "./cracked-section";
-import { createArrangedFactors, getMemberHoggingLayout, solveCrackedState, type CrackedState, type LoadArrangement } from "./cracked-state";
+import { createArrangedFactors, solveCrackedState, type CrackedState, type LoadArrangement } from "./cracked-state";
 
 /** Load cases that are always present: the dead load (self-weight goes to it). */
 export const PERMANENT_CASE_FACTORS: Readonly<Record<string, number>> = { dead: 1 };
@@ -171,32 +170,16 @@ export function evaluateCrackedDeflectionChecks(member: Member, profile: LimitPr
   return { checks, rotations, combinationTerms, states: statesByKey, solveState };
 }
 
-/** Said when a span between supports without top steel took a hogging moment (cracked-section.ts HoggingLayout). */
-export const HOGGING_ASSUMPTION_NOTE =
-  "top steel not given: where hogging (negative) moment governs a span's I_e, the bottom tension steel is taken at the same depth from the top face, with no compression steel (the lower I_cr of that assumption); if the top steel is less than the bottom steel the deflection is understated: give topSteel and topDepth";
-
-/** Whether a load level used the hogging assumption: a reinforced span without top steel governed by a negative moment. */
-function usesHoggingAssumption(member: Member, state: CrackedState): boolean {
-  for (let index = 0; index < member.spans.length; index++) {
-    const section = member.spans[index]!.reinforcedConcrete;
-    if (section !== undefined && needsHoggingAssumption(section) && (state.serviceMomentNmm[index] as number) < 0) return true;
-  }
-  return false;
-}
-
 /**
- * The member's cracked notes: lowest I_e / I_g, a non-convergence warning, and the hogging
- * assumption when it was used (HOGGING_ASSUMPTION_NOTE). Call after every arrangement is solved.
+ * The member's cracked notes: lowest I_e / I_g and a non-convergence warning. Call after every
+ * arrangement is solved.
  */
 export function describeCrackedEvaluation(member: Member, evaluation: CrackedEvaluation): string[] {
   let lowest = Infinity;
   let lowestSpan = 0;
   let converged = true;
-  let hoggingAssumed = false;
-  const assumptionApplies = getMemberHoggingLayout(member) === "tension_only";
   for (const state of evaluation.states.values()) {
     converged = converged && state.converged;
-    if (assumptionApplies && !hoggingAssumed) hoggingAssumed = usesHoggingAssumption(member, state);
     member.spans.forEach((span, index) => {
       if (span.reinforcedConcrete === undefined) return;
       const ratio = (state.inertiaMm4[index] as number) / span.iMm4;
@@ -210,6 +193,5 @@ export function describeCrackedEvaluation(member: Member, evaluation: CrackedEva
     `cracked section: I_e per ACI 318-19 Table 24.2.3.5 at each combination's service moment; lowest I_e = ${lowest.toFixed(2)} I_g (span index ${lowestSpan})`,
   ];
   if (!converged) notes.push("cracked section: the I_e iteration did not settle; each span took the lower of its last two I_e values (conservative)");
-  if (hoggingAssumed) notes.push(HOGGING_ASSUMPTION_NOTE);
   return notes;
 }

@@ -75,23 +75,17 @@ function getCompressionBlock(section: ReinforcedConcreteSection, sign: MomentSig
 }
 
 /**
- * Which steel resists a hogging (negative) moment, depths from the bottom face:
- * - "given": the layout as given, tension steel at d and compression steel at d' (the layout of a
- *   cantilever member, whose given steel is its top steel);
- * - "tension_only": a span between supports given without top steel: its bottom tension steel
- *   taken at the same d from the bottom face, without any compression steel. The top steel is
- *   unknown; of the mirrored layout this is the lower I_cr (the conservative side), and the
- *   member's result says so.
- * Top steel, when the section gives it (topSteelMm2), always wins: A_s,top at d_top, with the
- * bottom tension steel as compression steel at h - d.
+ * Which steel resists a hogging (negative) moment, depths from the bottom face. With top steel
+ * (topSteelMm2): A_s,top at d_top in tension, the bottom tension steel at h - d in compression.
+ * Without it, the layout as given: the layout of a member of overhangs only, whose given steel is
+ * its top steel (model.ts). A span between supports without top steel never gets here with a
+ * cracking hogging moment: hogging-causes.ts and cracked-state.ts refuse it.
  */
-export type HoggingLayout = "given" | "tension_only";
-
-function hasTopSteel(section: ReinforcedConcreteSection): boolean {
+export function hasTopSteel(section: ReinforcedConcreteSection): boolean {
   return section.topSteelMm2 !== undefined && section.topEffectiveDepthMm !== undefined;
 }
 
-function getSteelLayers(section: ReinforcedConcreteSection, sign: MomentSign, hogging: HoggingLayout): SteelLayer[] {
+function getSteelLayers(section: ReinforcedConcreteSection, sign: MomentSign): SteelLayer[] {
   if (sign === "hogging" && hasTopSteel(section)) {
     return [
       { areaMm2: section.topSteelMm2!, depthMm: section.topEffectiveDepthMm! },
@@ -99,16 +93,10 @@ function getSteelLayers(section: ReinforcedConcreteSection, sign: MomentSign, ho
     ];
   }
   const layers: SteelLayer[] = [{ areaMm2: section.tensionSteelMm2, depthMm: section.effectiveDepthMm }];
-  if (sign === "hogging" && hogging === "tension_only") return layers;
   if (section.compressionSteelMm2 !== undefined && section.compressionDepthMm !== undefined) {
     layers.push({ areaMm2: section.compressionSteelMm2, depthMm: section.compressionDepthMm });
   }
   return layers;
-}
-
-/** Whether a hogging moment on this section needs the "tension_only" assumption (no top steel given). */
-export function needsHoggingAssumption(section: ReinforcedConcreteSection): boolean {
-  return !hasTopSteel(section);
 }
 
 /** Transformed factor of a steel layer: n - 1 above the neutral axis (in compressed concrete), n below. */
@@ -166,12 +154,12 @@ function findNeutralAxisMm(block: CompressionBlock, layers: SteelLayer[], modula
  * (flange term only while kd > h_f; b_f kd^3/3 when kd <= h_f), n = E_s / E_c. A compression layer
  * that falls below the neutral axis is counted as tension steel (n A's). Under hogging a flanged
  * section is taken as its web alone (flange cracked), which is conservative, and the steel is that
- * of HoggingLayout (the top steel when given).
+ * of getSteelLayers (the top steel when given).
  */
-export function getCrackedSection(section: ReinforcedConcreteSection, concreteEMpa: number, sign: MomentSign, hogging: HoggingLayout = "given"): CrackedSection {
+export function getCrackedSection(section: ReinforcedConcreteSection, concreteEMpa: number, sign: MomentSign): CrackedSection {
   const modularRatio = section.steelEMpa / concreteEMpa;
   const block = getCompressionBlock(section, sign);
-  const layers = getSteelLayers(section, sign, hogging);
+  const layers = getSteelLayers(section, sign);
   const kd = findNeutralAxisMm(block, layers, modularRatio, section.depthMm);
   const flangeDepth = Math.min(kd, block.overhangDepthMm);
   let iCrMm4 = (block.widthMm * kd ** 3) / 3 + (block.overhangWidthMm * (kd ** 3 - (kd - flangeDepth) ** 3)) / 3;

@@ -9,8 +9,9 @@ import { createCaseFactors, type CaseFactors } from "../solver/deflection-field"
 import { findSpanMomentExtreme } from "../solver/moment-field";
 import { solveValidatedMember, type MemberSolution, type PatternSplit } from "../solver/solve-member";
 import { getSpanJudgements } from "../checks/span-groups";
-import { getCrackedSection, getCrackingMomentNmm, getGrossConcreteProperties, type HoggingLayout, type MomentSign } from "./cracked-section";
-import { getEffectiveInertiaMm4 } from "./effective-inertia";
+import { EngineInputError } from "../solver/engine-input-error";
+import { getCrackedSection, getCrackingMomentNmm, getGrossConcreteProperties, hasTopSteel, type MomentSign } from "./cracked-section";
+import { getEffectiveInertiaMm4, UNCRACKED_MOMENT_SHARE } from "./effective-inertia";
 
 /** Most solves per load level; then the lower of the last two iterates is used (and said). */
 export const MAX_CRACKED_ITERATIONS = 30;
@@ -66,9 +67,8 @@ interface SpanCrackingFacts {
   iGMm4: number;
   mCrNmm: number;
   iCrSaggingMm4: number;
-  /** I_cr under hogging with the layout as given, and with the "tension_only" assumption (cracked-section.ts HoggingLayout). */
+  /** I_cr under hogging: the top steel when given, else the layout as given (cracked-section.ts getSteelLayers). */
   iCrHoggingMm4: number;
-  iCrHoggingTensionOnlyMm4: number;
 }
 
 // Section facts depend only on the section and E_c: computed once per distinct section object.
@@ -87,7 +87,6 @@ function getSpanCrackingFacts(section: ReinforcedConcreteSection, concreteEMpa: 
       mCrNmm: getCrackingMomentNmm(section),
       iCrSaggingMm4: getCrackedSection(section, concreteEMpa, "sagging").iCrMm4,
       iCrHoggingMm4: getCrackedSection(section, concreteEMpa, "hogging").iCrMm4,
-      iCrHoggingTensionOnlyMm4: getCrackedSection(section, concreteEMpa, "hogging", "tension_only").iCrMm4,
     };
     byModulus.set(concreteEMpa, facts);
   }
@@ -96,33 +95,55 @@ function getSpanCrackingFacts(section: ReinforcedConcreteSection, concreteEMpa: 
 
 /**
  * I_e of a reinforced span at service moment M_a (N*mm, + sagging): Table 24.2.3.5 with the
- * cracked section for the moment's sign (under hogging, the top steel when the section gives it,
- * else the `hogging` layout: cracked-section.ts HoggingLayout). The span's own largest moment sets
- * one uniform I_e for the whole span: the lowest I_e that 24.2.3.6 and 24.2.3.7 (averaging, or the
- * midspan value) could give, hence conservative (from memory).
+ * cracked section for the moment's sign (under hogging, the top steel when the section gives it:
+ * cracked-section.ts getSteelLayers). The span's largest moment, of either sign, sets one uniform
+ * I_e for the whole span (common practice; 24.2.3.7 permits the midspan value for simple and
+ * continuous spans and the support value for cantilevers, from memory).
  */
-export function getSpanEffectiveInertiaMm4(section: ReinforcedConcreteSection, concreteEMpa: number, momentNmm: number, hogging: HoggingLayout = "given"): number {
+export function getSpanEffectiveInertiaMm4(section: ReinforcedConcreteSection, concreteEMpa: number, momentNmm: number): number {
   const facts = getSpanCrackingFacts(section, concreteEMpa);
   const sign: MomentSign = momentNmm >= 0 ? "sagging" : "hogging";
-  const iCr = sign === "sagging" ? facts.iCrSaggingMm4 : hogging === "tension_only" ? facts.iCrHoggingTensionOnlyMm4 : facts.iCrHoggingMm4;
-  return getEffectiveInertiaMm4(facts.iGMm4, iCr, facts.mCrNmm, momentNmm);
+  return getEffectiveInertiaMm4(facts.iGMm4, sign === "sagging" ? facts.iCrSaggingMm4 : facts.iCrHoggingMm4, facts.mCrNmm, momentNmm);
 }
 
 /**
- * The hogging layout of a member's spans without top steel: the given layout for a member of
- * overhangs only (a cantilever's given steel is its top steel, model.ts), else "tension_only":
- * in a member with a span between supports the given layout is that span's bottom steel.
+ * Whether the member has a span between supports. Its given steel is then bottom steel; in a
+ * member of overhangs only it is top steel (model.ts ReinforcedConcreteSection).
  */
-export function getMemberHoggingLayout(member: Member): HoggingLayout {
-  for (const judgement of getSpanJudgements(member)) if (judgement.spanKind === "span") return "tension_only";
-  return "given";
+function hasSpanBetweenSupports(member: Member): boolean {
+  for (const judgement of getSpanJudgements(member)) if (judgement.spanKind === "span") return true;
+  return false;
 }
 
-function getNextInertia(member: Member, hogging: HoggingLayout, solution: MemberSolution, factors: CaseFactors, current: readonly number[], moments: number[]): number[] {
+/**
+ * Refuses a solved state in which a span cracks under a moment whose tension steel was not given:
+ * hogging in a member with a span between supports and no top steel, or sagging (net uplift) in a
+ * member of overhangs only and no top steel (its given steel is its top steel). Guessing that
+ * steel could overstate the stiffness, the unsafe side. Below (2/3) M_cr, I_e = I_g whatever the
+ * steel, so nothing is missing.
+ */
+function assertTensionSteelKnown(member: Member, moments: readonly number[]): void {
+  const betweenSupports = hasSpanBetweenSupports(member);
+  member.spans.forEach((span, index) => {
+    const section = span.reinforcedConcrete;
+    if (section === undefined || hasTopSteel(section)) return;
+    const moment = moments[index] as number;
+    const hogging = moment < 0;
+    if (hogging !== betweenSupports) return;
+    if (!(Math.abs(moment) > UNCRACKED_MOMENT_SHARE * getSpanCrackingFacts(section, span.eMpa).mCrNmm)) return;
+    const path = `spans[${index}].reinforcedConcrete.topSteelMm2`;
+    const message = betweenSupports
+      ? "is required: a hogging (negative) moment past (2/3) M_cr governs this span's cracked stiffness (ACI 318-19 24.2.3.5); give topSteel (area) and topDepth (d_top, from the bottom face)"
+      : "is required: this overhang sags (net upward load) past (2/3) M_cr, and in a member of overhangs only the given steel is the top steel; give topSteel and topDepth for the top steel, and the bottom steel as tensionSteel and effectiveDepth";
+    throw new EngineInputError([{ path, message }]);
+  });
+}
+
+function getNextInertia(member: Member, solution: MemberSolution, factors: CaseFactors, current: readonly number[], moments: number[]): number[] {
   return member.spans.map((span, index) => {
     const moment = findSpanMomentExtreme(solution, factors, index).momentNmm;
     moments[index] = moment;
-    return span.reinforcedConcrete === undefined ? (current[index] as number) : getSpanEffectiveInertiaMm4(span.reinforcedConcrete, span.eMpa, moment, hogging);
+    return span.reinforcedConcrete === undefined ? (current[index] as number) : getSpanEffectiveInertiaMm4(span.reinforcedConcrete, span.eMpa, moment);
   });
 }
 
@@ -143,18 +164,21 @@ function getLargestRelativeChange(a: readonly number[], b: readonly number[]): n
 export function solveCrackedState(member: Member, stateFactors: Record<string, number>, arrangement?: LoadArrangement): CrackedState {
   let inertia = member.spans.map((span) => span.iMm4);
   const moments = member.spans.map(() => 0);
-  const hogging = getMemberHoggingLayout(member);
   for (let iteration = 1; iteration <= MAX_CRACKED_ITERATIONS; iteration++) {
     const solution = solveValidatedMember(createMemberWithInertia(member, inertia), arrangement?.split);
     const factors = createArrangedFactors(solution, stateFactors, arrangement);
-    const next = getNextInertia(member, hogging, solution, factors, inertia, moments);
-    if (getLargestRelativeChange(inertia, next) <= CRACKED_TOLERANCE) return { solution, factors, inertiaMm4: inertia, serviceMomentNmm: moments, converged: true };
+    const next = getNextInertia(member, solution, factors, inertia, moments);
+    if (getLargestRelativeChange(inertia, next) <= CRACKED_TOLERANCE) {
+      assertTensionSteelKnown(member, moments);
+      return { solution, factors, inertiaMm4: inertia, serviceMomentNmm: moments, converged: true };
+    }
     if (iteration === MAX_CRACKED_ITERATIONS) inertia = inertia.map((value, index) => Math.min(value, next[index] as number));
     else inertia = next;
   }
   const solution = solveValidatedMember(createMemberWithInertia(member, inertia), arrangement?.split);
   const factors = createArrangedFactors(solution, stateFactors, arrangement);
-  getNextInertia(member, hogging, solution, factors, inertia, moments);
+  getNextInertia(member, solution, factors, inertia, moments);
+  assertTensionSteelKnown(member, moments);
   return { solution, factors, inertiaMm4: inertia, serviceMomentNmm: moments, converged: false };
 }
 

@@ -1,5 +1,6 @@
 import type { InputIssue, Member, ReinforcedConcreteSection } from "../model";
 import { isPositiveFinite } from "../solver/validate-member";
+import { describeMissingTopSteel, findHoggingCause, findSpansWithoutTopSteel } from "./hogging-causes";
 
 /** Largest tension steel ratio A_s / (b_w d) accepted; above it the input is almost surely a unit slip (ACI 318 columns stop at 0.08). */
 export const MAX_TENSION_STEEL_RATIO = 0.08;
@@ -46,19 +47,31 @@ function collectGeometryIssues(section: ReinforcedConcreteSection, path: string,
 /**
  * Adds the problems in the reinforced concrete data of a member's spans to `issues` (paths
  * `spans[i].reinforcedConcrete.field`) and returns it: positive finite numbers, d < h, d' < d,
- * flange and compression steel given whole, a plausible steel ratio. Adds nothing when no span is
- * reinforced (and allocates nothing: this runs for every member).
+ * flange and compression steel given whole, a plausible steel ratio, and top steel wherever the
+ * member can hog (hogging-causes.ts). Adds nothing when no span is reinforced (and allocates
+ * nothing: this runs for every member).
  */
 export function collectReinforcementIssues(member: Member, issues: InputIssue[] = []): InputIssue[] {
   if (!Array.isArray(member.spans)) return issues;
+  let reinforced = false;
   for (let index = 0; index < member.spans.length; index++) {
     const section = member.spans[index]!.reinforcedConcrete;
     if (section === undefined) continue;
+    reinforced = true;
     const path = `spans[${index}].reinforcedConcrete`;
     const before = issues.length;
     for (const field of REQUIRED_POSITIVE) if (!isPositiveFinite(section[field])) issues.push({ path: `${path}.${field}`, message: "must be a positive finite number" });
     for (const field of OPTIONAL_POSITIVE) if (section[field] !== undefined && !isPositiveFinite(section[field])) issues.push({ path: `${path}.${field}`, message: "must be a positive finite number" });
     if (issues.length === before) collectGeometryIssues(section, path, issues);
   }
+  if (reinforced && issues.length === 0) collectTopSteelIssues(member, issues);
   return issues;
+}
+
+function collectTopSteelIssues(member: Member, issues: InputIssue[]): void {
+  const missing = findSpansWithoutTopSteel(member);
+  if (missing.length === 0) return;
+  const cause = findHoggingCause(member);
+  if (cause === null) return;
+  for (const index of missing) issues.push({ path: `spans[${index}].reinforcedConcrete.topSteelMm2`, message: describeMissingTopSteel(cause) });
 }

@@ -5,6 +5,7 @@ import { MAX_LOADS_PER_MEMBER, readLoad } from "./read-loads";
 import { CONCRETE_DEAD_ONLY_NOTE, readMaterial, resolveMemberCreep, type MemberCreep } from "./read-material";
 import { readSection, type ResolvedSection } from "./read-section";
 import { createReinforcedSection, readReinforcement, resolveReinforcedCreepFactor, type ReinforcementInput } from "./read-reinforcement";
+import { describeMissingTopSteel, findHoggingCause, findSpansWithoutTopSteel } from "../concrete/hogging-causes";
 import {
   childPath,
   createFieldSpec,
@@ -320,6 +321,7 @@ export function readMember(
   if (selfWeight === null || withShear === null || memberCreep === null || memberCreep === undefined) return null;
   const member = createMember(mark, category, quantity, fullSupports, segments, loads, selfWeight, withShear, memberCreep, section, material);
   addConcreteFacts(member, segments, reinforced);
+  if (!requireTopSteel(ctx, member, segments)) return null;
   return {
     member,
     origins: createOrigins(path, segments, supports, left !== "none", right !== "none"),
@@ -394,6 +396,24 @@ function addConcreteFacts(member: Member, segments: readonly SegmentDraft[], rei
     if (section !== null) member.spans[index]!.reinforcedConcrete = section;
     else if (segment.material.family === "concrete" && segment.section.explicit !== true) member.concreteGrossSection = true;
   }
+}
+
+/**
+ * Records `reinforcement.topSteel` as missing, once per reinforcement block, when the member can
+ * hog in a span between supports (hogging-causes.ts); true when nothing is missing.
+ */
+function requireTopSteel(ctx: ReadContext, member: Member, segments: readonly SegmentDraft[]): boolean {
+  const missing = findSpansWithoutTopSteel(member);
+  if (missing.length === 0) return true;
+  const cause = findHoggingCause(member);
+  if (cause === null) return true;
+  const paths = new Set<FieldPath>();
+  for (const index of missing) {
+    const reinforcement = segments[index]?.reinforcement;
+    if (reinforcement) paths.add(reinforcement.path);
+  }
+  for (const path of paths) ctx.issues.add(childPath(path, "topSteel"), describeMissingTopSteel(cause));
+  return false;
 }
 
 function createOrigins(path: string, segments: readonly SegmentDraft[], listed: readonly unknown[], hasLeft: boolean, hasRight: boolean): MemberOrigins {

@@ -52,8 +52,8 @@ const goodDocuments: [string, unknown][] = [
   ["reinforced concrete on a tee, with compression steel and a span's own reinforcement", createDoc({
     material: "concrete-fc30",
     section: { shape: "tee", bf: 1200, hf: 100, bw: 300, h: 600 },
-    reinforcement: { tensionSteel: 2000, effectiveDepth: 530, compressionSteel: 400, compressionDepth: 60 },
-    spans: [6, { length: 5, reinforcement: { tensionSteel: { value: 2.5, unit: "in^2" }, effectiveDepth: 540, steelE: { value: 200, unit: "GPa" } } }],
+    reinforcement: { tensionSteel: 2000, effectiveDepth: 530, compressionSteel: 400, compressionDepth: 60, topSteel: 1600, topDepth: 540 },
+    spans: [6, { length: 5, reinforcement: { tensionSteel: { value: 2.5, unit: "in^2" }, effectiveDepth: 540, topSteel: 1200, topDepth: 540, steelE: { value: 200, unit: "GPa" } } }],
     supports: ["pinned", "pinned", "roller"],
     creep: { method: "aci", durationMonths: 12 },
   }, { profile: { preset: "aci-318-19-floor" } })],

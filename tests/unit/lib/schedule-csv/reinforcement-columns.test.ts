@@ -34,6 +34,16 @@ describe("reinforced concrete columns", () => {
     expect(parsed.schedule.members[0]!.spans[0]?.reinforcedConcrete).toMatchObject({ topSteelMm2: 2454, topEffectiveDepthMm: 545 });
   });
 
+  it("a row that can hog without top_steel is refused on its row, naming the cause", () => {
+    const { result, parsed } = parse(["RB3,floor_beam,1,concrete-fc30,,tee,1200,100,300,600,2000,530,,,7.5,fixed roller,18,12"]);
+    expect(parsed.ok).toBe(false);
+    if (parsed.ok) return;
+    const [error] = parsed.issues.map((issue) => mapIssueToCsvRow(issue, result.places));
+    // the row's reinforcement columns, with the missing field named in the message
+    expect(error).toMatchObject({ row: 2, column: "tension_steel [mm^2]" });
+    expect(error!.message).toMatch(/^reinforcement\.topSteel: is required because it has a fixed end: .*CSV columns top_steel and top_depth$/);
+  });
+
   it("an effective depth beyond h is an error on that row's effective_depth column", () => {
     const { result, parsed } = parse([
       "RB1,floor_beam,1,concrete-fc30,,tee,1200,100,300,600,2000,530,,,7.5,pinned roller,18,12",

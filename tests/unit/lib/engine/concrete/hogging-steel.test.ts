@@ -10,7 +10,7 @@
 import { describe, expect, it } from "vitest";
 import { checkMember } from "../../../../../lib/engine/check-member";
 import { getCrackedSection, getCrackingMomentNmm } from "../../../../../lib/engine/concrete/cracked-section";
-import { HOGGING_ASSUMPTION_NOTE } from "../../../../../lib/engine/concrete/cracked-evaluation";
+import { solveCrackedState } from "../../../../../lib/engine/concrete/cracked-state";
 import { EngineInputError } from "../../../../../lib/engine/solver";
 import type { LimitProfile, Member, ReinforcedConcreteSection } from "../../../../../lib/engine/model";
 
@@ -43,9 +43,8 @@ describe("cracked section under hogging", () => {
     expect(getCrackedSection(WITH_TOP, EC_MPA, "sagging").iCrMm4).toBe(getCrackedSection(BOTTOM, EC_MPA, "sagging").iCrMm4);
   });
 
-  it("without top steel, the tension-only assumption drops the compression steel", () => {
+  it("without top steel, hogging takes the layout as given: a cantilever's tension steel is its top steel", () => {
     const doubly: ReinforcedConcreteSection = { ...BOTTOM, compressionSteelMm2: 628, compressionDepthMm: 60 };
-    expect(getCrackedSection(doubly, EC_MPA, "hogging", "tension_only").iCrMm4 / getDoublyReinforcedICr(AS, D, 0, 60)).toBeCloseTo(1, 10);
     expect(getCrackedSection(doubly, EC_MPA, "hogging").iCrMm4 / getDoublyReinforcedICr(AS, D, 628, 60)).toBeCloseTo(1, 10);
   });
 });
@@ -68,22 +67,59 @@ describe("a propped cantilever, where the hogging moment wL^2/8 at the fixed end
   const x = (L * (1 + Math.sqrt(33))) / 16;
   const deflection = (i: number): number => (W * x * (L ** 3 - 3 * L * x * x + 2 * x ** 3)) / (48 * EC_MPA * i);
 
-  it("with top steel: I_e from the top steel's I_cr, and no assumption note", () => {
+  it("with top steel: I_e from the top steel's I_cr", () => {
     const result = checkMember(createMember(WITH_TOP), profile);
     expect(result.checks[0]!.deflectionMm).toBeCloseTo(deflection(effective(getDoublyReinforcedICr(A_TOP, D_TOP, AS, H - D))), 6);
-    expect(result.notes?.includes(HOGGING_ASSUMPTION_NOTE)).toBe(false);
   });
 
-  it("without top steel: the bottom steel mirrored without compression steel, and the note says so", () => {
-    const doubly: ReinforcedConcreteSection = { ...BOTTOM, compressionSteelMm2: 628, compressionDepthMm: 60 };
-    const result = checkMember(createMember(doubly), profile);
-    expect(result.checks[0]!.deflectionMm).toBeCloseTo(deflection(effective(getDoublyReinforcedICr(AS, D, 0, 60))), 6);
-    expect(result.notes).toContain(HOGGING_ASSUMPTION_NOTE);
+  // Any guess of the unknown top steel (the bottom steel mirrored, say) overstates the stiffness
+  // whenever the real top steel is lighter: the member is refused on the field it lacks.
+  it("without top steel: refused on spans[0] topSteel, naming the fixed end", () => {
+    try {
+      checkMember(createMember(BOTTOM), profile);
+      expect.unreachable();
+    } catch (error) {
+      expect(error).toBeInstanceOf(EngineInputError);
+      const issues = (error as EngineInputError).issues;
+      expect(issues.map((issue) => issue.path)).toEqual(["spans[0].reinforcedConcrete.topSteelMm2"]);
+      expect(issues[0]!.message).toContain("fixed end");
+      expect(issues[0]!.message).toContain("topSteel");
+    }
   });
 
-  it("a simple span (sagging only) carries no assumption note", () => {
+  it("the solver refuses a cracking hogging state without top steel even past validation", () => {
+    expect(() => solveCrackedState(createMember(BOTTOM), { dead: 1, live: 1 })).toThrow(/hogging \(negative\) moment past \(2\/3\) M_cr/);
+    // below (2/3) M_cr, I_e = I_g whatever the steel (Table 24.2.3.5): nothing is missing
+    const light: Member = { ...createMember(BOTTOM), loads: [{ kind: "uniform", loadCase: "dead", wNPerMm: 1 }] };
+    expect(solveCrackedState(light, { dead: 1 }).inertiaMm4[0]).toBe(IG);
+  });
+
+  it("a simple span (sagging only) needs no top steel", () => {
     const simple = { ...createMember(BOTTOM), supports: [{ kind: "pinned" as const }, { kind: "roller" as const }] };
-    expect(checkMember(simple, profile).notes?.includes(HOGGING_ASSUMPTION_NOTE)).toBe(false);
+    expect(checkMember(simple, profile).checks[0]!.deflectionMm).toBeGreaterThan(0);
+  });
+
+  it("a simple span with an applied moment or an upward load can hog: top steel is required", () => {
+    const simple = { ...createMember(BOTTOM), supports: [{ kind: "pinned" as const }, { kind: "roller" as const }] };
+    const withMoment: Member = { ...simple, loads: [...simple.loads, { kind: "moment", loadCase: "dead", atMm: 0, mNmm: -5e7 }] };
+    expect(() => checkMember(withMoment, profile)).toThrow(/applied moment/);
+    const uplift: Member = { ...simple, loads: [...simple.loads, { kind: "point", loadCase: "live", atMm: 3000, pN: -20_000 }] };
+    expect(() => checkMember(uplift, profile)).toThrow(/upward load/);
+  });
+
+  it("a cantilever of overhangs only: its given steel is top steel; net uplift past cracking is refused", () => {
+    const cantilever = (w: number): Member => ({
+      mark: "RC4",
+      category: "floor_beam",
+      quantity: 1,
+      supports: [{ kind: "fixed" }, { kind: "free" }],
+      spans: [{ lengthMm: 2000, eMpa: EC_MPA, iMm4: IG, reinforcedConcrete: BOTTOM }],
+      loads: [{ kind: "uniform", loadCase: "dead", wNPerMm: w }],
+    });
+    const dead: LimitProfile = { ...profile, combinations: [{ id: "D", label: "dead", factors: { dead: 1 }, limitRatio: 180 }] };
+    // M = w L^2 / 2 = 6e7 N*mm against (2/3) M_cr = (2/3) f_r I_g / (h/2) = 2.83e7 N*mm
+    expect(checkMember(cantilever(30), dead).checks[0]!.deflectionMm).toBeGreaterThan(0);
+    expect(() => checkMember(cantilever(-30), dead)).toThrow(/sags \(net upward load\)/);
   });
 
   it("top steel without its depth, or deeper than h, is refused on its field", () => {

@@ -66,6 +66,25 @@ describe("reinforcement block", () => {
     expect(deep).toEqual(["members[0].reinforcement.topDepth: the top steel depth d_top (520 mm, from the bottom face) must be less than the section depth h (500 mm) (members[0].spans[0])"]);
   });
 
+  // A span between supports that can hog needs its top steel: a guess of it (the bottom steel
+  // mirrored, say) overstates the stiffness when the real top steel is lighter (hogging-causes.ts).
+  it("top steel is required wherever the member can hog, once per reinforcement block, with the cause", () => {
+    const continuous = formatIssues(parseIssues(createDoc({ ...concrete, spans: [6, 5], supports: ["pinned", "pinned", "roller"], reinforcement })));
+    expect(continuous).toHaveLength(1);
+    expect(continuous[0]).toMatch(/^members\[0\]\.reinforcement\.topSteel: is required because it is continuous over an interior support: .*give topSteel \(area\) and topDepth/);
+    const overhang = formatIssues(parseIssues(createDoc({ ...concrete, overhangs: { right: 2 }, reinforcement })));
+    expect(overhang[0]).toMatch(/^members\[0\]\.reinforcement\.topSteel: is required because it has an overhang beyond a support/);
+    const fixed = formatIssues(parseIssues(createDoc({ ...concrete, supports: ["fixed", "roller"], reinforcement })));
+    expect(fixed[0]).toMatch(/because it has a fixed end/);
+    // a span's own reinforcement is named on its own path
+    const own = createDoc({ ...concrete, spans: [6, { length: 5, reinforcement }], supports: ["pinned", "pinned", "roller"], reinforcement: { ...reinforcement, topSteel: 982, topDepth: 445 } });
+    expect(formatIssues(parseIssues(own)).map((issue) => issue.split(":")[0])).toEqual(["members[0].spans[1].reinforcement.topSteel"]);
+    // a simple span under downward load, and a cantilever (whose given steel is its top steel), need none
+    expect(parseOk(createDoc({ ...concrete, reinforcement })).members).toHaveLength(1);
+    expect(parseOk(createDoc({ ...concrete, supports: ["fixed", "free"], spans: [2], reinforcement })).members).toHaveLength(1);
+    expect(parseOk(createDoc({ ...concrete, spans: [6, 5], supports: ["pinned", "pinned", "roller"], reinforcement: { ...reinforcement, topSteel: 982, topDepth: 445 } })).members).toHaveLength(1);
+  });
+
   it("errors name the field and the member", () => {
     const issues = formatIssues(parseIssues(createDoc({ ...concrete, reinforcement: { tensionSteel: 0, effectiveDepth: 440 } })));
     expect(issues).toContain("members[0].reinforcement.tensionSteel: must be greater than 0");
