@@ -119,7 +119,9 @@ describe("a schedule's results page", () => {
     expect(missing.status).toBe(404);
     expect(foreign.status).toBe(404);
     expect(foreign.text).not.toContain("Fabricator");
-    const strip = (html: string) => html.replace(/sch_[0-9a-z]+/g, "ID");
+    // The ids differ; so may the streamed flight chunks, which split the same payload wherever
+    // the server happened to flush (one wrapper is 43 characters): drop the wrappers before comparing.
+    const strip = (html: string) => html.replace(/sch_[0-9a-z]+/g, "ID").replace(/<script>self\.__next_f\.push\(\[1,"|"\]\)<\/script>/g, "");
     expect(strip(foreign.text).length).toBe(strip(missing.text).length);
   });
 
