@@ -6,7 +6,7 @@
  */
 import type { Member, ReinforcedConcreteSection } from "../model";
 import { createCaseFactors, type CaseFactors } from "../solver/deflection-field";
-import { findSpanMomentExtreme } from "../solver/moment-field";
+import { findSpanMomentRange, type SpanMomentRange } from "../solver/moment-field";
 import { solveValidatedMember, type MemberSolution, type PatternSplit } from "../solver/solve-member";
 import { getSpanJudgements } from "../checks/span-groups";
 import { EngineInputError } from "../solver/engine-input-error";
@@ -23,7 +23,7 @@ export interface CrackedState {
   factors: CaseFactors;
   /** The I each span was solved with, mm^4 (I_e for reinforced spans, the given I otherwise). */
   inertiaMm4: number[];
-  /** Service moment M_a of each span (largest magnitude, signed + sagging), N*mm. */
+  /** Service moment M_a of each span that set its I_e (signed, + sagging), N*mm. */
   serviceMomentNmm: number[];
   converged: boolean;
 }
@@ -96,14 +96,27 @@ function getSpanCrackingFacts(section: ReinforcedConcreteSection, concreteEMpa: 
 /**
  * I_e of a reinforced span at service moment M_a (N*mm, + sagging): Table 24.2.3.5 with the
  * cracked section for the moment's sign (under hogging, the top steel when the section gives it:
- * cracked-section.ts getSteelLayers). The span's largest moment, of either sign, sets one uniform
- * I_e for the whole span (common practice; 24.2.3.7 permits the midspan value for simple and
- * continuous spans and the support value for cantilevers, from memory).
+ * cracked-section.ts getSteelLayers).
  */
 export function getSpanEffectiveInertiaMm4(section: ReinforcedConcreteSection, concreteEMpa: number, momentNmm: number): number {
   const facts = getSpanCrackingFacts(section, concreteEMpa);
   const sign: MomentSign = momentNmm >= 0 ? "sagging" : "hogging";
   return getEffectiveInertiaMm4(facts.iGMm4, sign === "sagging" ? facts.iCrSaggingMm4 : facts.iCrHoggingMm4, facts.mCrNmm, momentNmm);
+}
+
+/**
+ * One uniform I_e for a whole span: the lower of I_e at its largest sagging and at its largest
+ * hogging moment, and that moment. ACI 318-19 permits the average of the critical positive and
+ * negative sections for continuous spans (24.2.3.6) or the midspan value (24.2.3.7, the support
+ * value for cantilevers), from memory; the lower of the two sections is never stiffer than
+ * either, so it is the conservative choice (the code's own are not always, when the top steel
+ * is light).
+ */
+export function getSpanGoverningInertia(section: ReinforcedConcreteSection, concreteEMpa: number, range: SpanMomentRange): { iMm4: number; momentNmm: number } {
+  const sagging = getSpanEffectiveInertiaMm4(section, concreteEMpa, range.saggingNmm);
+  if (range.hoggingNmm === 0) return { iMm4: sagging, momentNmm: range.saggingNmm };
+  const hogging = getSpanEffectiveInertiaMm4(section, concreteEMpa, range.hoggingNmm);
+  return hogging < sagging ? { iMm4: hogging, momentNmm: range.hoggingNmm } : { iMm4: sagging, momentNmm: range.saggingNmm };
 }
 
 /**
@@ -122,28 +135,34 @@ function hasSpanBetweenSupports(member: Member): boolean {
  * steel could overstate the stiffness, the unsafe side. Below (2/3) M_cr, I_e = I_g whatever the
  * steel, so nothing is missing.
  */
-function assertTensionSteelKnown(member: Member, moments: readonly number[]): void {
+function assertTensionSteelKnown(member: Member, ranges: readonly SpanMomentRange[]): void {
   const betweenSupports = hasSpanBetweenSupports(member);
   member.spans.forEach((span, index) => {
     const section = span.reinforcedConcrete;
     if (section === undefined || hasTopSteel(section)) return;
-    const moment = moments[index] as number;
-    const hogging = moment < 0;
-    if (hogging !== betweenSupports) return;
+    const range = ranges[index] as SpanMomentRange;
+    // the moment whose tension face has no steel given: top (hogging) in a member with a span between supports
+    const moment = betweenSupports ? range.hoggingNmm : range.saggingNmm;
     if (!(Math.abs(moment) > UNCRACKED_MOMENT_SHARE * getSpanCrackingFacts(section, span.eMpa).mCrNmm)) return;
     const path = `spans[${index}].reinforcedConcrete.topSteelMm2`;
     const message = betweenSupports
-      ? "is required: a hogging (negative) moment past (2/3) M_cr governs this span's cracked stiffness (ACI 318-19 24.2.3.5); give topSteel (area) and topDepth (d_top, from the bottom face)"
+      ? "is required: a hogging (negative) moment past (2/3) M_cr acts on this span, and its cracked stiffness depends on the top steel (ACI 318-19 24.2.3.5); give topSteel (area) and topDepth (d_top, from the bottom face)"
       : "is required: this overhang sags (net upward load) past (2/3) M_cr, and in a member of overhangs only the given steel is the top steel; give topSteel and topDepth for the top steel, and the bottom steel as tensionSteel and effectiveDepth";
     throw new EngineInputError([{ path, message }]);
   });
 }
 
-function getNextInertia(member: Member, solution: MemberSolution, factors: CaseFactors, current: readonly number[], moments: number[]): number[] {
+function getNextInertia(member: Member, solution: MemberSolution, factors: CaseFactors, current: readonly number[], moments: number[], ranges: SpanMomentRange[]): number[] {
   return member.spans.map((span, index) => {
-    const moment = findSpanMomentExtreme(solution, factors, index).momentNmm;
-    moments[index] = moment;
-    return span.reinforcedConcrete === undefined ? (current[index] as number) : getSpanEffectiveInertiaMm4(span.reinforcedConcrete, span.eMpa, moment);
+    const range = findSpanMomentRange(solution, factors, index);
+    ranges[index] = range;
+    if (span.reinforcedConcrete === undefined) {
+      moments[index] = -range.hoggingNmm > range.saggingNmm ? range.hoggingNmm : range.saggingNmm;
+      return current[index] as number;
+    }
+    const governing = getSpanGoverningInertia(span.reinforcedConcrete, span.eMpa, range);
+    moments[index] = governing.momentNmm;
+    return governing.iMm4;
   });
 }
 
@@ -164,12 +183,13 @@ function getLargestRelativeChange(a: readonly number[], b: readonly number[]): n
 export function solveCrackedState(member: Member, stateFactors: Record<string, number>, arrangement?: LoadArrangement): CrackedState {
   let inertia = member.spans.map((span) => span.iMm4);
   const moments = member.spans.map(() => 0);
+  const ranges: SpanMomentRange[] = [];
   for (let iteration = 1; iteration <= MAX_CRACKED_ITERATIONS; iteration++) {
     const solution = solveValidatedMember(createMemberWithInertia(member, inertia), arrangement?.split);
     const factors = createArrangedFactors(solution, stateFactors, arrangement);
-    const next = getNextInertia(member, solution, factors, inertia, moments);
+    const next = getNextInertia(member, solution, factors, inertia, moments, ranges);
     if (getLargestRelativeChange(inertia, next) <= CRACKED_TOLERANCE) {
-      assertTensionSteelKnown(member, moments);
+      assertTensionSteelKnown(member, ranges);
       return { solution, factors, inertiaMm4: inertia, serviceMomentNmm: moments, converged: true };
     }
     if (iteration === MAX_CRACKED_ITERATIONS) inertia = inertia.map((value, index) => Math.min(value, next[index] as number));
@@ -177,8 +197,8 @@ export function solveCrackedState(member: Member, stateFactors: Record<string, n
   }
   const solution = solveValidatedMember(createMemberWithInertia(member, inertia), arrangement?.split);
   const factors = createArrangedFactors(solution, stateFactors, arrangement);
-  getNextInertia(member, solution, factors, inertia, moments);
-  assertTensionSteelKnown(member, moments);
+  getNextInertia(member, solution, factors, inertia, moments, ranges);
+  assertTensionSteelKnown(member, ranges);
   return { solution, factors, inertiaMm4: inertia, serviceMomentNmm: moments, converged: false };
 }
 
