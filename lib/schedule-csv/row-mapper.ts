@@ -214,7 +214,8 @@ function describeSources(cells: Cells, member: PublicMember, loadSources: Record
     }
   }
   for (const [name, field] of Object.entries(REINFORCEMENT_FIELD_NAMES)) {
-    const header = headerOf(name);
+    // A reinforced row with an empty cell still names the column it needs (top_steel, say).
+    const header = headerOf(name) ?? (member.reinforcement !== undefined ? name : undefined);
     if (header) sources[`reinforcement.${field}`] = header;
   }
   if (member.reinforcement !== undefined) sources.reinforcement = headerOf("tension_steel") ?? headerOf("effective_depth") ?? "tension_steel";

@@ -176,21 +176,15 @@ export function evaluateCrackedDeflectionChecks(member: Member, profile: LimitPr
  */
 export function describeCrackedEvaluation(member: Member, evaluation: CrackedEvaluation): string[] {
   let lowest = Infinity;
-  let lowestSpan = 0;
   let converged = true;
   for (const state of evaluation.states.values()) {
     converged = converged && state.converged;
     member.spans.forEach((span, index) => {
-      if (span.reinforcedConcrete === undefined) return;
-      const ratio = (state.inertiaMm4[index] as number) / span.iMm4;
-      if (ratio < lowest) {
-        lowest = ratio;
-        lowestSpan = index;
-      }
+      if (span.reinforcedConcrete !== undefined) lowest = Math.min(lowest, (state.inertiaMm4[index] as number) / span.iMm4);
     });
   }
   const notes = [
-    `cracked section: I_e per ACI 318-19 Table 24.2.3.5 at each combination's service moment; lowest I_e = ${lowest.toFixed(2)} I_g (span index ${lowestSpan})`,
+    `cracked section: I_e per ACI 318-19 Table 24.2.3.5 at each combination's service moment; lowest I_e = ${lowest.toFixed(2)} I_g`,
   ];
   if (!converged) notes.push("cracked section: the I_e iteration did not settle; each span took the lower of its last two I_e values (conservative)");
   return notes;

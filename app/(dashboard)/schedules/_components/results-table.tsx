@@ -108,7 +108,7 @@ export function ResultsTable({ scheduleId, rows, columns, unitSystem }: ResultsT
               <td className={cell}>{categoryLabels[r.category] ?? r.category}</td>
               <td className={cell}>
                 {formatCheckKey(r.governingCheck)}
-                {r.notes.length > 0 ? <p className="text-xs text-caution [overflow-wrap:anywhere]">{r.notes.join("; ")}</p> : null}
+                {r.notes.length > 0 ? <RowRemarks notes={r.notes} /> : null}
               </td>
               {columns.map((c) => (
                 <OptionalCell key={c} column={c} row={r} system={unitSystem} />
@@ -128,4 +128,20 @@ export function ResultsTable({ scheduleId, rows, columns, unitSystem }: ResultsT
 
 function OptionalCell({ column, row, system }: { column: OptionalColumn; row: ResultPageRow; system: string }) {
   return optionalCell(column, row, system);
+}
+
+/** A row's remarks folded under a count: long cracked-concrete notes would make every row a page tall. */
+function RowRemarks({ notes }: { notes: string[] }) {
+  return (
+    <details className="text-xs text-caution">
+      <summary className="cursor-pointer">
+        {notes.length} remark{notes.length === 1 ? "" : "s"}
+      </summary>
+      <ul className="mt-1 list-disc pl-4 [overflow-wrap:anywhere]">
+        {notes.map((note, index) => (
+          <li key={index}>{note}</li>
+        ))}
+      </ul>
+    </details>
+  );
 }
