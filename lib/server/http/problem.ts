@@ -38,7 +38,9 @@ function databaseUnavailable(error: unknown): DomainError {
   const nowMs = Date.now();
   if (nowMs - lastUnavailableLogMs > 10_000) {
     lastUnavailableLogMs = nowMs;
-    console.warn(`[sagline] PostgreSQL unavailable, answering 503: ${error instanceof Error ? error.message : String(error)}`);
+    // The driver's own words (a query error's cause), not the query it was running.
+    const cause = error instanceof Error && error.cause instanceof Error ? error.cause : error;
+    console.warn(`[sagline] PostgreSQL unavailable, answering 503: ${cause instanceof Error ? cause.message : String(cause)}`);
   }
   return new DomainError(
     "unavailable",
