@@ -1,5 +1,5 @@
-// Shared pieces of the fault drills: workers of their own on a private queue prefix, and waiting
-// on a schedule straight from PostgreSQL.
+// Shared pieces of the fault drills: workers and web processes of their own on a private queue
+// prefix, and waiting on a schedule straight from PostgreSQL.
 import { spawn, type ChildProcess } from "node:child_process";
 import { mkdirSync, openSync } from "node:fs";
 
@@ -37,6 +37,21 @@ export function createDrill(name: string) {
     return child;
   }
 
+  /**
+   * A web process of the built app (`next start`, as test.sh and the supervisor run it) on a port of
+   * the drill's own, queueing on the drill's prefix so the drill's workers take its schedules.
+   */
+  function startWeb(port: number, extraEnv: Record<string, string> = {}): ChildProcess {
+    const url = `http://127.0.0.1:${port}`;
+    const child = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(port)], {
+      env: { ...process.env, REDIS_PREFIX: prefix, APP_URL: url, NEXTAUTH_URL: url, ...extraEnv },
+      stdio: ["ignore", log, log],
+      detached: true,
+    });
+    children.add(child);
+    return child;
+  }
+
   function killHard(child: ChildProcess) {
     if (child.pid) {
       try {
@@ -52,8 +67,41 @@ export function createDrill(name: string) {
     for (const child of [...children]) killHard(child);
   }
 
-  return { prefix, startWorker, killHard, killAll };
+  return { prefix, startWorker, startWeb, killHard, killAll };
 }
+
+/** Waits until the web process on `port` answers its health check with 200 (PostgreSQL and Redis up). */
+export async function waitForWeb(port: number, timeoutMs: number): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const status = await fetch(`http://127.0.0.1:${port}/api/health`, { signal: AbortSignal.timeout(5_000) }).then(
+      (r) => r.status,
+      () => null,
+    );
+    if (status === 200) return;
+    if (Date.now() > deadline) throw new Error(`the web process on port ${port} did not become healthy within ${timeoutMs} ms (last answer ${status})`);
+    await new Promise((r) => setTimeout(r, 250));
+  }
+}
+
+/** Resolves when the process has exited, with its exit code or the signal that ended it. */
+export function waitForExit(child: ChildProcess, timeoutMs: number): Promise<{ code: number | null; signal: NodeJS.Signals | null }> {
+  if (child.exitCode !== null || child.signalCode !== null) return Promise.resolve({ code: child.exitCode, signal: child.signalCode });
+  return new Promise((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error(`process ${child.pid} still running after ${timeoutMs} ms`)), timeoutMs);
+    child.once("exit", (code, signal) => {
+      clearTimeout(timer);
+      resolve({ code, signal });
+    });
+  });
+}
+
+/** The ports test-faults.sh hands the drills that start web processes (the caller's port block). */
+export const drillPorts = {
+  web: Number(process.env.SAGLINE_TEST_APP_PORT ?? 3793),
+  spare: Number(process.env.SAGLINE_TEST_SPARE_PORT ?? 3799),
+  partner: Number(process.env.SAGLINE_TEST_PARTNER_PORT ?? 3795),
+};
 
 export type DrillScheduleInput = {
   markPrefix: string;

@@ -7,6 +7,7 @@ import type { Sql, TransactionSql } from "postgres";
 import { demoApiKey, demoUsers } from "@/db/seed-data";
 import { hashApiKey } from "@/lib/server/api-keys/key-format";
 import { verifyPassword } from "@/lib/server/auth/passwords";
+import { EXIT_AFTER_COMMIT_VARIABLE } from "@/lib/server/drills/exit-after-commit";
 
 /** True for names and addresses that reach this machine itself: localhost, 127.0.0.0/8, ::1, the unspecified addresses. */
 export function isLoopbackHost(host: string): boolean {
@@ -33,6 +34,9 @@ function hostOfAllowlistEntry(entry: string): string {
 export function findProductionConfigProblems(env: Record<string, string | undefined>): string[] {
   const problems: string[] = [];
   if (env.SAGLINE_FAKES === "1") problems.push("SAGLINE_FAKES=1 turns on the local fakes (SMTP capture, partner receiver): unset it or set 0.");
+  if ((env[EXIT_AFTER_COMMIT_VARIABLE] ?? "").trim() !== "") {
+    problems.push(`${EXIT_AFTER_COMMIT_VARIABLE} is a fault-drill hook that kills the web process after a commit: unset it.`);
+  }
   const loopback = (env.WEBHOOK_ALLOWLIST ?? "")
     .split(",")
     .map((s) => s.trim())

@@ -8,6 +8,7 @@ import type { TransactionSql } from "postgres";
 import { getSql } from "@/db/client";
 import { loadSubmissionCriteria, storeScheduleCriteria } from "@/lib/server/criteria/schedule-criteria";
 import { DomainError, type FieldError } from "@/lib/server/errors";
+import { exitIfArmedAfterCommit } from "@/lib/server/drills/exit-after-commit";
 import { createId } from "@/lib/server/ids";
 import { getMemberSource, type MemberSource } from "@/lib/schedule-members/lazy-members";
 import { runInWindow } from "@/lib/server/run-in-window";
@@ -194,6 +195,7 @@ export async function submitSchedule(input: SubmitScheduleInput): Promise<Submit
     await input.inTransaction?.(tx, stored);
     return stored;
   });
+  exitIfArmedAfterCommit();
 
   // Queued after commit; if Redis is away the reconciler queues it from PostgreSQL later.
   await enqueueChunks(id, Array.from({ length: chunkCount }, (_, i) => i)).catch((error: Error) =>

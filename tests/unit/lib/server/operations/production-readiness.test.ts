@@ -29,6 +29,10 @@ describe("findProductionConfigProblems", () => {
     expect(findProductionConfigProblems({ ...good, SAGLINE_FAKES: "1" })).toEqual([expect.stringContaining("SAGLINE_FAKES=1")]);
   });
 
+  it.each(["1", "0"])("refuses the fault-drill hook SAGLINE_DRILL_EXIT_AFTER_COMMIT=%s, set at all", (value) => {
+    expect(findProductionConfigProblems({ ...good, SAGLINE_DRILL_EXIT_AFTER_COMMIT: value })).toEqual([expect.stringMatching(/^SAGLINE_DRILL_EXIT_AFTER_COMMIT is a fault-drill hook/)]);
+  });
+
   it.each(["127.0.0.1:3792", "localhost", "[::1]:8080", "hooks.partner.example, 127.0.0.1", "::1"])("refuses the loopback allowlist %s", (allowlist) => {
     expect(findProductionConfigProblems({ ...good, WEBHOOK_ALLOWLIST: allowlist })).toEqual([expect.stringMatching(/^WEBHOOK_ALLOWLIST lets webhooks reach this machine/)]);
   });
