@@ -1,6 +1,12 @@
 import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from "react";
 
-export type FieldProps = InputHTMLAttributes<HTMLInputElement> & { label: string; name: string; error?: string };
+export type FieldProps = InputHTMLAttributes<HTMLInputElement> & {
+  label: string;
+  name: string;
+  error?: string;
+  /** The error's element id; unique per form when one page holds several forms with the same fields. */
+  errorId?: string;
+};
 
 /** The small upper-case caption above every form control. */
 function FieldLabel({ children }: { children: ReactNode }) {
@@ -8,8 +14,8 @@ function FieldLabel({ children }: { children: ReactNode }) {
 }
 
 /** A labelled input whose error is announced and tied to it for screen readers. */
-export function Field({ label, name, error, className = "", ...props }: FieldProps) {
-  const errorId = error ? `${name}-error` : undefined;
+export function Field({ label, name, error, errorId: givenErrorId, className = "", ...props }: FieldProps) {
+  const errorId = error ? (givenErrorId ?? `${name}-error`) : undefined;
   return (
     <label className={`block ${className}`}>
       <FieldLabel>{label}</FieldLabel>
@@ -35,17 +41,25 @@ export type SelectFieldProps = SelectHTMLAttributes<HTMLSelectElement> & {
   label: string;
   /** Shown under the select, inside the label. */
   hint?: ReactNode;
+  error?: string;
+  errorId?: string;
 };
 
 /** A labelled select with Field's caption; `className` replaces the select's own classes. */
-export function SelectField({ label, hint, className = SELECT_CLASS, children, ...props }: SelectFieldProps) {
+export function SelectField({ label, hint, error, errorId: givenErrorId, className = SELECT_CLASS, children, ...props }: SelectFieldProps) {
+  const errorId = error ? (givenErrorId ?? `${props.name ?? "select"}-error`) : undefined;
   return (
     <label className="block">
       <FieldLabel>{label}</FieldLabel>
-      <select {...props} className={className}>
+      <select {...props} aria-invalid={error ? true : undefined} aria-describedby={errorId} className={`${className} aria-[invalid]:border-fail`}>
         {children}
       </select>
       {hint}
+      {error ? (
+        <span id={errorId} className="mt-1 block text-xs text-fail">
+          {error}
+        </span>
+      ) : null}
     </label>
   );
 }

@@ -121,3 +121,11 @@ export async function getMemberResult(scheduleId: string, mark: string) {
     from member_checks where schedule_id = ${scheduleId} and member_index = ${member.member_index} order by check_key`;
   return { member, checks };
 }
+
+/** How many of the organization's schedules the workers are still checking (counted up to `cap`). */
+export async function countUnfinishedSchedules(organizationId: string, cap = 100): Promise<number> {
+  const [row] = await getSql()`
+    select count(*)::int as n from (
+      select 1 from schedules where organization_id = ${organizationId} and status not in ('completed', 'failed') limit ${cap}) s`;
+  return (row?.n as number | undefined) ?? 0;
+}

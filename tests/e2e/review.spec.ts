@@ -42,6 +42,7 @@ async function signedIn(role: "engineer" | "viewer"): Promise<Page> {
   return page;
 }
 
+// The page streams behind its loading state, so a read waits for the rows rather than taking the first frame.
 describe("review in the browser", () => {
   it("an engineer filters the queue to a schedule, opens a member and records a justification", async () => {
     const page = await signedIn("engineer");
@@ -52,7 +53,7 @@ describe("review in the browser", () => {
     await filters.getByRole("button", { name: "Apply filters" }).click();
     await page.waitForURL((url) => url.searchParams.get("scheduleId") === scheduleId);
     const table = page.getByRole("table", { name: /Members in review/ });
-    await expect(table.getByRole("rowheader").allInnerTexts()).resolves.toEqual(["A3", "A4", "A2"]);
+    await expect.poll(() => table.getByRole("rowheader").allInnerTexts(), { timeout: 30_000 }).toEqual(["A3", "A4", "A2"]);
     await expect(page.getByRole("complementary", { name: "Safety caution" }).isVisible()).resolves.toBe(true);
 
     await table.getByRole("link", { name: "A2" }).click();
@@ -84,7 +85,7 @@ describe("review in the browser", () => {
     await expect(confirm.textContent()).resolves.toContain("on 2 members");
     // Nothing is recorded by the preview alone.
     await page.reload();
-    await expect(page.getByRole("table", { name: /Members in review/ }).getByRole("rowheader").allInnerTexts()).resolves.toEqual(["A3", "A4"]);
+    await expect.poll(() => page.getByRole("table", { name: /Members in review/ }).getByRole("rowheader").allInnerTexts(), { timeout: 30_000 }).toEqual(["A3", "A4"]);
     await preview.getByLabel(/Member to be revised/).check();
     await preview.getByRole("button", { name: "Preview the count" }).click();
     await confirm.getByRole("button", { name: "Confirm: record on 2 members" }).click();
@@ -92,7 +93,7 @@ describe("review in the browser", () => {
     await page.goto(`${APP_URL}/review?scheduleId=${scheduleId}`);
     await page.getByText("Nothing matching these filters is waiting for review.").waitFor();
     await page.goto(`${APP_URL}/review?scheduleId=${scheduleId}&state=member_to_be_revised`);
-    await expect(page.getByRole("table", { name: /Members in review/ }).getByRole("rowheader").allInnerTexts()).resolves.toEqual(["A3", "A4"]);
+    await expect.poll(() => page.getByRole("table", { name: /Members in review/ }).getByRole("rowheader").allInnerTexts(), { timeout: 30_000 }).toEqual(["A3", "A4"]);
     await page.context().close();
   });
 

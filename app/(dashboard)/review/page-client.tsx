@@ -1,32 +1,34 @@
 "use client";
 
-import Link from "next/link";
-
+import { QueryProvider } from "@/components/data/query-provider";
 import { Notice } from "@/components/ui/notice";
 import type { DigestFrequency, Role } from "@/db/schema";
-import type { QueueRow } from "@/lib/server/review/list-review-queue";
+import type { QueueView } from "@/lib/server/review/get-queue-view";
 import type { QueueOptions } from "@/lib/server/review/list-queue-options";
 import type { QueueQuery } from "@/lib/server/review/queue-filters";
 
 import { BulkDispositionForm } from "./_components/bulk-disposition-form";
 import { DigestPreferenceForm } from "./_components/digest-preference-form";
+import { LiveQueue } from "./_components/live-queue";
 import { QueueFiltersForm } from "./_components/queue-filters-form";
-import { QueueTable } from "./_components/queue-table";
 
 export type ReviewPageClientProps = {
-  rows: QueueRow[];
+  view: QueueView;
   query: QueueQuery;
+  /** The filters, sort and cursor of this page as query parameters (what the live route reads). */
+  queryString: string;
+  /** The same without the cursor. */
+  linkParams: string;
   options: QueueOptions;
   notice: string | null;
-  nextHref: string | null;
   firstPage: boolean;
   canDisposition: boolean;
   roleLabel: Role;
   digestFrequency: DigestFrequency | null;
 };
 
-/** The review queue: filters, the table, and for engineers the bulk action and the digest preference. */
-export function ReviewPageClient({ rows, query, options, notice, nextHref, firstPage, canDisposition, roleLabel, digestFrequency }: ReviewPageClientProps) {
+/** The review queue: filters, the live table, and for engineers the bulk action and the digest preference. */
+export function ReviewPageClient({ view, query, queryString, linkParams, options, notice, firstPage, canDisposition, roleLabel, digestFrequency }: ReviewPageClientProps) {
   return (
     <div className="mt-4 space-y-5">
       {notice ? <Notice tone="info">{notice}</Notice> : null}
@@ -36,19 +38,9 @@ export function ReviewPageClient({ rows, query, options, notice, nextHref, first
         </p>
       )}
       <QueueFiltersForm query={query} options={options} />
-      <QueueTable rows={rows} state={query.state} />
-      <nav aria-label="Queue pages" className="flex gap-4 text-sm">
-        {firstPage ? null : (
-          <Link href="/review" className="text-action underline">
-            First page
-          </Link>
-        )}
-        {nextHref ? (
-          <Link href={nextHref} className="text-action underline">
-            Next page
-          </Link>
-        ) : null}
-      </nav>
+      <QueryProvider>
+        <LiveQueue initial={view} queryString={queryString} linkParams={linkParams} state={query.state} firstPage={firstPage} />
+      </QueryProvider>
       {canDisposition && query.state === "awaiting_review" ? <BulkDispositionForm query={query} /> : null}
       {canDisposition && digestFrequency ? <DigestPreferenceForm frequency={digestFrequency} /> : null}
     </div>

@@ -6,15 +6,14 @@ import { can } from "@/lib/server/auth/request-context";
 import { DomainError } from "@/lib/server/errors";
 import { getDigestFrequency } from "@/lib/server/review/digest-preferences";
 import { listQueueOptions } from "@/lib/server/review/list-queue-options";
-import { listReviewQueue } from "@/lib/server/review/list-review-queue";
+import { getQueueView } from "@/lib/server/review/get-queue-view";
+import { REVIEW_PAGE_SIZE } from "@/lib/server/review/list-review-queue";
 import { queueQuerySchema, readQueueQuery, toQueueSearchParams, type QueueQuery } from "@/lib/server/review/queue-filters";
 
 import { PageHeader } from "../_components/page-header";
 import { ReviewPageClient } from "./page-client";
 
 export const metadata: Metadata = { title: "Review" };
-
-const PAGE_SIZE = 50;
 
 type ReviewPageProps = { searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -36,30 +35,34 @@ export default async function ReviewPage({ searchParams }: ReviewPageProps) {
     if (!(error instanceof DomainError)) throw error;
     notice = `${error.message} Showing the whole queue instead.`;
   }
-  let page;
+  let view;
+  let cursor = notice ? null : params.get("cursor");
   try {
-    page = await listReviewQueue(organizationId, query, { limit: PAGE_SIZE, cursor: notice ? null : params.get("cursor") });
+    view = await getQueueView(organizationId, query, { limit: REVIEW_PAGE_SIZE, cursor });
   } catch (error) {
     if (!(error instanceof DomainError)) throw error;
     notice = "That page link is not one Sagline issued; showing the first page.";
-    page = await listReviewQueue(organizationId, query, { limit: PAGE_SIZE });
+    cursor = null;
+    view = await getQueueView(organizationId, query, { limit: REVIEW_PAGE_SIZE });
   }
   const canDisposition = can(context, "review:disposition");
   const [options, digestFrequency] = await Promise.all([listQueueOptions(organizationId), canDisposition ? getDigestFrequency(context.user.id, organizationId) : null]);
-  const nextParams = toQueueSearchParams(query);
-  if (page.nextCursor) nextParams.set("cursor", page.nextCursor);
+  const linkParams = toQueueSearchParams(query);
+  const liveParams = new URLSearchParams(linkParams);
+  if (cursor) liveParams.set("cursor", cursor);
 
   return (
     <>
       <PageHeader title="Review" lead="Members that failed a check or could not be checked, across every schedule and project, each waiting for an engineer's disposition." />
       <SafetyCaution />
       <ReviewPageClient
-        rows={page.rows}
+        view={view}
         query={query}
+        queryString={liveParams.toString()}
+        linkParams={linkParams.toString()}
         options={options}
         notice={notice}
-        nextHref={page.nextCursor ? `/review?${nextParams.toString()}` : null}
-        firstPage={!params.get("cursor")}
+        firstPage={!cursor}
         canDisposition={canDisposition}
         roleLabel={context.active!.role}
         digestFrequency={digestFrequency}

@@ -43,6 +43,7 @@ export const routeAccess = {
   "POST /api/schedules/upload": "schedules:submit",
   "GET /api/schedules/[scheduleId]/progress": "organization:read",
   "GET /api/schedules/[scheduleId]/results": "organization:read",
+  "GET /api/review": "review:read",
   "GET /api/webhooks/deliveries": "integrations:manage",
   "GET /api/templates/schedule.csv": "public",
   "GET /schedules/[scheduleId]/results.csv": "organization:read",

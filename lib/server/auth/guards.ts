@@ -4,6 +4,7 @@ import type { z } from "zod";
 
 import { DomainError, type DomainErrorCode } from "@/lib/server/errors";
 import { badOriginProblem, toProblem } from "@/lib/server/http/problem";
+import { toFormFieldErrors } from "@/lib/server/http/to-form-field-errors";
 
 import { actionAccess, pageAccess, routeAccess, type Access, type ActionKey, type PagePath } from "./access-table";
 import { isSameOrigin } from "./origin";
@@ -68,9 +69,7 @@ export async function runAction<S extends z.ZodType, T = undefined>(
     return await run(parsed.data, context);
   } catch (error) {
     if (error instanceof DomainError) {
-      const fieldErrors = error.errors.length
-        ? Object.fromEntries(error.errors.map((e) => [e.pointer ?? e.column ?? "form", e.message]))
-        : undefined;
+      const fieldErrors = error.errors.length ? toFormFieldErrors(error.errors) : undefined;
       return failure(error.code, error.message, fieldErrors);
     }
     if (isNextControlFlow(error)) throw error;

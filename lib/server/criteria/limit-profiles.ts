@@ -6,6 +6,8 @@ import { DomainError } from "@/lib/server/errors";
 import { createId } from "@/lib/server/ids";
 import { issuesToFieldErrors } from "@/lib/server/schedules/issue-pointers";
 
+import { lockCriteriaCaps } from "./lock-criteria-caps";
+
 export const MAX_LIMIT_PROFILES = 200;
 
 /**
@@ -133,12 +135,12 @@ export async function getLimitProfileOrThrow(organizationId: string, profileId: 
 
 export async function createLimitProfile(organizationId: string, given: LimitProfileInput, userId: string | null = null): Promise<LimitProfileSummary> {
   const input = readTexts(given);
-  const sql = getSql();
-  const [count] = await sql`select count(*)::int as n from limit_profiles where organization_id = ${organizationId}`;
-  if ((count?.n as number) >= MAX_LIMIT_PROFILES) throw new DomainError("conflict", `The organization already has ${MAX_LIMIT_PROFILES} limit profiles, the most it may hold.`);
   const id = createId("lp");
   const { definition, resolved } = resolveDefinition(id, 1, input, null);
-  return sql.begin(async (tx) => {
+  return getSql().begin(async (tx) => {
+    await lockCriteriaCaps(tx, organizationId);
+    const [count] = await tx`select count(*)::int as n from limit_profiles where organization_id = ${organizationId}`;
+    if ((count?.n as number) >= MAX_LIMIT_PROFILES) throw new DomainError("conflict", `The organization already has ${MAX_LIMIT_PROFILES} limit profiles, the most it may hold.`);
     const [row] = await tx`
       insert into limit_profiles (id, organization_id, label, source, based_on_preset, current_version)
       values (${id}, ${organizationId}, ${input.label}, ${input.source}, ${input.basedOnPreset ?? null}, 1) returning *`;

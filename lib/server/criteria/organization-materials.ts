@@ -4,6 +4,7 @@ import type { OrganizationMaterialFamily } from "@/db/schema";
 import { DomainError } from "@/lib/server/errors";
 import { createId } from "@/lib/server/ids";
 
+import { lockCriteriaCaps } from "./lock-criteria-caps";
 import { isUniqueViolation } from "./unique-violation";
 
 export const MAX_ORGANIZATION_MATERIALS = 500;
@@ -95,16 +96,18 @@ export async function getOrganizationMaterialOrThrow(organizationId: string, mat
 
 export async function createOrganizationMaterial(organizationId: string, given: MaterialInput): Promise<OrganizationMaterialView> {
   const input = readTexts(given);
-  const sql = getSql();
-  const [count] = await sql`select count(*)::int as n from organization_materials where organization_id = ${organizationId}`;
-  if ((count?.n as number) >= MAX_ORGANIZATION_MATERIALS) throw new DomainError("conflict", `The organization already has ${MAX_ORGANIZATION_MATERIALS} materials, the most it may hold.`);
   try {
-    const [row] = await sql`
-      insert into organization_materials (id, organization_id, name, family, e_mpa, g_mpa, density_kg_per_m3, creep_factor, source)
-      values (${createId("mat")}, ${organizationId}, ${input.name}, ${input.family}, ${input.eMpa}, ${input.gMpa ?? null}, ${input.densityKgPerM3 ?? null},
-        ${input.creepFactor ?? null}, ${input.source})
-      returning *`;
-    return toView(row!);
+    return await getSql().begin(async (tx) => {
+      await lockCriteriaCaps(tx, organizationId);
+      const [count] = await tx`select count(*)::int as n from organization_materials where organization_id = ${organizationId}`;
+      if ((count?.n as number) >= MAX_ORGANIZATION_MATERIALS) throw new DomainError("conflict", `The organization already has ${MAX_ORGANIZATION_MATERIALS} materials, the most it may hold.`);
+      const [row] = await tx`
+        insert into organization_materials (id, organization_id, name, family, e_mpa, g_mpa, density_kg_per_m3, creep_factor, source)
+        values (${createId("mat")}, ${organizationId}, ${input.name}, ${input.family}, ${input.eMpa}, ${input.gMpa ?? null}, ${input.densityKgPerM3 ?? null},
+          ${input.creepFactor ?? null}, ${input.source})
+        returning *`;
+      return toView(row!);
+    });
   } catch (error) {
     conflictOnName(error, input.name);
   }

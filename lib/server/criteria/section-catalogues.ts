@@ -1,9 +1,12 @@
+import type { TransactionSql } from "postgres";
+
 import type { CatalogueSection } from "@/lib/engine/model";
 import { normaliseSectionName } from "@/lib/engine/sections";
 import { getSql } from "@/db/client";
 import { DomainError } from "@/lib/server/errors";
 import { createId } from "@/lib/server/ids";
 
+import { lockCriteriaCaps } from "./lock-criteria-caps";
 import { isUniqueViolation } from "./unique-violation";
 
 /**
@@ -49,13 +52,16 @@ function assertText(value: string, field: string, max: number): string {
   return text;
 }
 
-async function assertRoomInUse(organizationId: string, adding: number, exceptCatalogueId: string | null): Promise<void> {
-  const [row] = await getSql()`
+/** Call under lockCriteriaCaps, in the transaction that then writes: the sum stays true until it commits. */
+async function assertRoomInUse(tx: TransactionSql, organizationId: string, adding: number, exceptCatalogueId: string | null): Promise<void> {
+  const [row] = await tx`
     select coalesce(sum(section_count), 0)::int as total from section_catalogues
     where organization_id = ${organizationId} and in_use and id is distinct from ${exceptCatalogueId}`;
   const total = (row?.total as number) + adding;
   if (total > MAX_SECTIONS_IN_USE) {
-    throw new DomainError("conflict", `The catalogues in use would hold ${total} sections; at most ${MAX_SECTIONS_IN_USE}. Take another catalogue out of use first.`);
+    throw new DomainError("conflict", `The catalogues in use would hold ${total} sections; at most ${MAX_SECTIONS_IN_USE}. Take another catalogue out of use first.`, [
+      { pointer: "/inUse", message: `would bring the sections in use to ${total}, over ${MAX_SECTIONS_IN_USE}` },
+    ]);
   }
 }
 
@@ -63,10 +69,11 @@ async function assertRoomInUse(organizationId: string, adding: number, exceptCat
 export async function importSectionCatalogue(input: ImportCatalogueInput): Promise<CatalogueSummary> {
   const name = assertText(input.name, "name", 100);
   const source = assertText(input.source, "source", 500);
-  if (input.inUse) await assertRoomInUse(input.organizationId, input.sections.length, null);
   const id = createId("cat");
   try {
     return await getSql().begin(async (tx) => {
+      await lockCriteriaCaps(tx, input.organizationId);
+      if (input.inUse) await assertRoomInUse(tx, input.organizationId, input.sections.length, null);
       const [row] = await tx`
         insert into section_catalogues (id, organization_id, name, source, in_use, section_count, created_by_user_id)
         values (${id}, ${input.organizationId}, ${name}, ${source}, ${input.inUse}, ${input.sections.length}, ${input.userId ?? null})
@@ -111,12 +118,15 @@ function toSection(row: Record<string, unknown>): CatalogueSection {
 }
 
 export async function setSectionCatalogueInUse(organizationId: string, catalogueId: string, inUse: boolean): Promise<CatalogueSummary> {
-  const sql = getSql();
-  const [current] = await sql`select section_count from section_catalogues where id = ${catalogueId} and organization_id = ${organizationId}`;
-  if (!current) throw new DomainError("not_found", "The section catalogue was not found.");
-  if (inUse) await assertRoomInUse(organizationId, current.section_count as number, catalogueId);
-  const [row] = await sql`update section_catalogues set in_use = ${inUse}, updated_at = now() where id = ${catalogueId} and organization_id = ${organizationId} returning *`;
-  return toSummary(row!);
+  return getSql().begin(async (tx) => {
+    await lockCriteriaCaps(tx, organizationId);
+    const [current] = await tx`select section_count from section_catalogues where id = ${catalogueId} and organization_id = ${organizationId}`;
+    if (!current) throw new DomainError("not_found", "The section catalogue was not found.");
+    if (inUse) await assertRoomInUse(tx, organizationId, current.section_count as number, catalogueId);
+    const [row] = await tx`update section_catalogues set in_use = ${inUse}, updated_at = now() where id = ${catalogueId} and organization_id = ${organizationId} returning *`;
+    if (!row) throw new DomainError("not_found", "The section catalogue was not found.");
+    return toSummary(row);
+  });
 }
 
 /** Removes a catalogue; schedules already checked keep the sections they were checked with (schedule_criteria). */

@@ -44,6 +44,8 @@ function isPosition(sort: QueueSort) {
 }
 
 export const QUEUE_MAX_LIMIT = 200;
+/** Rows per page of the dashboard's queue (the page and its live refresh read the same page). */
+export const REVIEW_PAGE_SIZE = 50;
 
 /**
  * One page of the review queue of an organization: filtered, in one of three orders, keyset

@@ -1,9 +1,8 @@
 "use client";
 
 import { ActionForm, useFieldError } from "@/components/forms/action-form";
-import { FormField } from "@/components/forms/form-field";
+import { FormField, FormSelectField } from "@/components/forms/form-field";
 import { SubmitButton } from "@/components/forms/submit-button";
-import { SelectField } from "@/components/ui/field";
 
 import { createLimitProfile, updateLimitProfile } from "../actions";
 
@@ -42,14 +41,14 @@ export function NewProfileForm({ presets }: NewProfileFormProps) {
       <h2 className="font-semibold">New limit profile</h2>
       <FormField label="Label" name="label" maxLength={200} autoComplete="off" placeholder="Floors, in-house (live l/480)" />
       <FormField label="Source" name="source" maxLength={500} autoComplete="off" placeholder="IBC 2021 Table 1604.3, live row tightened by the firm" />
-      <SelectField label="Copy of preset" name="basedOnPreset" defaultValue="" className="w-full rounded border border-rule bg-sheet px-2 py-1.5 text-sm">
+      <FormSelectField label="Copy of preset" name="basedOnPreset" defaultValue="" className="w-full rounded border border-rule bg-sheet px-2 py-1.5 text-sm">
         <option value="">None: use the definition below</option>
         {presets.map((p) => (
           <option key={p.id} value={p.id}>
             {p.label}
           </option>
         ))}
-      </SelectField>
+      </FormSelectField>
       <DefinitionField hint="Leave empty to copy the preset as it is; edit the copy afterwards. Quantities carry units, e.g. {&quot;value&quot;: 20, &quot;unit&quot;: &quot;mm&quot;}." />
       <SubmitButton pendingLabel="Saving…">Save profile</SubmitButton>
     </ActionForm>

@@ -1,9 +1,8 @@
 "use client";
 
 import { ActionForm } from "@/components/forms/action-form";
-import { FormField } from "@/components/forms/form-field";
+import { FormField, FormSelectField } from "@/components/forms/form-field";
 import { SubmitButton } from "@/components/forms/submit-button";
-import { SelectField } from "@/components/ui/field";
 import type { OrganizationMaterialView } from "@/lib/server/criteria/organization-materials";
 
 import { createMaterial, updateMaterial } from "../actions";
@@ -25,13 +24,13 @@ export function MaterialForm({ material }: MaterialFormProps) {
       {material ? <input type="hidden" name="materialId" value={material.id} /> : <h2 className="col-span-full font-semibold">Add a material</h2>}
       <FormField label="Name" name="name" maxLength={100} defaultValue={material?.name} autoComplete="off" className="col-span-2" />
       <div className="col-span-2">
-        <SelectField label="Family (creep behaviour)" name="family" defaultValue={material?.family ?? "steel"} className="w-full rounded border border-rule bg-sheet px-2 py-1.5 text-sm">
+        <FormSelectField label="Family (creep behaviour)" name="family" defaultValue={material?.family ?? "steel"} className="w-full rounded border border-rule bg-sheet px-2 py-1.5 text-sm">
           {families.map((f) => (
             <option key={f.value} value={f.value}>
               {f.label}
             </option>
           ))}
-        </SelectField>
+        </FormSelectField>
       </div>
       <FormField label="E [MPa]" name="eMpa" inputMode="decimal" defaultValue={text(material?.eMpa)} />
       <FormField label="G [MPa], optional" name="gMpa" inputMode="decimal" defaultValue={text(material?.gMpa)} />

@@ -24,6 +24,23 @@ function FileField() {
   );
 }
 
+function InUseField() {
+  const error = useFieldError("inUse");
+  return (
+    <div>
+      <label className="flex items-center gap-2 text-sm">
+        <input type="checkbox" name="inUse" defaultChecked aria-invalid={error ? true : undefined} aria-describedby={error ? "in-use-error" : undefined} /> In use: resolve section names in
+        schedules and suggest the lightest passing section
+      </label>
+      {error ? (
+        <span id="in-use-error" className="mt-1 block text-xs text-fail">
+          {error}
+        </span>
+      ) : null}
+    </div>
+  );
+}
+
 /** Imports a catalogue: every row is checked, and any problem stores nothing. */
 export function ImportCatalogueForm() {
   return (
@@ -32,9 +49,7 @@ export function ImportCatalogueForm() {
       <FormField label="Name" name="name" maxLength={100} autoComplete="off" />
       <FormField label="Source of the properties" name="source" maxLength={500} autoComplete="off" placeholder="Manufacturer's table, edition; or in-house calculation" />
       <FileField />
-      <label className="flex items-center gap-2 text-sm">
-        <input type="checkbox" name="inUse" defaultChecked /> In use: resolve section names in schedules and suggest the lightest passing section
-      </label>
+      <InUseField />
       <SubmitButton pendingLabel="Importing…">Import</SubmitButton>
     </ActionForm>
   );
