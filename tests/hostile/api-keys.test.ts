@@ -144,3 +144,45 @@ describe("scopes a role lacks", () => {
     expect(answer.result).toMatchObject({ ok: true });
   });
 });
+
+describe("an engineer's own keys", () => {
+  it("opens the key page with only the scopes an engineer may grant, and makes a review:write key", async () => {
+    const engineer = await createTestMember("engineer");
+    const { agent } = await signIn(engineer.email, engineer.password);
+    const page = await agent.get("/integrations/keys");
+    expect(page.status).toBe(200);
+    for (const scope of ["schedules:write", "results:read", "criteria:manage", "review:write"]) expect(page.text).toContain(`name="scope:${scope}"`);
+    for (const scope of ["webhooks:manage", "keys:manage"]) expect(page.text).not.toContain(`name="scope:${scope}"`);
+    // Webhook endpoints stay with integrators and administrators.
+    expect((await agent.get("/integrations/webhooks")).status).toBe(403);
+
+    const made = await callAction(agent, findAction("keys/createApiKey"), { name: "firm review tool", "scope:review:write": "on", "scope:criteria:manage": "on" });
+    expect(made.result).toMatchObject({ ok: true });
+    const refused = await callAction(agent, findAction("keys/createApiKey"), { name: "too much", "scope:results:read": "on", "scope:webhooks:manage": "on" });
+    expect(refused.result).toMatchObject({ ok: false, code: "forbidden" });
+    const [row] = await getDb().select().from(apiKeys).where(eq(apiKeys.createdByUserId, engineer.id));
+    expect(row?.scopes).toEqual(["criteria:manage", "review:write"]);
+  });
+
+  it("lists and revokes only the keys the engineer made; another person's key reads as missing and keeps working", async () => {
+    const engineer = await createTestMember("engineer");
+    const integrator = await createTestMember("integrator");
+    const theirs = await createApiKey({ organizationId, name: `integrator's key ${Date.now()}`, scopes: ["results:read"], createdBy: { userId: integrator.id, role: "integrator" } });
+    const mine = await createApiKey({ organizationId, name: `engineer's key ${Date.now()}`, scopes: ["results:read"], createdBy: { userId: engineer.id, role: "engineer" } });
+    const { agent } = await signIn(engineer.email, engineer.password);
+
+    const page = await agent.get("/integrations/keys");
+    expect(page.text).toContain(mine.apiKey.name);
+    expect(page.text).not.toContain(theirs.apiKey.name);
+
+    const other = await callAction(agent, findAction("keys/revokeApiKey"), { keyId: theirs.apiKey.id });
+    expect(other.result).toMatchObject({ ok: false, code: "not_found" });
+    const [still] = await getDb().select().from(apiKeys).where(eq(apiKeys.id, theirs.apiKey.id));
+    expect(still?.revokedAt).toBeNull();
+    expect((await request(APP_URL).get("/api/v1/schedules").set("authorization", `Bearer ${theirs.secret}`)).status).toBe(200);
+
+    const own = await callAction(agent, findAction("keys/revokeApiKey"), { keyId: mine.apiKey.id });
+    expect(own.result).toMatchObject({ ok: true });
+    expect((await request(APP_URL).get("/api/v1/schedules").set("authorization", `Bearer ${mine.secret}`)).status).toBe(401);
+  });
+});

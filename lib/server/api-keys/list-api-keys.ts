@@ -45,13 +45,16 @@ export async function listApiKeys(input: {
   organizationId: string;
   limit: number;
   after?: ApiKeyCursor | null;
+  /** Only the keys this person made (a role that issues keys but does not manage integrations). */
+  madeByUserId?: string;
 }): Promise<{ items: ApiKeyView[]; next: ApiKeyCursor | null }> {
-  const { organizationId, limit, after } = input;
+  const { organizationId, limit, after, madeByUserId } = input;
   // postgres-js binds raw parameters as text, so the cursor's time goes in as ISO 8601.
   const afterAt = after ? sql`${after.createdAt.toISOString()}::timestamptz` : null;
   const position =
     after && afterAt ? or(sql`${createdAtMs} < ${afterAt}`, and(sql`${createdAtMs} = ${afterAt}`, lt(apiKeys.id, after.id))) : undefined;
-  const rows = await selectKeysWithCreator(and(eq(apiKeys.organizationId, organizationId), position))
+  const maker = madeByUserId === undefined ? undefined : eq(apiKeys.createdByUserId, madeByUserId);
+  const rows = await selectKeysWithCreator(and(eq(apiKeys.organizationId, organizationId), maker, position))
     .orderBy(desc(createdAtMs), desc(apiKeys.id))
     .limit(limit + 1);
   const page = rows.slice(0, limit);

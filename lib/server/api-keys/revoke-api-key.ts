@@ -29,8 +29,15 @@ export async function revokeDescendantKeys(tx: Tx, organizationId: string, paren
  * request on (every request reads the key row). Revoking twice keeps the first time. Another
  * organization's key reads as missing.
  */
-export async function revokeApiKey(input: { organizationId: string; keyId: string }): Promise<ApiKeyView> {
+export async function revokeApiKey(input: { organizationId: string; keyId: string; madeByUserId?: string }): Promise<ApiKeyView> {
   const now = new Date();
+  // Someone who may revoke only their own keys finds another person's key exactly as a missing one.
+  const mine = input.madeByUserId === undefined ? undefined : eq(apiKeys.createdByUserId, input.madeByUserId);
+  const [owned] = await getDb()
+    .select({ id: apiKeys.id })
+    .from(apiKeys)
+    .where(and(eq(apiKeys.id, input.keyId), eq(apiKeys.organizationId, input.organizationId), mine));
+  if (!owned) throw new DomainError("not_found", "That API key was not found.");
   await getDb().transaction(async (tx) => {
     await tx
       .update(apiKeys)

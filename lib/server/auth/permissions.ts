@@ -8,6 +8,8 @@ export const permissions = [
   "review:disposition",
   "criteria:manage",
   "integrations:manage",
+  // Make and revoke API keys of one's own, with only the scopes one's role may grant (scopes.ts).
+  "keys:issue",
   "settings:read",
   "people:manage",
 ] as const;
@@ -22,9 +24,11 @@ export const rolePermissions: Record<Role, readonly Permission[]> = {
     "review:read",
     "review:disposition",
     "criteria:manage",
+    // Engineers put criteria:manage and review:write on keys for their firm's own tools.
+    "keys:issue",
     "settings:read",
   ],
-  integrator: ["organization:read", "integrations:manage"],
+  integrator: ["organization:read", "integrations:manage", "keys:issue"],
   submitter: ["organization:read", "schedules:submit"],
   viewer: ["organization:read", "review:read"],
 };
@@ -43,7 +47,7 @@ export const roleLabels: Record<Role, string> = {
 
 export const roleDescriptions: Record<Role, string> = {
   admin: "People, roles and every setting",
-  engineer: "Check criteria, review and dispositions",
+  engineer: "Check criteria, review and dispositions, and API keys of their own for them",
   integrator: "API keys and webhook endpoints",
   submitter: "Submits schedules, reads results",
   viewer: "Reads results only",

@@ -55,7 +55,7 @@ function describeApi(limits: ApiLimits): string {
     "Submit whole member schedules, read each member's serviceability result, and receive signed webhooks when a schedule completes.",
     "",
     "## Authentication",
-    `Send \`Authorization: Bearer <key>\`. Keys look like \`${API_KEY_SCAN_PATTERN}\` (a fixed prefix and a checksum, so secret scanners can find leaked ones). Keys in the URL are refused (400) and cookies are ignored. Integrators and administrators create and revoke keys in the console (Integrations, API keys); a revocation applies to the next request.`,
+    `Send \`Authorization: Bearer <key>\`. Keys look like \`${API_KEY_SCAN_PATTERN}\` (a fixed prefix and a checksum, so secret scanners can find leaked ones). Keys in the URL are refused (400) and cookies are ignored. Integrators and administrators create and revoke keys in the console (Integrations, API keys); engineers make and revoke keys of their own there, with the scopes their role may grant; a revocation applies to the next request.`,
     "",
     "Scopes:",
     scopes,

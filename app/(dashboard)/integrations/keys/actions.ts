@@ -8,6 +8,7 @@ import { API_KEY_EXPIRES_DAYS_MAX, API_KEY_NAME_MAX_LENGTH } from "@/lib/server/
 import { revokeApiKey as revoke } from "@/lib/server/api-keys/revoke-api-key";
 import { apiKeyScopes } from "@/lib/server/api-keys/scopes";
 import { getActionOrganizationId, runAction, type ActionResult } from "@/lib/server/auth/guards";
+import { can } from "@/lib/server/auth/request-context";
 import { idSchema } from "@/lib/server/validation";
 
 import { scopeFieldName } from "./scope-fields";
@@ -55,7 +56,8 @@ const revokeSchema = z.object({ keyId: idSchema("key") });
 
 export async function revokeApiKey(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
   return runAction("keys/revokeApiKey", revokeSchema, formData, async ({ keyId }, context) => {
-    const key = await revoke({ organizationId: getActionOrganizationId(context), keyId });
+    const madeByUserId = can(context, "integrations:manage") ? undefined : context!.user.id;
+    const key = await revoke({ organizationId: getActionOrganizationId(context), keyId, madeByUserId });
     revalidatePath("/integrations/keys");
     return { ok: true, message: `Key "${key.name}" revoked. Requests with it are refused from now on.` };
   });

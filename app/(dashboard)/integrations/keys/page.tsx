@@ -5,6 +5,8 @@ import { API_KEY_EXPIRES_DAYS_MAX, API_KEY_NAME_MAX_LENGTH } from "@/lib/server/
 import { listApiKeys } from "@/lib/server/api-keys/list-api-keys";
 import { adminScopes, listGrantableScopes, scopeDescriptions } from "@/lib/server/api-keys/scopes";
 import { requirePage } from "@/lib/server/auth/guards";
+import { roleLabels } from "@/lib/server/auth/permissions";
+import { can } from "@/lib/server/auth/request-context";
 
 import { PageHeader } from "../../_components/page-header";
 import { CreateKeyForm } from "./_components/create-key-form";
@@ -17,7 +19,9 @@ const CONSOLE_KEY_LIMIT = 200;
 
 export default async function ApiKeysPage() {
   const context = await requirePage("/integrations/keys");
-  const { items, next } = await listApiKeys({ organizationId: context.active!.organizationId, limit: CONSOLE_KEY_LIMIT });
+  // Integrators and administrators see every key; an engineer sees and revokes the keys they made.
+  const ownOnly = !can(context, "integrations:manage");
+  const { items, next } = await listApiKeys({ organizationId: context.active!.organizationId, limit: CONSOLE_KEY_LIMIT, madeByUserId: ownOnly ? context.user.id : undefined });
   // Only the scopes this person's role may grant (createApiKey enforces the same rule).
   const scopes = listGrantableScopes(context.active!.role).map((scope) => ({ scope, description: scopeDescriptions[scope], admin: adminScopes.includes(scope) }));
   return (
@@ -29,8 +33,14 @@ export default async function ApiKeysPage() {
       </PageHeader>
       <div className="grid gap-6 lg:grid-cols-[1fr_22rem]">
         <section aria-labelledby="keys-heading" className="min-w-0">
+          {ownOnly ? (
+            <p className="mb-3 rounded border border-rule bg-sheet px-3 py-2 text-sm text-ink-soft" data-testid="own-keys-note">
+              Your role ({roleLabels[context.active!.role]}) makes and revokes keys of its own, with only the scopes it may grant. Integrators and administrators see and revoke
+              every key of the organization.
+            </p>
+          ) : null}
           <h2 id="keys-heading" className="mb-2 font-semibold">
-            Keys ({items.length}
+            {ownOnly ? "Your keys" : "Keys"} ({items.length}
             {next ? "+" : ""})
           </h2>
           <KeyTable keys={items} />

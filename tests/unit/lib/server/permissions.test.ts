@@ -23,6 +23,10 @@ describe("the permission table", () => {
     expect(roles.filter((r) => hasPermission(r, "integrations:manage"))).toEqual(["admin", "integrator"]);
     expect(roles.filter((r) => hasPermission(r, "review:disposition"))).toEqual(["admin", "engineer"]);
   });
+
+  it("lets engineers issue keys of their own beside integrators and admins, so review:write has someone to grant it", () => {
+    expect(roles.filter((r) => hasPermission(r, "keys:issue"))).toEqual(["admin", "engineer", "integrator"]);
+  });
 });
 
 describe("decideAccess", () => {
