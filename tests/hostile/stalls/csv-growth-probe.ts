@@ -1,5 +1,5 @@
 /**
- * Run in its own process (node --expose-gc --import tsx) by csv-growth.test.ts: reads a CSV of
+ * Run in its own process (node --expose-gc --single-threaded-gc --import tsx) by csv-growth.test.ts: reads a CSV of
  * `rows` and of 10 x `rows` rows with the server's streaming reader and prints the least CPU time
  * of five reads of each as one JSON line. Collecting garbage before each read keeps an earlier
  * read's garbage, and the test runner's, out of the figure.
