@@ -42,7 +42,7 @@ describe("CSV header cells", () => {
 describe("CSV rows", () => {
   // Measured in a fresh process (csv-growth-probe.ts) that collects garbage before each read, with
   // one GC thread: the CPU time of idle parallel GC helpers grows with the heap and with other load
-  // on the machine, not with the reader's work (ratios 11 to 12.8 with them, about 10 without).
+  // on the machine, not with the reader's work (ratios 9 to 12.8 with them, about 10 without).
   it.each([
     ["valid rows", "3.5", 10_000],
     ["rows that all fail", "3,5", 10_000],
