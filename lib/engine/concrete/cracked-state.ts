@@ -8,10 +8,10 @@ import type { Member, ReinforcedConcreteSection } from "../model";
 import { createCaseFactors, type CaseFactors } from "../solver/deflection-field";
 import { findSpanMomentRange, type SpanMomentRange } from "../solver/moment-field";
 import { solveValidatedMember, type MemberSolution, type PatternSplit } from "../solver/solve-member";
-import { getSpanJudgements } from "../checks/span-groups";
 import { EngineInputError } from "../solver/engine-input-error";
 import { getCrackedSection, getCrackingMomentNmm, getGrossConcreteProperties, hasTopSteel, type MomentSign } from "./cracked-section";
 import { getEffectiveInertiaMm4, UNCRACKED_MOMENT_SHARE } from "./effective-inertia";
+import { describeMissingTopSteel, hasSpanBetweenSupports } from "./hogging-causes";
 
 /** Most solves per load level; then the lower of the last two iterates is used (and said). */
 export const MAX_CRACKED_ITERATIONS = 30;
@@ -120,15 +120,6 @@ export function getSpanGoverningInertia(section: ReinforcedConcreteSection, conc
 }
 
 /**
- * Whether the member has a span between supports. Its given steel is then bottom steel; in a
- * member of overhangs only it is top steel (model.ts ReinforcedConcreteSection).
- */
-function hasSpanBetweenSupports(member: Member): boolean {
-  for (const judgement of getSpanJudgements(member)) if (judgement.spanKind === "span") return true;
-  return false;
-}
-
-/**
  * Refuses a solved state in which a span cracks under a moment whose tension steel was not given:
  * hogging in a member with a span between supports and no top steel, or sagging (net uplift) in a
  * member of overhangs only and no top steel (its given steel is its top steel). Guessing that
@@ -146,7 +137,7 @@ function assertTensionSteelKnown(member: Member, ranges: readonly SpanMomentRang
     if (!(Math.abs(moment) > UNCRACKED_MOMENT_SHARE * getSpanCrackingFacts(section, span.eMpa).mCrNmm)) return;
     const path = `spans[${index}].reinforcedConcrete.topSteelMm2`;
     const message = betweenSupports
-      ? "is required: a hogging (negative) moment past (2/3) M_cr acts on this span, and its cracked stiffness depends on the top steel (ACI 318-19 24.2.3.5); give topSteel (area) and topDepth (d_top, from the bottom face)"
+      ? describeMissingTopSteel("a hogging (negative) moment past (2/3) M_cr acts on this span")
       : "is required: this overhang sags (net upward load) past (2/3) M_cr, and in a member of overhangs only the given steel is the top steel; give topSteel and topDepth for the top steel, and the bottom steel as tensionSteel and effectiveDepth";
     throw new EngineInputError([{ path, message }]);
   });

@@ -25,16 +25,24 @@ function reversesMoment(load: Load): boolean {
 }
 
 /**
+ * Whether the member has a span between supports. Its given steel is then bottom steel; in a
+ * member of overhangs only it is top steel (model.ts ReinforcedConcreteSection).
+ */
+export function hasSpanBetweenSupports(member: Member): boolean {
+  for (const judgement of getSpanJudgements(member)) if (judgement.spanKind === "span") return true;
+  return false;
+}
+
+/**
  * Why the member can take hogging moment in a span between supports, in words ("continuous over
  * an interior support"), or null when it cannot: a member of overhangs alone (its given steel is
  * its top steel, model.ts), or a single span on two simple supports under downward loads.
  */
 export function findHoggingCause(member: Member): string | null {
-  const judgements = getSpanJudgements(member);
   let betweenSupports = 0;
   let overhangs = 0;
   let lastGroup = -1;
-  for (const judgement of judgements) {
+  for (const judgement of getSpanJudgements(member)) {
     if (judgement.spanKind === "cantilever") overhangs += 1;
     else if (judgement.groupIndex !== lastGroup) betweenSupports += 1;
     lastGroup = judgement.groupIndex;
