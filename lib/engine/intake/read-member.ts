@@ -17,6 +17,7 @@ import {
   readObject,
   readQuantity,
   readString,
+  formatPath,
   type FieldPath,
   type FindCatalogue,
   type ReadContext,
@@ -55,6 +56,8 @@ function getIndexSuffix(cache: string[], field: string, index: number): string {
 export interface MemberOrigins {
   spans: string[];
   supports: string[];
+  /** Where each span's reinforcement block was given (the member's or the span's own); only on reinforced members. */
+  reinforcements?: (string | null)[];
 }
 
 /** What the member reader needs from the schedule-level profile. */
@@ -418,11 +421,14 @@ function requireTopSteel(ctx: ReadContext, member: Member, segments: readonly Se
 
 function createOrigins(path: string, segments: readonly SegmentDraft[], listed: readonly unknown[], hasLeft: boolean, hasRight: boolean): MemberOrigins {
   const listedPaths = listed.map((_, index) => path + getIndexSuffix(supportSuffixes, "supports", index));
-  return {
+  const origins: MemberOrigins = {
     spans: segments.map((s) => s.origin),
     supports:
       hasLeft || hasRight
         ? [...(hasLeft ? [path + LEFT_OVERHANG_SUFFIX] : []), ...listedPaths, ...(hasRight ? [path + RIGHT_OVERHANG_SUFFIX] : [])]
         : listedPaths,
   };
+  // only reinforced members pay for this: the solver's refusals name their reinforcement's fields
+  if (segments.some((s) => s.reinforcement !== null)) origins.reinforcements = segments.map((s) => (s.reinforcement ? formatPath(s.reinforcement.path) : null));
+  return origins;
 }

@@ -19,7 +19,8 @@ export const DEFAULT_DURATION_MONTHS = 60;
 const REINFORCEMENT_SPEC = createFieldSpec(["tensionSteel", "effectiveDepth", "compressionSteel", "compressionDepth", "topSteel", "topDepth", "steelE"], ["tensionSteel", "effectiveDepth"]);
 const CREEP_SPEC = createFieldSpec(["method", "durationMonths", "compressionRatio", "factor"], ["method"]);
 
-const PUBLIC_FIELDS: Partial<Record<keyof ReinforcedConcreteSection, string>> = {
+/** The schedule's name of each engine field of the reinforcement block, for messages from the solver too. */
+export const REINFORCEMENT_PUBLIC_FIELDS: Partial<Record<keyof ReinforcedConcreteSection, string>> = {
   tensionSteelMm2: "tensionSteel",
   effectiveDepthMm: "effectiveDepth",
   compressionSteelMm2: "compressionSteel",
@@ -109,7 +110,7 @@ export function createReinforcedSection(ctx: ReadContext, input: ReinforcementIn
     built.topEffectiveDepthMm = input.topEffectiveDepthMm;
   }
   const problems = findReinforcementProblems(built);
-  for (const problem of problems) ctx.issues.add(childPath(input.path, PUBLIC_FIELDS[problem.field] ?? problem.field), `${problem.message}${where}`);
+  for (const problem of problems) ctx.issues.add(childPath(input.path, REINFORCEMENT_PUBLIC_FIELDS[problem.field] ?? problem.field), `${problem.message}${where}`);
   return problems.length > 0 ? null : built;
 }
 

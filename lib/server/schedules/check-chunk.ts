@@ -1,7 +1,8 @@
 import { checkMember } from "@/lib/engine/check-member";
-import { parseSchedule } from "@/lib/engine/intake";
+import { parseSchedule, type MemberOrigins } from "@/lib/engine/intake";
 import type { MemberResult } from "@/lib/engine/model";
 import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
+import { mapEnginePath } from "@/lib/engine/check-schedule";
 import { getSql } from "@/db/client";
 import { copyRows } from "@/lib/server/copy-rows";
 import { loadScheduleCriteria, toParseOptions, type ScheduleCriteria } from "@/lib/server/criteria/schedule-criteria";
@@ -48,9 +49,25 @@ export function checkMembers(header: Record<string, unknown>, firstMember: numbe
       return { index, mark: member.mark, category: member.category, input, result: checkMember(member, parsed.schedule.profile, criteria?.catalogue), error: null, spanOrigins };
     } catch (error) {
       if (!(error instanceof EngineInputError)) throw error;
-      return { index, mark: member.mark, category: member.category, input, result: null, error: error.issues.map((e) => `${e.path}: ${e.message}`).join("; ") };
+      return { index, mark: member.mark, category: member.category, input, result: null, error: describeEngineIssues(error, i, index, parsed.schedule.origins[i]) };
     }
   });
+}
+
+/**
+ * The member's error as the schedule names its fields (`members[5003].reinforcement.topSteel`),
+ * not the engine's (`spans[0].reinforcedConcrete.topSteelMm2`). The chunk was parsed on its own,
+ * so its paths count from the chunk's first member: they are moved to the schedule's index.
+ */
+function describeEngineIssues(error: EngineInputError, chunkIndex: number, index: number, origins: MemberOrigins | undefined): string {
+  const local = `members[${chunkIndex}]`;
+  const global = `members[${index}]`;
+  return error.issues
+    .map((issue) => {
+      const path = mapEnginePath(issue.path, local, origins);
+      return `${path.startsWith(local) ? global + path.slice(local.length) : path}: ${issue.message}`;
+    })
+    .join("; ");
 }
 
 /** Runs checkMembers over a chunk's stored JSON text: inline, or on an engine thread (workers/engine). */
