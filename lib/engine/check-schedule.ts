@@ -4,11 +4,10 @@
  */
 import { checkMember } from "./check-member";
 import { parseSchedule, type ParsedSchedule, type ParseScheduleOptions } from "./intake";
-import type { CatalogueSection, InputIssue, LimitProfile, Member, MemberResult } from "./model";
+import type { CatalogueSection, InputIssue, LimitProfile, Member, MemberResult, ReinforcedConcreteSection } from "./model";
 import { EngineInputError } from "./solver/engine-input-error";
 import type { MemberOrigins } from "./intake";
 import { REINFORCEMENT_PUBLIC_FIELDS } from "./intake/read-reinforcement";
-import type { ReinforcedConcreteSection } from "./model";
 
 export interface CheckScheduleOptions extends ParseScheduleOptions {
   /** Used both to resolve `section: "name"` and for the lightest-passing-section suggestion. */
@@ -64,9 +63,9 @@ export function mapEnginePath(enginePath: string, memberPath: string, origins: M
   if (enginePath.startsWith("profile")) return enginePath;
   if (enginePath.startsWith("catalogue")) return enginePath;
   const indexed = /^(spans|supports)\[(\d+)\](.*)$/.exec(enginePath);
-  const reinforcement = indexed?.[1] === "spans" ? origins?.reinforcements?.[Number(indexed[2])] : undefined;
-  const field = indexed?.[3]?.startsWith(".reinforcedConcrete.") ? indexed[3].slice(".reinforcedConcrete.".length) : undefined;
-  const publicField = field === undefined ? undefined : REINFORCEMENT_PUBLIC_FIELDS[field as keyof ReinforcedConcreteSection];
+  const reinforced = /^spans\[(\d+)\]\.reinforcedConcrete\.(\w+)$/.exec(enginePath);
+  const reinforcement = reinforced ? origins?.reinforcements?.[Number(reinforced[1])] : undefined;
+  const publicField = reinforced ? REINFORCEMENT_PUBLIC_FIELDS[reinforced[2] as keyof ReinforcedConcreteSection] : undefined;
   if (reinforcement && publicField) return `${reinforcement}.${publicField}`;
   const origin = indexed && origins ? origins[indexed[1] as "spans" | "supports"][Number(indexed[2])] : undefined;
   if (indexed && origin) return `${origin}${indexed[3] ? ` (engine ${indexed[1]}[${indexed[2]}]${indexed[3]})` : ""}`;

@@ -34,6 +34,11 @@ export interface ParseScheduleOptions {
    * onMember) holds no model of a large schedule in memory. Default true.
    */
   retainMembers?: boolean;
+  /**
+   * The schedule index of `members[0]` when the document holds a slice of a schedule (a worker's
+   * chunk), so every path and origin names the member as the whole schedule numbers it. Default 0.
+   */
+  firstMemberIndex?: number;
 }
 
 export interface ParsedSchedule {
@@ -44,7 +49,7 @@ export interface ParsedSchedule {
   /** The unit text per kind that bare numbers took, for echoing results in the schedule's units. */
   unitDefaults: Record<string, string>;
   profile: LimitProfile;
-  /** One per public member, same order: members[i] came from the path `members[i]`. */
+  /** One per public member, same order: members[i] came from the path `members[firstMemberIndex + i]`. */
   members: Member[];
   /** Per member, the public path of each engine span and support (overhangs become spans). */
   origins: MemberOrigins[];
@@ -84,6 +89,7 @@ export function parseSchedule(doc: unknown, options: ParseScheduleOptions = {}):
   const members: Member[] = [];
   const origins: MemberOrigins[] = [];
   const retainMembers = options.retainMembers ?? true;
+  const firstMemberIndex = options.firstMemberIndex ?? 0;
   const membersValue = root.members;
   if (membersValue !== undefined && (!Array.isArray(membersValue) || membersValue.length === 0 || membersValue.length > MAX_MEMBERS)) {
     issues.add("members", `must be an array of 1 to ${MAX_MEMBERS} members`);
@@ -101,13 +107,13 @@ export function parseSchedule(doc: unknown, options: ParseScheduleOptions = {}):
     const firstIndexByMark = new Map<string, number>();
     for (let index = 0; index < membersValue.length; index++) {
       const entry: unknown = membersValue[index];
-      const path = joinPath("members", index);
+      const path = joinPath("members", firstMemberIndex + index);
       const read = readMember(ctx, entry, path, facts, findCatalogue);
       const markValue = typeof entry === "object" && entry !== null ? (entry as Record<string, unknown>).mark : undefined;
       const mark = typeof markValue === "string" ? markValue.trim() : "";
       if (mark !== "") {
         const first = firstIndexByMark.get(mark);
-        if (first !== undefined) issues.add(childPath(path, "mark"), `duplicate mark "${mark}" (first at ${joinPath("members", first)})`);
+        if (first !== undefined) issues.add(childPath(path, "mark"), `duplicate mark "${mark}" (first at ${joinPath("members", firstMemberIndex + first)})`);
         else firstIndexByMark.set(mark, index);
       }
       if (read) {

@@ -1,5 +1,5 @@
 import { checkMember } from "@/lib/engine/check-member";
-import { parseSchedule, type MemberOrigins } from "@/lib/engine/intake";
+import { parseSchedule } from "@/lib/engine/intake";
 import type { MemberResult } from "@/lib/engine/model";
 import { EngineInputError } from "@/lib/engine/solver/engine-input-error";
 import { mapEnginePath } from "@/lib/engine/check-schedule";
@@ -38,7 +38,8 @@ function describeInput(member: { sectionName?: string; materialName?: string; qu
  */
 export function checkMembers(header: Record<string, unknown>, firstMember: number, inputs: unknown[], criteria: ScheduleCriteria | null = null): Outcome[] {
   const options = toParseOptions(criteria);
-  const parsed = parseSchedule({ ...header, members: inputs }, options);
+  // paths count from the chunk's first member, so errors name the member as the schedule numbers it
+  const parsed = parseSchedule({ ...header, members: inputs }, { ...options, firstMemberIndex: firstMember });
   // The whole schedule passed this at submission; failing now means stored data changed.
   if (!parsed.ok) throw new Error(`stored members no longer parse: ${parsed.issues[0]?.path}: ${parsed.issues[0]?.message}`);
   return parsed.schedule.members.map((member, i) => {
@@ -49,25 +50,9 @@ export function checkMembers(header: Record<string, unknown>, firstMember: numbe
       return { index, mark: member.mark, category: member.category, input, result: checkMember(member, parsed.schedule.profile, criteria?.catalogue), error: null, spanOrigins };
     } catch (error) {
       if (!(error instanceof EngineInputError)) throw error;
-      return { index, mark: member.mark, category: member.category, input, result: null, error: describeEngineIssues(error, i, index, parsed.schedule.origins[i]) };
+      return { index, mark: member.mark, category: member.category, input, result: null, error: error.issues.map((e) => `${mapEnginePath(e.path, `members[${index}]`, parsed.schedule.origins[i])}: ${e.message}`).join("; ") };
     }
   });
-}
-
-/**
- * The member's error as the schedule names its fields (`members[5003].reinforcement.topSteel`),
- * not the engine's (`spans[0].reinforcedConcrete.topSteelMm2`). The chunk was parsed on its own,
- * so its paths count from the chunk's first member: they are moved to the schedule's index.
- */
-function describeEngineIssues(error: EngineInputError, chunkIndex: number, index: number, origins: MemberOrigins | undefined): string {
-  const local = `members[${chunkIndex}]`;
-  const global = `members[${index}]`;
-  return error.issues
-    .map((issue) => {
-      const path = mapEnginePath(issue.path, local, origins);
-      return `${path.startsWith(local) ? global + path.slice(local.length) : path}: ${issue.message}`;
-    })
-    .join("; ");
 }
 
 /** Runs checkMembers over a chunk's stored JSON text: inline, or on an engine thread (workers/engine). */
