@@ -1,4 +1,5 @@
 import { checkMember } from "@/lib/engine/check-member";
+import { mapEnginePath } from "@/lib/engine/check-schedule";
 import { parseSchedule } from "@/lib/engine/intake";
 import type { InputIssue, MemberResult } from "@/lib/engine/model";
 import { EngineInputError } from "@/lib/engine/solver";
@@ -27,7 +28,10 @@ export function runStoredMember(header: Record<string, unknown>, input: unknown,
     const result = checkMember(member, parsed.schedule.profile, criteria?.catalogue, { shape: true });
     return { ok: true, result, model: describeMemberModel(member, parsed.schedule.profile, result.checks, parsed.schedule.unitSystem, parsed.schedule.unitDefaults) };
   } catch (error) {
-    if (error instanceof EngineInputError) return { ok: false, issues: error.issues.slice(0, MAX_ISSUES) };
+    if (error instanceof EngineInputError) {
+      const origins = parsed.schedule.origins[0];
+      return { ok: false, issues: error.issues.slice(0, MAX_ISSUES).map((issue) => ({ path: mapEnginePath(issue.path, "members[0]", origins), message: issue.message })) };
+    }
     throw error;
   }
 }

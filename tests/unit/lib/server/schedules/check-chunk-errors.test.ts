@@ -1,11 +1,13 @@
 import { describe, expect, it } from "vitest";
 
 import { checkMembers } from "@/lib/server/schedules/check-chunk";
+import { runStoredMember } from "@/lib/server/schedules/run-stored-member";
 import { SCHEDULE_FORMAT } from "@/lib/vocabulary";
 
 const header = { format: SCHEDULE_FORMAT, name: "Invented cantilever uplift test", units: { system: "SI", length: "m", distributedLoad: "kN/m" }, profile: { preset: "ibc-2021-floor" } };
 
-// A 2 m concrete cantilever under a net upward 60 kN/m: M = w L^2 / 2 = 120 kN*m, far past
+// A 2 m concrete cantilever under an upward 60 kN/m (less its self-weight, 0.15 m^2 x about
+// 24 kN/m^3 = 3.6 kN/m, common practice): M = w L^2 / 2 = 113 kN*m net, far past
 // (2/3) M_cr of a 300 x 500 fc30 section (f_r = 0.62 sqrt(30) MPa, ACI 318-19 19.2.3.1, from
 // memory; M_cr about 42 kN*m). It sags, and in a member of overhangs only the given steel is top
 // steel, so the bottom steel is unknown and the solver refuses it after intake accepted it.
@@ -30,6 +32,14 @@ describe("errors found while checking", () => {
     expect(memberLevel?.error).toMatch(/^members\[7\]\.reinforcement\.topSteel: is required: this overhang sags/);
     expect(spanLevel?.error).toMatch(/^members\[8\]\.spans\[0\]\.reinforcement\.topSteel: is required/);
     for (const outcome of [memberLevel, spanLevel]) expect(outcome?.error).not.toMatch(/reinforcedConcrete|Mm2/);
+  });
+
+  it("the member page's re-run and what-if name the same field", () => {
+    const run = runStoredMember(header, cantilever);
+    expect(run.ok).toBe(false);
+    if (run.ok) return;
+    expect(run.issues.map((issue) => issue.path)).toEqual(["members[0].reinforcement.topSteel"]);
+    expect(run.issues[0]?.message).toMatch(/this overhang sags/);
   });
 
   it("the same member passes once the upward load is gone (the refusal is the uplift, not the input)", () => {
