@@ -2,13 +2,17 @@
 // answer 503 problem+json with Retry-After (never 500, no stack or SQL in the body), and once
 // PostgreSQL is back the same requests succeed from the same web process, never restarted. The
 // submission refused during the outage stored nothing: sent again with its Idempotency-Key it is
-// stored once, as a first answer, and completes.
+// stored once, as a first answer, and completes. A signed-in engineer's dashboard page shows the
+// calm notice (app/error.tsx) in place of a bare error page, and the page serves again once it is back.
 import { execFileSync } from "node:child_process";
 
+import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { getSql } from "@/db/client";
 import { createTestKey } from "@/tests/helpers/api-keys";
+import { launchBrowser } from "@/tests/helpers/browser";
+import { createTestMember } from "@/tests/helpers/people";
 import { createScheduleBody, getWithKey, postSchedule, type PostAnswer } from "@/tests/helpers/api-posts";
 import { countResults, createDrill, drillPorts, waitForFinalState, waitForWeb } from "@/tests/helpers/drill";
 import { closeQueues } from "@/workers/queues";
@@ -24,6 +28,7 @@ const url = `http://127.0.0.1:${drillPorts.web}`;
 const database = new URL(process.env.DATABASE_URL!).pathname.slice(1);
 let apiKey: string;
 let pgStopped = false;
+let browser: Browser | undefined;
 
 function stopPostgres() {
   execFileSync("bash", ["docker-local/postgres.sh", "stop"], { stdio: "ignore" });
@@ -43,6 +48,7 @@ beforeAll(async () => {
 
 afterAll(async () => {
   if (pgStopped) startPostgres();
+  await browser?.close();
   drill.killAll();
   await closeQueues();
 });
@@ -53,6 +59,39 @@ function expectUnavailable(answer: PostAnswer, path: string) {
   expect(Number(answer.retryAfter)).toBeGreaterThan(0);
   expect(answer.body).toMatchObject({ type: "https://sagline.dev/problems/unavailable", title: "Service unavailable", status: 503 });
   expect(answer.text).not.toMatch(/ECONNREFUSED|CONNECTION_|\bselect\b|\binsert\b|\bfrom "|api_keys|127\.0\.0\.1|:\d{4,5}\b|\.js:\d+|\n\s+at /i);
+}
+
+/** An engineer signed in to the drill's web process through the sign-in form, in Debian's chromium. */
+async function signInEngineer(browser: Browser): Promise<Page> {
+  const person = await createTestMember("engineer");
+  const page = await browser.newPage();
+  await page.goto(`${url}/sign-in`);
+  const form = page.getByRole("form", { name: "Sign in" });
+  await form.getByLabel("E-mail").fill(person.email);
+  await form.getByLabel("Password").fill(person.password);
+  await form.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL((address) => address.pathname === "/schedules");
+  return page;
+}
+
+/** Presses the notice's "Try again" until the schedules page is back in place of it; returns the presses. */
+async function retryUntilServed(page: Page): Promise<number> {
+  const deadline = Date.now() + RECOVER_WITHIN_MS;
+  for (let presses = 1; ; presses++) {
+    await page.getByRole("button", { name: "Try again" }).click();
+    const served = await page
+      .getByRole("heading", { name: "Schedules", level: 1 })
+      .waitFor({ timeout: 2_000 })
+      .then(
+        () => true,
+        () => false,
+      );
+    if (served) {
+      expect(await page.getByText("Sagline could not open this page just now").count()).toBe(0);
+      return presses;
+    }
+    if (Date.now() > deadline) throw new Error(`the schedules page did not come back within ${RECOVER_WITHIN_MS} ms of PostgreSQL starting (${presses} presses)`);
+  }
 }
 
 /** Repeats the request until it succeeds; every answer on the way is the 503 or the success, never a 500. */
@@ -83,6 +122,8 @@ describe("PostgreSQL stopped under a serving web process", () => {
     const name = `Outage drill ${drill.prefix}`;
     const key = `pg-during-${drill.prefix}`;
     const body = createScheduleBody(name, MEMBERS);
+    browser = await launchBrowser();
+    const engineer = await signInEngineer(browser);
     stopPostgres();
     // The fault hit: PostgreSQL refuses connections, and the web process's own health check says so.
     await expect(getSql()`select 1`).rejects.toThrow();
@@ -98,13 +139,21 @@ describe("PostgreSQL stopped under a serving web process", () => {
     };
     console.log(`[postgres-down-web] while down: ${Object.entries(during).map(([k, a]) => `${k} ${a.status} (Retry-After ${a.retryAfter})`).join(", ")}`);
     for (const [what, answer] of Object.entries(during)) expectUnavailable(answer, what);
+    // The dashboard: an error status for monitors, and for the engineer our notice with a retry, nothing internal.
+    const page = await engineer.goto(`${url}/schedules`);
+    console.log(`[postgres-down-web] while down: dashboard page /schedules ${page?.status()}`);
+    expect(page?.status()).toBeGreaterThanOrEqual(500);
+    const notice = engineer.getByRole("alert").filter({ hasText: "Sagline could not open this page just now" });
+    await notice.waitFor({ timeout: 30_000 });
+    expect(await engineer.locator("body").innerText()).not.toMatch(/ECONNREFUSED|CONNECTION_|\bselect\b|\binsert\b|api_keys|127\.0\.0\.1:\d|\.js:\d+|\n\s+at /i);
 
     const backAtMs = Date.now();
     startPostgres();
     const posted = await waitForSuccess("the submission", () => postSchedule(url, apiKey, key, body), 202);
     const results = await waitForSuccess("the results", () => getWithKey(url, apiKey, resultsPath), 200);
+    const dashboardPresses = await retryUntilServed(engineer);
     const recoveredMs = Date.now() - backAtMs;
-    console.log(`[postgres-down-web] back: submission ${posted.seen.join(", ")}, results ${results.seen.join(", ")}; both served ${recoveredMs} ms after PostgreSQL started`);
+    console.log(`[postgres-down-web] back: submission ${posted.seen.join(", ")}, results ${results.seen.join(", ")}, dashboard after ${dashboardPresses} "Try again"; all served ${recoveredMs} ms after PostgreSQL started`);
     expect(recoveredMs).toBeLessThanOrEqual(RECOVER_WITHIN_MS);
     // The same process served before, during and after: it was never restarted.
     expect(web.exitCode).toBeNull();
